@@ -1,0 +1,3 @@
+import { NotFoundScreen } from '@/features/landing';
+
+export default NotFoundScreen;

@@ -1,0 +1,33 @@
+import { QueryClientProvider } from '@tanstack/react-query';
+import { useFonts } from 'expo-font';
+import { Stack } from 'expo-router';
+import { StatusBar } from 'expo-status-bar';
+import { useState } from 'react';
+import { createQueryClient } from '@/features/api';
+import { ThemeProvider, Wordmark, colors, fontAssets, fonts } from '@/features/ui';
+
+export default function RootLayout() {
+  const [fontsLoaded, fontError] = useFonts(fontAssets);
+  const [queryClient] = useState(createQueryClient);
+  // Text drawn before the fonts arrive would flash in a fallback face; a failed load falls back.
+  if (!fontsLoaded && !fontError) return null;
+  return (
+    <QueryClientProvider client={queryClient}>
+      <ThemeProvider>
+        <StatusBar style="light" />
+        <Stack
+          screenOptions={{
+            headerStyle: { backgroundColor: colors.primary },
+            headerTintColor: colors.onPrimary,
+            headerTitleStyle: { fontFamily: fonts.semibold },
+            contentStyle: { backgroundColor: colors.paper },
+            headerTitle: () => <Wordmark />,
+          }}
+        >
+          <Stack.Screen name="index" options={{ title: 'Blazebook' }} />
+          <Stack.Screen name="+not-found" options={{ title: 'Not found' }} />
+        </Stack>
+      </ThemeProvider>
+    </QueryClientProvider>
+  );
+}

@@ -1,0 +1,3 @@
+import { LandingScreen } from '@/features/landing';
+
+export default LandingScreen;

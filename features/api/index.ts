@@ -1,0 +1,2 @@
+export { api, ApiError } from './client';
+export { createQueryClient, staleTime } from './query-client';

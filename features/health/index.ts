@@ -1,0 +1,1 @@
+export { healthKeys, useHealthQuery } from './queries';

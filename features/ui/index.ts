@@ -1,0 +1,11 @@
+export { Button } from './components/button';
+export { Card } from './components/card';
+export { Heading } from './components/heading';
+export { Screen } from './components/screen';
+export { Text } from './components/text';
+export { TextField } from './components/text-field';
+export { Wordmark } from './components/wordmark';
+export { fontAssets } from './fonts';
+export { ThemeProvider, useLayout, useTheme } from './theme-context';
+export { breakpoints, colors, fonts, layoutForWidth, maxContentWidth, radius, space, type } from './theme';
+export type { Layout, Theme } from './theme';
