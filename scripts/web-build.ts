@@ -1,0 +1,43 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+
+/** Everything the exported web bundle is made from. */
+const sourceEntries = ['app', 'features', 'shared', 'assets', 'app.json', 'package.json', 'package-lock.json', 'tsconfig.json'];
+const skip = new Set(['node_modules', '.git', 'dist', 'data']);
+
+function newestMtimeMs(target: string): number {
+  if (!existsSync(target)) return 0;
+  const stat = statSync(target);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  let newest = stat.mtimeMs;
+  for (const entry of readdirSync(target)) {
+    if (skip.has(entry)) continue;
+    newest = Math.max(newest, newestMtimeMs(path.join(target, entry)));
+  }
+  return newest;
+}
+
+/** Why the export in `dist/` must be rebuilt, or null when it is newer than every source. */
+export function staleReason(rootDir: string): string | null {
+  const index = path.join(rootDir, 'dist', 'index.html');
+  if (!existsSync(index)) return 'no web build yet';
+  const builtAt = statSync(index).mtimeMs;
+  const sourcesAt = Math.max(...sourceEntries.map((entry) => newestMtimeMs(path.join(rootDir, entry))));
+  return sourcesAt > builtAt ? 'sources changed since the last web build' : null;
+}
+
+/** Exports the web app with Expo when it is missing or older than its sources. */
+export function ensureWebBuild(rootDir: string, log: (line: string) => void = console.log): void {
+  const reason = staleReason(rootDir);
+  if (!reason) return;
+  log(`Exporting the web app (${reason})…`);
+  const started = Date.now();
+  const result = spawnSync(path.join(rootDir, 'node_modules', '.bin', 'expo'), ['export', '-p', 'web'], {
+    cwd: rootDir,
+    stdio: ['ignore', 'inherit', 'inherit'],
+    env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1' },
+  });
+  if (result.status !== 0) throw new Error(`expo export failed with exit code ${result.status}`);
+  log(`Web app exported in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
+}

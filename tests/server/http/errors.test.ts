@@ -1,0 +1,104 @@
+import express from 'express';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { z } from 'zod';
+import { errorBodySchema } from '../../../shared/api-error';
+import { errorHandler } from '../../../server/http/error-handler';
+import { handle } from '../../../server/http/validate';
+import { createTestApp } from '../../support/test-app';
+
+describe('the API error shape', () => {
+  let ctx: Awaited<ReturnType<typeof createTestApp>>;
+  beforeAll(async () => {
+    ctx = await createTestApp();
+  });
+  afterAll(() => ctx.close());
+
+  it('answers an unknown /api route with a 404 in the error shape', async () => {
+    const res = await request(ctx.app).get('/api/no-such-thing').expect(404);
+    expect(res.headers['content-type']).toMatch(/application\/json/);
+    expect(errorBodySchema.parse(res.body).error.code).toBe('not_found');
+    expect(res.body.error.message).toContain('/api/no-such-thing');
+  });
+
+  it('answers malformed JSON with a 400 that says so', async () => {
+    const res = await request(ctx.app)
+      .post('/api/health')
+      .set('content-type', 'application/json')
+      .send('{"design": {')
+      .expect(400);
+    expect(errorBodySchema.parse(res.body).error.code).toBe('malformed_json');
+  });
+
+  it('answers a body over 1 MB with a 413', async () => {
+    const big = JSON.stringify({ notes: 'x'.repeat(1024 * 1024 + 1) });
+    const res = await request(ctx.app).post('/api/health').set('content-type', 'application/json').send(big).expect(413);
+    expect(errorBodySchema.parse(res.body).error.code).toBe('payload_too_large');
+  });
+
+  it('turns off x-powered-by and sends security headers', async () => {
+    const res = await request(ctx.app).get('/api/health');
+    expect(res.headers['x-powered-by']).toBeUndefined();
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect(res.headers['content-security-policy']).toContain("default-src 'self'");
+    // Over plain http (tests, localhost) the browser must not be told to upgrade or pin https.
+    expect(res.headers['strict-transport-security']).toBeUndefined();
+    expect(res.headers['content-security-policy']).not.toContain('upgrade-insecure-requests');
+  });
+
+  it('compresses large JSON answers for clients that accept it', async () => {
+    const app = express();
+    app.use((await import('compression')).default());
+    app.get('/big', (_req, res) => {
+      res.json({ rows: Array.from({ length: 2000 }, (_, i) => ({ i })) });
+    });
+    const res = await request(app).get('/big').set('accept-encoding', 'gzip');
+    expect(res.headers['content-encoding']).toBe('gzip');
+  });
+});
+
+describe('the error middleware', () => {
+  function appThatFails(handler: express.RequestHandler) {
+    const logged: unknown[] = [];
+    const app = express();
+    app.use(express.json());
+    app.post('/thing', handler);
+    app.use(errorHandler((error) => logged.push(error)));
+    return { app, logged };
+  }
+
+  it('hides an unexpected error behind a 500 with no stack, and logs it', async () => {
+    const { app, logged } = appThatFails(() => {
+      throw new Error('secret detail at /srv/blazebook/db.ts:42');
+    });
+    const res = await request(app).post('/thing').send({}).expect(500);
+    expect(errorBodySchema.parse(res.body).error.code).toBe('internal');
+    expect(JSON.stringify(res.body)).not.toContain('secret detail');
+    expect(JSON.stringify(res.body)).not.toContain('.ts:');
+    expect(logged).toHaveLength(1);
+  });
+
+  it('names every bad field with its path when validation fails', async () => {
+    const schema = z.object({
+      slits: z.object({ exitWidthUm: z.number().positive({ error: 'must be greater than 0' }) }),
+      title: z.string({ error: 'is required' }),
+    });
+    const { app } = appThatFails(handle({ body: schema }, ({ body }) => body));
+    const res = await request(app).post('/thing').send({ slits: { exitWidthUm: -5 } }).expect(400);
+    const { error } = errorBodySchema.parse(res.body);
+    expect(error.code).toBe('invalid_request');
+    expect(error.fields).toEqual({ 'slits.exitWidthUm': 'must be greater than 0', title: 'is required' });
+  });
+
+  it('hands the parsed value on to the handler (defaults applied, parsed once)', async () => {
+    let calls = 0;
+    const schema = z.object({ n: z.number() }).transform((v) => {
+      calls += 1;
+      return { doubled: v.n * 2 };
+    });
+    const { app } = appThatFails(handle({ body: schema }, ({ body }) => body));
+    const res = await request(app).post('/thing').send({ n: 21 }).expect(200);
+    expect(res.body).toEqual({ doubled: 42 });
+    expect(calls).toBe(1);
+  });
+});

@@ -1,0 +1,94 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type Page } from 'playwright-core';
+
+const rootDir = fileURLToPath(new URL('../..', import.meta.url));
+export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
+export const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+export const viewports = {
+  phone: { width: 390, height: 844 },
+  tablet: { width: 820, height: 1180 },
+  wide: { width: 1440, height: 900 },
+} as const;
+export type ViewportName = keyof typeof viewports;
+
+export type RunningServer = { url: string; dataDir: string; output: () => string; stop(): Promise<void> };
+
+/**
+ * Starts the real server (`server/index.ts`) on a free port with its own temporary data directory,
+ * and resolves once it prints its ready line.
+ */
+export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
+  let log = '';
+  const child: ChildProcess = spawn(path.join(rootDir, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
+    cwd: rootDir,
+    env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, NODE_ENV: 'test', ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  const url = await new Promise<string>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`Server did not start within 60 s:\n${log}`)), 60_000);
+    const onData = (chunk: Buffer) => {
+      log += chunk.toString();
+      const match = /ready at (http:\/\/\S+)/.exec(log);
+      if (match?.[1]) {
+        clearTimeout(timer);
+        resolve(match[1].replace('localhost', '127.0.0.1'));
+      }
+    };
+    child.stdout?.on('data', onData);
+    child.stderr?.on('data', (chunk: Buffer) => (log += chunk.toString()));
+    child.once('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`Server exited with code ${code} before it was ready:\n${log}`));
+    });
+  });
+  return {
+    url,
+    dataDir,
+    output: () => log,
+    async stop() {
+      if (child.exitCode === null) {
+        const exited = new Promise((resolve) => child.once('exit', resolve));
+        child.kill('SIGTERM');
+        await exited;
+      }
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Debian's Chromium through playwright-core. Missing Chromium is a failure, never a skip. */
+export async function launchBrowser(): Promise<Browser> {
+  if (!existsSync(chromiumPath)) {
+    throw new Error(
+      `Chromium was not found at ${chromiumPath}. Browser tests need it: install it with ` +
+        '`sudo apt-get install -y chromium` (Debian), or set CHROMIUM_PATH to a Chromium binary.',
+    );
+  }
+  return chromium.launch({
+    executablePath: chromiumPath,
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+}
+
+/** Saves a full-page screenshot to tests/artifacts/<name>.png and returns its path. */
+export async function screenshot(page: Page, name: string): Promise<string> {
+  mkdirSync(artifactsDir, { recursive: true });
+  const file = path.join(artifactsDir, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}

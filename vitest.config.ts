@@ -1,0 +1,51 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const root = fileURLToPath(new URL('.', import.meta.url));
+const alias = { '@': root };
+
+/**
+ * Three kinds of test, one command. Unit and API tests are fast and run in parallel workers;
+ * browser tests share one exported web build and one Chromium, so they run in a single fork.
+ */
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    // CI reads the JSON report to print a plain "N passed, N failed" line.
+    reporters: process.env.CI ? ['default', ['json', { outputFile: 'tests/artifacts/results.json' }]] : ['default'],
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['tests/**/*.test.ts'],
+          exclude: ['tests/server/**', 'tests/browser/**'],
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          environment: 'node',
+          include: ['tests/server/**/*.test.ts'],
+          globalSetup: ['tests/support/db-template.ts'],
+          testTimeout: 20_000,
+          hookTimeout: 30_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'browser',
+          environment: 'node',
+          include: ['tests/browser/**/*.test.ts'],
+          globalSetup: ['tests/support/web-build.ts'],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 240_000,
+        },
+      },
+    ],
+  },
+});
