@@ -1,0 +1,177 @@
+import { z } from 'zod';
+
+/**
+ * The stored format of a design (in a notebook) and the scripting interface of the solver.
+ * Field names carry their units and are part of the public contract: renaming one breaks saved
+ * notebooks and lab scripts.
+ *
+ * Bounds are deliberately generous (they admit echelles, far-IR and metre-class instruments) but
+ * finite, so every derived number stays finite in double precision.
+ */
+
+const MUST_BE_NUMBER = 'must be a number';
+
+/** A number, with "is required" for a missing field instead of zod's type jargon. */
+function number() {
+  return z.number({ error: (issue) => (issue.input === undefined ? 'is required' : MUST_BE_NUMBER) });
+}
+
+/** A positive quantity with a physically sensible upper and lower bound in the field's unit. */
+function positive(min: number, max: number, unitWords: string) {
+  return number()
+    .gt(0, { error: 'must be greater than 0' })
+    .min(min, { error: `must be at least ${min} ${unitWords}` })
+    .max(max, { error: `must be at most ${max} ${unitWords}` });
+}
+
+/** An angle in degrees, at least 0 and strictly below `limitDeg`. */
+function angleBelow(limitDeg: number) {
+  const message = `must be at least 0° and less than ${limitDeg}°`;
+  return number().min(0, { error: message }).lt(limitDeg, { error: message });
+}
+
+/** An object section: "is required" when missing, and unknown keys named so typos surface. */
+function section<T extends z.core.$ZodLooseShape>(shape: T) {
+  return z.strictObject(shape, {
+    error: (issue) => {
+      if (issue.code === 'unrecognized_keys') {
+        const keys = issue.keys.map((key) => `'${key}'`).join(', ');
+        return `has an unknown field ${keys} (check the spelling)`;
+      }
+      return issue.input === undefined ? 'is required' : 'must be an object';
+    },
+  });
+}
+
+const wavelengthNm = () => positive(0.001, 10_000_000, 'nm');
+
+export const LAYOUT_KINDS = ['czerny-turner', 'littrow', 'ebert-fastie'] as const;
+export type LayoutKind = (typeof LAYOUT_KINDS)[number];
+
+export const gratingSchema = section({
+  grooveDensityPerMm: positive(0.001, 100_000, 'per mm'),
+  order: number()
+    .int({ error: 'must be a whole number other than 0' })
+    .refine((order) => order !== 0, { error: 'must be a whole number other than 0' })
+    .min(-1000, { error: 'must be between -1000 and 1000' })
+    .max(1000, { error: 'must be between -1000 and 1000' }),
+  /** First-order Littrow blaze wavelength, as gratings are sold. */
+  blazeWavelengthNm: wavelengthNm().optional(),
+  ruledWidthMm: positive(0.001, 100_000, 'mm'),
+  ruledHeightMm: positive(0.001, 100_000, 'mm'),
+});
+
+export const layoutSchema = section({
+  kind: z.enum(LAYOUT_KINDS, {
+    error: (issue) =>
+      issue.input === undefined ? 'is required' : 'must be one of czerny-turner, littrow or ebert-fastie',
+  }),
+  deviationAngleDeg: angleBelow(180),
+  collimatorFocalMm: positive(0.001, 10_000_000, 'mm'),
+  cameraFocalMm: positive(0.001, 10_000_000, 'mm'),
+  collimatorOffAxisDeg: angleBelow(90).optional(),
+  cameraOffAxisDeg: angleBelow(90).optional(),
+}).superRefine((layout, ctx) => {
+  // Littrow is required to be 0 rather than silently treated as 0: a stored design should mean
+  // what it says, and the message tells the user the one-keystroke fix.
+  if (layout.kind === 'littrow' && layout.deviationAngleDeg !== 0) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['deviationAngleDeg'],
+      message: 'must be 0 for a Littrow layout (the light returns along its own path)',
+    });
+  }
+  if (layout.kind === 'ebert-fastie' && layout.cameraFocalMm !== layout.collimatorFocalMm) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['cameraFocalMm'],
+      message: 'must equal collimatorFocalMm: an Ebert–Fastie layout uses one mirror for both',
+    });
+  }
+});
+
+export const slitsSchema = section({
+  entranceWidthUm: positive(0.001, 1_000_000, 'µm'),
+  exitWidthUm: positive(0.001, 1_000_000, 'µm'),
+  heightMm: positive(0.001, 100_000, 'mm'),
+});
+
+export const rangeSchema = section({
+  startNm: wavelengthNm(),
+  endNm: wavelengthNm(),
+}).superRefine((range, ctx) => {
+  if (range.endNm <= range.startNm) {
+    ctx.addIssue({ code: 'custom', path: ['endNm'], message: 'must be greater than range.startNm' });
+  }
+});
+
+export const sourceSchema = section({
+  minNm: wavelengthNm(),
+  maxNm: wavelengthNm(),
+}).superRefine((source, ctx) => {
+  if (source.maxNm <= source.minNm) {
+    ctx.addIssue({ code: 'custom', path: ['maxNm'], message: 'must be greater than source.minNm' });
+  }
+});
+
+export const detectorSchema = section({
+  pixelPitchUm: positive(0.001, 100_000, 'µm'),
+  pixelCount: number()
+    .int({ error: 'must be a whole number' })
+    .min(1, { error: 'must be at least 1' })
+    .max(10_000_000, { error: 'must be at most 10000000' }),
+});
+
+/** A grating monochromator or spectrograph design, exactly as stored and scripted. */
+export const designSchema = section({
+  grating: gratingSchema,
+  layout: layoutSchema,
+  slits: slitsSchema,
+  range: rangeSchema,
+  /** What the light source emits; used to find other orders landing on the same angle. */
+  source: sourceSchema.optional(),
+  detector: detectorSchema.optional(),
+});
+
+export type Design = z.infer<typeof designSchema>;
+
+export const MAX_SOLVE_WAVELENGTHS = 5000;
+
+/** Body of a solve call (HTTP and scripts): a design and optionally where to evaluate it. */
+export const solveRequestSchema = z.object({
+  design: designSchema,
+  at: z
+    .array(wavelengthNm(), { error: 'must be a list of wavelengths in nm' })
+    .max(MAX_SOLVE_WAVELENGTHS, { error: `must list at most ${MAX_SOLVE_WAVELENGTHS} wavelengths` })
+    .optional(),
+  points: number()
+    .int({ error: 'must be a whole number from 2 to 5000' })
+    .min(2, { error: 'must be a whole number from 2 to 5000' })
+    .max(MAX_SOLVE_WAVELENGTHS, { error: 'must be a whole number from 2 to 5000' })
+    .optional(),
+});
+
+export type SolveRequest = z.infer<typeof solveRequestSchema>;
+
+/** The example design of the solver's spec: a 0.3 m Czerny–Turner with a 1200 g/mm grating. */
+export const exampleDesign: Design = {
+  grating: {
+    grooveDensityPerMm: 1200,
+    order: 1,
+    blazeWavelengthNm: 500,
+    ruledWidthMm: 50,
+    ruledHeightMm: 50,
+  },
+  layout: {
+    kind: 'czerny-turner',
+    deviationAngleDeg: 30,
+    collimatorFocalMm: 300,
+    cameraFocalMm: 300,
+    collimatorOffAxisDeg: 8,
+    cameraOffAxisDeg: 10,
+  },
+  slits: { entranceWidthUm: 100, exitWidthUm: 100, heightMm: 10 },
+  range: { startNm: 300, endNm: 900 },
+  source: { minNm: 200, maxNm: 1100 },
+  detector: { pixelPitchUm: 25, pixelCount: 1024 },
+};
