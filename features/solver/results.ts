@@ -1,0 +1,83 @@
+/**
+ * The solver's output shape, shared by the client, the server's HTTP endpoint, the PDF sheet and
+ * the CLI. Field names are part of the public JSON contract; units are in the names. Every number
+ * is finite; angle-dependent figures of an unreachable wavelength are null, never NaN.
+ */
+
+import type { LayoutKind } from '../../shared/design';
+import type { SlitFunction } from './bandpass';
+import type { DetectorCoverage } from './detector';
+import type { Overlap } from './orders';
+import type { Warning } from './warnings';
+
+export interface WavelengthPoint {
+  wavelengthNm: number;
+  reachable: boolean;
+  /** Why no grating angle delivers this wavelength; null when reachable. */
+  reason: string | null;
+  incidenceDeg: number | null;
+  diffractionDeg: number | null;
+  gratingRotationDeg: number | null;
+  angularDispersionDegPerNm: number | null;
+  linearDispersionMmPerNm: number | null;
+  /** At the exit plane, with the camera focal length. */
+  reciprocalDispersionNmPerMm: number | null;
+  /** `(cos α / cos β)(f_cam / f_col)`: entrance-slit image width over slit width. */
+  anamorphicMagnification: number | null;
+  /** Slit-limited FWHM of the instrument function. */
+  bandpassNm: number | null;
+  slitFunction: SlitFunction | null;
+  diffractionLimitNm: number;
+  /** `λ / max(bandpass, diffraction limit)`. */
+  resolvingPower: number | null;
+  theoreticalResolvingPower: number;
+  freeSpectralRangeNm: number;
+  /** Scalar sinc² estimate relative to its peak; null without a blaze wavelength or when unreachable. */
+  blazeEfficiency: number | null;
+  overlaps: readonly Overlap[];
+  scanSensitivityNmPerArcsec: number | null;
+}
+
+export interface AberrationSummary {
+  /** Shafer–Megill–Droppleman coma-free camera angle at the centre wavelength (null for Littrow or without a collimator angle). */
+  comaFreeCameraOffAxisDeg: number | null;
+  /** Camera angle the residuals refer to: the design's, else the coma-free one. */
+  cameraOffAxisInUseDeg: number | null;
+  /** Coma-free camera angle at each wavelength minus the angle in use, degrees. */
+  comaResidualAtStartDeg: number | null;
+  comaResidualAtCentreDeg: number | null;
+  comaResidualAtEndDeg: number | null;
+  /** Coddington `f / cos θ − f cos θ` of each off-axis mirror (null without its angle). */
+  collimatorAstigmatismMm: number | null;
+  cameraAstigmatismMm: number | null;
+}
+
+export interface DesignSummary {
+  kind: LayoutKind;
+  grooveSpacingNm: number;
+  /** N, grooves across the ruled width. */
+  illuminatedGrooves: number;
+  halfDeviationDeg: number;
+  centreWavelengthNm: number;
+  /** Zero order: the grating turned square to the bisector. */
+  reachableMinNm: number;
+  /** `2d cos²K / |m|`, where the incidence reaches grazing. */
+  reachableMaxNm: number;
+  gratingRotationStartDeg: number | null;
+  gratingRotationEndDeg: number | null;
+  /** Collimator focal / (ruled width · cos α) at the centre wavelength. */
+  fNumberProjectedWidth: number | null;
+  /** Collimator focal / ruled height. */
+  fNumberHeight: number;
+  /** `λ_B cos K / |m|`, null without a blaze wavelength. */
+  blazeWavelengthInMountNm: number | null;
+  aberrations: AberrationSummary;
+  /** Null without a detector, or when the centre wavelength is unreachable. */
+  detector: DetectorCoverage | null;
+}
+
+export interface Evaluation {
+  points: WavelengthPoint[];
+  design: DesignSummary;
+  warnings: Warning[];
+}

@@ -1,0 +1,173 @@
+/**
+ * Design warnings, each in plain words with the fix. Per-wavelength conditions are folded into
+ * one warning per kind (with the first offending wavelength), so a 1,000-point sweep gives a
+ * readable list rather than a thousand lines.
+ */
+
+import { formatNumber } from './math';
+import type { DesignSummary, WavelengthPoint } from './results';
+
+export type WarningCode =
+  | 'unreachable'
+  | 'near-grazing'
+  | 'below-diffraction-limit'
+  | 'undersampled'
+  | 'order-overlap'
+  | 'low-efficiency';
+
+export interface Warning {
+  code: WarningCode;
+  message: string;
+  wavelengthNm?: number;
+}
+
+/** Beyond this angle from the grating normal, efficiency and imaging degrade fast (common practice). */
+export const NEAR_GRAZING_DEG = 80;
+/** Fewer detector pixels per bandpass than this undersample the line shape (common practice: 2–3). */
+export const MIN_PIXELS_PER_BANDPASS = 2;
+/** Blaze efficiency, relative to its peak, below which a wavelength is flagged. */
+export const LOW_EFFICIENCY = 0.2;
+
+interface Tally {
+  count: number;
+  first: WavelengthPoint | null;
+  minNm: number;
+  maxNm: number;
+}
+
+function tally(): Tally {
+  return { count: 0, first: null, minNm: Infinity, maxNm: -Infinity };
+}
+
+function add(t: Tally, point: WavelengthPoint): void {
+  t.count++;
+  if (t.first === null) t.first = point;
+  if (point.wavelengthNm < t.minNm) t.minNm = point.wavelengthNm;
+  if (point.wavelengthNm > t.maxNm) t.maxNm = point.wavelengthNm;
+}
+
+function where(t: Tally, total: number): string {
+  const span =
+    t.minNm === t.maxNm
+      ? `at ${formatNumber(t.minNm)} nm`
+      : `between ${formatNumber(t.minNm)} and ${formatNumber(t.maxNm)} nm`;
+  return t.count === total ? `Everywhere evaluated (${span})` : `At ${t.count} of ${total} wavelengths ${span}`;
+}
+
+function ordinal(order: number): string {
+  const n = Math.abs(order);
+  const teen = n % 100 >= 11 && n % 100 <= 13;
+  const suffix = teen ? 'th' : (['th', 'st', 'nd', 'rd'][n % 10] ?? 'th');
+  return `${order < 0 ? '−' : ''}${n}${suffix}`;
+}
+
+/** Folds per-wavelength conditions and design-wide checks into warnings. */
+export function collectWarnings(
+  points: readonly WavelengthPoint[],
+  summary: DesignSummary,
+  order: number,
+): Warning[] {
+  const unreachable = tally();
+  const grazing = tally();
+  const belowLimit = tally();
+  const overlap = tally();
+  const lowEfficiency = tally();
+
+  for (const p of points) {
+    if (!p.reachable) {
+      add(unreachable, p);
+      continue;
+    }
+    if (Math.abs(p.incidenceDeg ?? 0) > NEAR_GRAZING_DEG || Math.abs(p.diffractionDeg ?? 0) > NEAR_GRAZING_DEG) {
+      add(grazing, p);
+    }
+    if (p.bandpassNm !== null && p.bandpassNm < p.diffractionLimitNm) add(belowLimit, p);
+    if (p.overlaps.length > 0) add(overlap, p);
+    if (p.blazeEfficiency !== null && p.blazeEfficiency < LOW_EFFICIENCY) add(lowEfficiency, p);
+  }
+
+  const total = points.length;
+  const warnings: Warning[] = [];
+
+  if (unreachable.first) {
+    warnings.push({
+      code: 'unreachable',
+      wavelengthNm: unreachable.first.wavelengthNm,
+      message:
+        `${where(unreachable, total)} no grating angle delivers the light: ` +
+        `${unreachable.first.reason ?? 'unreachable'}. ` +
+        'Use a coarser grating, a lower order or a smaller deviation angle, or shorten the range.',
+    });
+  }
+  if (grazing.first) {
+    warnings.push({
+      code: 'near-grazing',
+      wavelengthNm: grazing.first.wavelengthNm,
+      message:
+        `${where(grazing, total)} the light meets or leaves the grating more than ` +
+        `${NEAR_GRAZING_DEG}° from its normal, where efficiency and image quality fall off. ` +
+        'Use a coarser grating, a lower order or a smaller deviation angle.',
+    });
+  }
+  if (belowLimit.first) {
+    const p = belowLimit.first;
+    const bandpass = p.bandpassNm ?? 0;
+    // Exit width whose bandpass equals the diffraction limit.
+    const neededUm = p.reciprocalDispersionNmPerMm
+      ? (p.diffractionLimitNm / p.reciprocalDispersionNmPerMm) * 1000
+      : null;
+    warnings.push({
+      code: 'below-diffraction-limit',
+      wavelengthNm: p.wavelengthNm,
+      message:
+        `${where(belowLimit, total)} the slits are narrower than the diffraction limit ` +
+        `(slit bandpass ${formatNumber(bandpass)} nm, diffraction limit ` +
+        `${formatNumber(p.diffractionLimitNm)} nm at ${formatNumber(p.wavelengthNm)} nm), so the ` +
+        'grating, not the slits, sets the resolution and the narrower slits only cost light. ' +
+        (neededUm !== null
+          ? `Widen the slits to about ${formatNumber(neededUm, 3)} µm at the exit, or illuminate more grooves.`
+          : 'Widen the slits or illuminate more grooves.'),
+    });
+  }
+  if (overlap.first) {
+    const p = overlap.first;
+    const example = p.overlaps[0];
+    warnings.push({
+      code: 'order-overlap',
+      wavelengthNm: p.wavelengthNm,
+      message:
+        `${where(overlap, total)} light the source emits in other orders leaves the grating at ` +
+        'the same angle' +
+        (example
+          ? ` (for example ${ordinal(example.order)} order ${formatNumber(example.wavelengthNm)} nm lands on ` +
+            `${formatNumber(p.wavelengthNm)} nm in order ${order})`
+          : '') +
+        '. Add an order-sorting filter or narrow the source range.',
+    });
+  }
+  if (lowEfficiency.first) {
+    const blaze = summary.blazeWavelengthInMountNm;
+    warnings.push({
+      code: 'low-efficiency',
+      wavelengthNm: lowEfficiency.first.wavelengthNm,
+      message:
+        `${where(lowEfficiency, total)} the scalar blaze estimate falls below ` +
+        `${LOW_EFFICIENCY * 100} % of its peak` +
+        (blaze !== null ? ` (the peak is at ${formatNumber(blaze)} nm in this mount and order)` : '') +
+        '. Choose a grating blazed nearer the range, or split the range.',
+    });
+  }
+  const detector = summary.detector;
+  if (detector && detector.pixelsPerBandpass < MIN_PIXELS_PER_BANDPASS) {
+    warnings.push({
+      code: 'undersampled',
+      wavelengthNm: summary.centreWavelengthNm,
+      message:
+        `The bandpass at ${formatNumber(summary.centreWavelengthNm)} nm spans only ` +
+        `${formatNumber(detector.pixelsPerBandpass, 3)} detector pixels; sample it with at least ` +
+        `${MIN_PIXELS_PER_BANDPASS} (2–3 is common practice). Use smaller pixels, a longer camera ` +
+        'focal length or wider slits.',
+    });
+  }
+  return warnings;
+}
