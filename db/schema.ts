@@ -1,4 +1,5 @@
-import { pgTable, text, timestamp } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { boolean, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 
 /**
  * Table definitions only: importable by tooling and tests without loading a database driver.
@@ -10,4 +11,108 @@ export const appMeta = pgTable('app_meta', {
   key: text().primaryKey(),
   value: text().notNull(),
   updatedAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+});
+
+/** Roles in a team, from most to least powerful; what each may do is in `shared/teams.ts`. */
+export const teamRole = pgEnum('team_role', ['owner', 'reviewer', 'viewer']);
+
+/**
+ * People with an account. `email` is stored lower-cased and unique; `passwordHash` is argon2id.
+ * Lucia reads this table through its Drizzle adapter (`server/auth/lucia.ts`).
+ */
+export const users = pgTable(
+  'users',
+  {
+    id: text().primaryKey(),
+    email: text().notNull(),
+    displayName: text().notNull(),
+    passwordHash: text().notNull(),
+    emailVerifiedAt: timestamp({ withTimezone: true, mode: 'date' }),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('users_email_lower_unique').on(sql`lower(${t.email})`)],
+);
+
+/** Lucia sessions: the cookie holds `id`; `expiresAt` slides forward while the session is used. */
+export const sessions = pgTable(
+  'sessions',
+  {
+    id: text().primaryKey(),
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    expiresAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [index('sessions_user_id_idx').on(t.userId)],
+);
+
+/**
+ * Single-use links sent by e-mail (verify an address, reset a password). Only the SHA-256 of the
+ * token is kept, so a copy of the database cannot be used to take over accounts.
+ */
+export const authTokens = pgTable(
+  'auth_tokens',
+  {
+    tokenHash: text().primaryKey(),
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    purpose: text({ enum: ['verify-email', 'reset-password'] }).notNull(),
+    expiresAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [index('auth_tokens_user_id_idx').on(t.userId)],
+);
+
+/** A team, or a user's personal workspace (`personal`: a team of one that cannot be shared). */
+export const teams = pgTable('teams', {
+  id: text().primaryKey(),
+  name: text().notNull(),
+  personal: boolean().notNull().default(false),
+  createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+});
+
+export const memberships = pgTable(
+  'memberships',
+  {
+    teamId: text()
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    role: teamRole().notNull(),
+    joinedAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.teamId, t.userId] }), index('memberships_user_id_idx').on(t.userId)],
+);
+
+/** An e-mailed offer to join a team with a role; the token in the link is stored hashed. */
+export const invitations = pgTable(
+  'invitations',
+  {
+    id: text().primaryKey(),
+    teamId: text()
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    email: text().notNull(),
+    role: teamRole().notNull(),
+    tokenHash: text().notNull().unique(),
+    invitedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    expiresAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+    acceptedAt: timestamp({ withTimezone: true, mode: 'date' }),
+    acceptedBy: text().references(() => users.id, { onDelete: 'set null' }),
+  },
+  (t) => [index('invitations_team_id_idx').on(t.teamId)],
+);
+
+/** Every e-mail the local fake mailer "sent" (no SMTP_URL): read through the dev outbox. */
+export const mailOutbox = pgTable('mail_outbox', {
+  id: integer().primaryKey().generatedAlwaysAsIdentity(),
+  to: text().notNull(),
+  subject: text().notNull(),
+  text: text().notNull(),
+  html: text().notNull(),
+  createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
 });
