@@ -7,6 +7,7 @@ import { healthRouter } from './health/router';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
+import { solveRouter } from './solve/router';
 
 export type AppDeps = {
   database: DatabaseHandle;
@@ -47,6 +48,7 @@ export function createApp(deps: AppDeps) {
   const apiRouter = express.Router();
   apiRouter.use(express.json({ limit: bodyLimit }));
   apiRouter.use(healthRouter(deps));
+  apiRouter.use(solveRouter());
   apiRouter.use(apiNotFound);
   app.use('/api', apiRouter);
 
