@@ -2,12 +2,16 @@ import compression from 'compression';
 import express from 'express';
 import helmet from 'helmet';
 import type { DatabaseHandle } from '../db/client';
+import { createAuth, originCheck, type RateLimits } from './auth/index';
 import type { Clock } from './clock';
+import { devRouter } from './dev/router';
 import { healthRouter } from './health/router';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
+import { createOutboxRepository } from './mail/outbox-repository';
 import { solveRouter } from './solve/router';
+import { createTeams } from './teams/index';
 
 export type AppDeps = {
   database: DatabaseHandle;
@@ -21,7 +25,22 @@ export type AppDeps = {
   https?: boolean;
   /** Where unexpected errors are written; they never reach the client. */
   log?: (error: unknown) => void;
+  /** 'production' turns off the dev outbox. */
+  nodeEnv?: 'development' | 'production' | 'test';
+  /** Base of the links in e-mails. A function: without PUBLIC_URL the port is known only once listening. */
+  publicUrl?: () => string;
+  /** PUBLIC_URL's origin, when configured: the only Origin state-changing requests may carry. */
+  trustedOrigin?: string;
+  /** Sign-in, sign-up and reset limits; tests inject small ones. */
+  rateLimits?: Partial<RateLimits>;
 };
+
+/**
+ * State-changing routes that skip the Origin check. `POST /api/solve` is a pure computation: it
+ * reads no cookie and writes nothing, so a forged cross-site call gains nothing, and lab scripts
+ * (curl, Python) send no Origin.
+ */
+export const originExempt = ['POST /api/solve'] as const;
 
 export const bodyLimit = '1mb';
 
@@ -47,8 +66,22 @@ export function createApp(deps: AppDeps) {
 
   const apiRouter = express.Router();
   apiRouter.use(express.json({ limit: bodyLimit }));
+  apiRouter.use(originCheck({ trustedOrigin: deps.trustedOrigin, exempt: originExempt }));
+  const publicUrl = deps.publicUrl ?? (() => 'http://localhost:8080');
+  const auth = createAuth({
+    db: deps.database.db,
+    mailer: deps.mailer,
+    clock: deps.clock,
+    publicUrl,
+    secureCookies: deps.https ?? false,
+    rateLimits: deps.rateLimits,
+  });
+  apiRouter.use(auth.sessions);
   apiRouter.use(healthRouter(deps));
   apiRouter.use(solveRouter());
+  apiRouter.use(auth.router);
+  apiRouter.use(createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl }).router);
+  if (deps.nodeEnv !== 'production') apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock)));
   apiRouter.use(apiNotFound);
   app.use('/api', apiRouter);
 

@@ -3,14 +3,30 @@ import { openDatabase } from '../db/client';
 import { createApp } from './app';
 import { systemClock } from './clock';
 import { loadConfig } from './config';
-import { createMemoryMailer } from './mail/mailer';
+import { createOutboxMailer, createSmtpMailer } from './mail/mailer';
+import { createOutboxRepository } from './mail/outbox-repository';
+import { seedDemoData } from './seed/demo';
 
 const config = loadConfig();
 const database = await openDatabase({ dataDir: config.DATA_DIR });
+if (config.NODE_ENV === 'development') {
+  const lines = await seedDemoData({ database, clock: systemClock });
+  if (lines) console.log(lines.join('\n'));
+}
+if (!config.SMTP_URL && config.NODE_ENV === 'production') {
+  console.warn('SMTP_URL is not set: e-mails are kept in the mail_outbox table and not delivered.');
+}
+// Known once listening (PORT=0 picks a free port); e-mailed links are built after that.
+let listeningUrl = config.PUBLIC_URL ?? `http://localhost:${config.PORT}`;
 const app = createApp({
   database,
-  mailer: createMemoryMailer(),
+  mailer: config.SMTP_URL
+    ? createSmtpMailer(config.SMTP_URL, config.MAIL_FROM)
+    : createOutboxMailer(createOutboxRepository(database.db, systemClock)),
   clock: systemClock,
+  nodeEnv: config.NODE_ENV,
+  publicUrl: () => listeningUrl,
+  trustedOrigin: config.PUBLIC_URL ? new URL(config.PUBLIC_URL).origin : undefined,
   version: config.version,
   webRoot: config.WEB_ROOT,
   https: config.PUBLIC_URL?.startsWith('https:') ?? false,
@@ -19,6 +35,7 @@ const app = createApp({
 const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;
   const url = config.PUBLIC_URL ?? `http://localhost:${port}`;
+  listeningUrl = url;
   // The test helper and `npm start` wait for this exact line.
   console.log(`Blazebook is ready at ${url} (data in ${config.DATA_DIR})`);
 });

@@ -1,11 +1,19 @@
+import request from 'supertest';
 import type { DatabaseHandle } from '../../db/client';
-import { createApp } from '../../server/app';
+import { createApp, type AppDeps } from '../../server/app';
 import { createFixedClock } from '../../server/clock';
 import { createMemoryMailer } from '../../server/mail/mailer';
 import { openTestDatabase } from './test-db';
 
+/** The origin the test app believes it is served from; state-changing test requests carry it. */
+export const testOrigin = 'http://blazebook.example.com';
+
+type TestAppOptions = {
+  log?: (error: unknown) => void;
+} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'mailer'>>;
+
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
-export async function createTestApp(options: { log?: (error: unknown) => void } = {}) {
+export async function createTestApp(options: TestAppOptions = {}) {
   const database: DatabaseHandle = await openTestDatabase();
   const clock = createFixedClock(new Date('2026-03-14T09:00:00Z'));
   const mailer = createMemoryMailer();
@@ -13,9 +21,49 @@ export async function createTestApp(options: { log?: (error: unknown) => void } 
   const app = createApp({
     database,
     clock,
-    mailer,
+    mailer: options.mailer ?? mailer,
     version: 'test',
+    nodeEnv: options.nodeEnv ?? 'test',
+    https: options.https,
+    publicUrl: () => testOrigin,
+    trustedOrigin: testOrigin,
+    rateLimits: options.rateLimits,
     log: options.log ?? ((error) => errors.push(error)),
   });
   return { app, database, clock, mailer, errors, close: () => database.close() };
+}
+
+export type TestApp = Awaited<ReturnType<typeof createTestApp>>;
+
+/** A cookie-keeping client that sends our Origin, like the web app in a browser. */
+export function browserAgent(app: TestApp['app']) {
+  return request.agent(app).set('origin', testOrigin);
+}
+
+let counter = 0;
+
+/** Signs up a fresh account and returns a signed-in agent; names and e-mails are unique per call. */
+export async function signUp(app: TestApp['app'], name = 'Test Person', email?: string) {
+  counter += 1;
+  const agent = browserAgent(app);
+  const address = email ?? `person${counter}-${Date.now()}@example.com`;
+  const res = await agent
+    .post('/api/auth/sign-up')
+    .send({ email: address, displayName: `${name} ${counter}`, password: 'long enough password' });
+  if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return { agent, user: res.body.user as { id: string; email: string; displayName: string }, password: 'long enough password' };
+}
+
+/** The last link of the given path in the latest message sent to `to`. */
+export function linkIn(mailer: ReturnType<typeof createMemoryMailer>, to: string, path: string): string {
+  const message = [...mailer.sent].reverse().find((m) => m.to === to);
+  if (!message) throw new Error(`no message to ${to}`);
+  const match = new RegExp(`${testOrigin}${path}[^\\s"<]*`).exec(message.text);
+  if (!match) throw new Error(`no ${path} link in “${message.subject}”`);
+  return match[0];
+}
+
+export function tokenFrom(link: string): string {
+  const url = new URL(link);
+  return url.searchParams.get('token') ?? url.pathname.split('/').pop()!;
 }

@@ -1,0 +1,159 @@
+import { randomUUID } from 'node:crypto';
+import { generateIdFromEntropySize } from 'lucia';
+import type { SignInRequest, SignUpRequest, User } from '../../shared/auth';
+import type { Clock } from '../clock';
+import { HttpError, badRequest } from '../http/errors';
+import type { Mailer } from '../mail/mailer';
+import { passwordResetMessage, verifyEmailMessage } from '../mail/templates';
+import { unauthenticated } from './errors';
+import type { AppLucia } from './lucia';
+import { hashPassword, isCommonPassword, verifyAgainstDummy, verifyPassword } from './password';
+import type { AuthRepository, UserRow } from './repository';
+import { createToken, hashToken } from './tokens';
+
+const minute = 60_000;
+export const resetTokenLifetimeMs = 30 * minute;
+export const verifyTokenLifetimeMs = 48 * 60 * minute;
+
+/** The same words whether the e-mail is unknown or the password wrong: no account enumeration. */
+const wrongCredentials = 'The e-mail or the password is not right.';
+const badLink = 'This link is not valid any more. Ask for a new one.';
+
+export type SignedIn = { user: User; setCookie: string };
+export type SessionAuth = { user: User; sessionId: string };
+
+export type AuthServiceDeps = {
+  repository: AuthRepository;
+  lucia: AppLucia;
+  mailer: Mailer;
+  clock: Clock;
+  publicUrl: () => string;
+};
+
+export function toUser(row: Pick<UserRow, 'id' | 'email' | 'displayName' | 'emailVerifiedAt'>): User {
+  return { id: row.id, email: row.email, displayName: row.displayName, emailVerified: row.emailVerifiedAt !== null };
+}
+
+export function createAuthService({ repository, lucia, mailer, clock, publicUrl }: AuthServiceDeps) {
+  const link = (path: string, token: string) => `${publicUrl().replace(/\/$/, '')}${path}?token=${token}`;
+
+  async function startSession(userId: string): Promise<string> {
+    const session = await lucia.createSession(userId, {});
+    return lucia.createSessionCookie(session.id).serialize();
+  }
+
+  async function sendVerification(user: UserRow) {
+    await repository.deleteTokens(user.id, 'verify-email');
+    const { token, hash } = await createToken();
+    await repository.insertToken({
+      tokenHash: hash,
+      userId: user.id,
+      purpose: 'verify-email',
+      expiresAt: new Date(clock.now().getTime() + verifyTokenLifetimeMs),
+      createdAt: clock.now(),
+    });
+    await mailer.send(verifyEmailMessage(user.email, user.displayName, link('/verify-email', token)));
+  }
+
+  return {
+    /** Creates the account and its personal workspace, signs it in and mails a confirmation link. */
+    async signUp(input: SignUpRequest & { email: string }): Promise<SignedIn> {
+      if (isCommonPassword(input.password)) {
+        throw badRequest('Choose another password.', { password: 'is one of the most used passwords; choose another' });
+      }
+      const now = clock.now();
+      const row = await repository.insertUserWithWorkspace(
+        {
+          id: generateIdFromEntropySize(10),
+          email: input.email,
+          displayName: input.displayName,
+          passwordHash: await hashPassword(input.password),
+          createdAt: now,
+        },
+        { id: randomUUID(), name: `${input.displayName}’s workspace` },
+      );
+      // Sign-up has to say this to be usable; it is rate limited per IP like sign-in.
+      if (!row) throw new HttpError(409, 'conflict', 'An account with this e-mail exists. Sign in instead.', { email: 'already has an account' });
+      await sendVerification(row);
+      return { user: toUser(row), setCookie: await startSession(row.id) };
+    },
+
+    async signIn(input: SignInRequest & { email: string }): Promise<SignedIn> {
+      const row = await repository.findUserByEmail(input.email);
+      const ok = row ? await verifyPassword(row.passwordHash, input.password) : await verifyAgainstDummy(input.password);
+      if (!row || !ok) throw unauthenticated(wrongCredentials);
+      return { user: toUser(row), setCookie: await startSession(row.id) };
+    },
+
+    async signOut(sessionId: string): Promise<string> {
+      await lucia.invalidateSession(sessionId);
+      return lucia.createBlankSessionCookie().serialize();
+    },
+
+    async signOutEverywhere(userId: string): Promise<string> {
+      await lucia.invalidateUserSessions(userId);
+      return lucia.createBlankSessionCookie().serialize();
+    },
+
+    /** Mails a reset link when the account exists; the caller answers the same either way. */
+    async requestPasswordReset(email: string): Promise<void> {
+      const row = await repository.findUserByEmail(email);
+      if (!row) return;
+      await repository.deleteTokens(row.id, 'reset-password');
+      const { token, hash } = await createToken();
+      await repository.insertToken({
+        tokenHash: hash,
+        userId: row.id,
+        purpose: 'reset-password',
+        expiresAt: new Date(clock.now().getTime() + resetTokenLifetimeMs),
+        createdAt: clock.now(),
+      });
+      await mailer.send(passwordResetMessage(row.email, row.displayName, link('/reset-password', token)));
+    },
+
+    /** Sets the new password, ends every other session (a thief's too) and signs this browser in. */
+    async resetPassword(token: string, password: string): Promise<SignedIn> {
+      if (isCommonPassword(password)) {
+        throw badRequest('Choose another password.', { password: 'is one of the most used passwords; choose another' });
+      }
+      const used = await repository.consumeToken(await hashToken(token), 'reset-password');
+      if (!used || used.expiresAt.getTime() <= clock.now().getTime()) throw badRequest(badLink, { token: 'has expired or was already used' });
+      await repository.setPasswordHash(used.userId, await hashPassword(password));
+      // Following the link proves the address is theirs.
+      await repository.markEmailVerified(used.userId, clock.now());
+      await lucia.invalidateUserSessions(used.userId);
+      const row = await repository.findUserById(used.userId);
+      if (!row) throw badRequest(badLink);
+      return { user: toUser(row), setCookie: await startSession(row.id) };
+    },
+
+    async verifyEmail(token: string): Promise<User> {
+      const used = await repository.consumeToken(await hashToken(token), 'verify-email');
+      if (!used || used.expiresAt.getTime() <= clock.now().getTime()) throw badRequest(badLink, { token: 'has expired or was already used' });
+      await repository.markEmailVerified(used.userId, clock.now());
+      const row = await repository.findUserById(used.userId);
+      if (!row) throw badRequest(badLink);
+      return toUser(row);
+    },
+
+    async resendVerification(userId: string): Promise<void> {
+      const row = await repository.findUserById(userId);
+      if (row && row.emailVerifiedAt === null) await sendVerification(row);
+    },
+
+    /**
+     * The signed-in user behind a session cookie header. `setCookie` renews a session used in the
+     * second half of its life (sliding expiry) or clears a cookie whose session is gone.
+     */
+    async readSession(cookieHeader: string | undefined): Promise<{ auth: SessionAuth | null; setCookie?: string }> {
+      const id = lucia.readSessionCookie(cookieHeader ?? '');
+      if (!id) return { auth: null };
+      const { session, user } = await lucia.validateSession(id);
+      if (!session) return { auth: null, setCookie: lucia.createBlankSessionCookie().serialize() };
+      const auth = { user: { id: user.id, email: user.email, displayName: user.displayName, emailVerified: user.emailVerified }, sessionId: session.id };
+      return session.fresh ? { auth, setCookie: lucia.createSessionCookie(session.id).serialize() } : { auth };
+    },
+  };
+}
+
+export type AuthService = ReturnType<typeof createAuthService>;

@@ -1,0 +1,120 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { browserAgent, createTestApp, testOrigin, type TestApp } from '../../support/test-app';
+
+const password = 'a long enough password';
+
+describe('Origin check on state-changing requests (CSRF)', () => {
+  let ctx: TestApp;
+  beforeAll(async () => {
+    ctx = await createTestApp();
+  });
+  afterAll(() => ctx.close());
+
+  it.each([
+    { origin: 'https://evil.example.net', why: 'another site' },
+    { origin: 'https://blazebook.example.com', why: 'our host over another scheme' },
+    { origin: 'http://blazebook.example.com:8443', why: 'our host on another port' },
+    { origin: 'null', why: 'an opaque origin' },
+    { origin: undefined, why: 'no Origin at all' },
+  ])('refuses a sign-up from $why with 403', async ({ origin }) => {
+    const req = request(ctx.app).post('/api/auth/sign-up');
+    if (origin) req.set('origin', origin);
+    const res = await req.send({ email: 'csrf@example.com', displayName: 'Csrf', password }).expect(403);
+    expect(res.body.error.code).toBe('forbidden');
+  });
+
+  it('refuses a forged request that carries a valid session cookie', async () => {
+    const agent = browserAgent(ctx.app);
+    await agent.post('/api/auth/sign-up').send({ email: 'victim@example.com', displayName: 'Victim', password }).expect(201);
+    await agent.post('/api/teams').set('origin', 'https://evil.example.net').send({ name: 'Forged' }).expect(403);
+    const { body } = await agent.get('/api/teams').expect(200);
+    expect(body.teams.map((t: { name: string }) => t.name)).not.toContain('Forged');
+  });
+
+  it('lets reads through without an Origin', async () => {
+    await request(ctx.app).get('/api/auth/session').expect(200);
+  });
+
+  it('exempts POST /api/solve, a pure computation that lab scripts call without an Origin', async () => {
+    const res = await request(ctx.app).post('/api/solve').send({});
+    expect(res.status).not.toBe(403);
+  });
+
+  it('accepts our own origin', async () => {
+    await request(ctx.app).post('/api/auth/sign-out').set('origin', testOrigin).expect(204);
+  });
+});
+
+describe('rate limits on sign-in and password reset', () => {
+  let ctx: TestApp;
+  beforeAll(async () => {
+    ctx = await createTestApp({ rateLimits: { signInPerEmail: 3, signInPerIp: 5, resetPerEmail: 2, resetPerIp: 10 } });
+    await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'target@example.com', displayName: 'Target', password }).expect(201);
+  });
+  afterAll(() => ctx.close());
+
+  it('answers the 4th failed sign-in for one e-mail with 429, even with the right password', async () => {
+    for (let i = 0; i < 3; i += 1) {
+      await browserAgent(ctx.app).post('/api/auth/sign-in').send({ email: 'target@example.com', password: `wrong guess ${i}` }).expect(401);
+    }
+    const res = await browserAgent(ctx.app).post('/api/auth/sign-in').send({ email: 'TARGET@example.com', password }).expect(429);
+    expect(res.body.error.code).toBe('rate_limited');
+  });
+
+  it('answers the 6th sign-in from one IP with 429 whatever the e-mail', async () => {
+    const perIp = await createTestApp({ rateLimits: { signInPerIp: 5, signInPerEmail: 100 } });
+    for (let i = 1; i <= 5; i += 1) {
+      await browserAgent(perIp.app).post('/api/auth/sign-in').send({ email: `other${i}@example.com`, password: 'whatever it is' }).expect(401);
+    }
+    await browserAgent(perIp.app).post('/api/auth/sign-in').send({ email: 'other6@example.com', password: 'whatever it is' }).expect(429);
+    await perIp.close();
+  });
+
+  it('answers the 3rd reset request for one e-mail with 429, known or not', async () => {
+    for (const email of ['ghost@example.com', 'target@example.com']) {
+      await browserAgent(ctx.app).post('/api/auth/password-reset').send({ email }).expect(202);
+      await browserAgent(ctx.app).post('/api/auth/password-reset').send({ email }).expect(202);
+      await browserAgent(ctx.app).post('/api/auth/password-reset').send({ email }).expect(429);
+    }
+  });
+});
+
+describe('sliding session expiry', () => {
+  let ctx: TestApp;
+  beforeAll(async () => {
+    ctx = await createTestApp();
+  });
+  afterAll(async () => {
+    vi.useRealTimers();
+    await ctx.close();
+  });
+
+  // Lucia reads the system clock for sessions, so these tests move it with fake timers.
+  it('renews a session used in the second half of its 30 days and ends an unused one', async () => {
+    const day = 24 * 60 * 60_000;
+    vi.useFakeTimers({ toFake: ['Date'], now: new Date('2026-03-14T09:00:00Z') });
+    const agent = browserAgent(ctx.app);
+    await agent.post('/api/auth/sign-up').send({ email: 'slide@example.com', displayName: 'Slide', password }).expect(201);
+
+    vi.setSystemTime(Date.now() + 10 * day);
+    const early = await agent.get('/api/auth/session').expect(200);
+    expect(early.body.user).not.toBeNull();
+    expect(early.headers['set-cookie']).toBeUndefined();
+
+    vi.setSystemTime(Date.now() + 10 * day);
+    const renewed = await agent.get('/api/auth/session').expect(200);
+    expect(renewed.body.user).not.toBeNull();
+    expect(String(renewed.headers['set-cookie'])).toMatch(/blazebook_session=\w+/);
+
+    // 29 days after the renewal the session is still alive: it slid forward.
+    vi.setSystemTime(Date.now() + 29 * day);
+    expect((await agent.get('/api/auth/session')).body.user).not.toBeNull();
+
+    vi.setSystemTime(Date.now() + 31 * day);
+    const gone = await agent.get('/api/auth/session').expect(200);
+    expect(gone.body.user).toBeNull();
+    expect(String(gone.headers['set-cookie'])).toMatch(/blazebook_session=;/);
+    vi.useRealTimers();
+  });
+});
