@@ -1,0 +1,32 @@
+import { useState } from 'react';
+import { Button } from '@/features/ui';
+import type { Design } from '@/shared/design';
+import { saveSvgFile } from '../save-svg';
+import { SKETCH_FILE_NAME, sketchSvgDocument } from '../svg-file';
+
+/** Builds the standalone SVG of `design`'s sketch and saves it (a download on the web). */
+export async function saveSketchSvg(design: Design, options: { settingNm?: number } = {}): Promise<boolean> {
+  return saveSvgFile(sketchSvgDocument(design, options), SKETCH_FILE_NAME);
+}
+
+type Props = { design: Design; settingNm?: number | null; testID?: string };
+
+export function SaveSketchButton({ design, settingNm, testID = 'save-sketch' }: Props) {
+  const [busy, setBusy] = useState(false);
+  const save = () => {
+    setBusy(true);
+    saveSketchSvg(design, { settingNm: settingNm ?? undefined })
+      .catch(() => false)
+      .finally(() => setBusy(false));
+  };
+  return (
+    <Button
+      label="Save sketch as SVG"
+      kind="secondary"
+      onPress={save}
+      disabled={busy}
+      accessibilityLabel={`Save the ray sketch as the file ${SKETCH_FILE_NAME}`}
+      testID={testID}
+    />
+  );
+}
