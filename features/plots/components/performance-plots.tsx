@@ -1,0 +1,181 @@
+import { memo, useMemo } from 'react';
+import { StyleSheet, View } from 'react-native';
+import type { Evaluation } from '@/features/solver';
+import { colors, space } from '@/features/ui';
+import { formatValue } from '../plot-paths';
+import { performanceSeries, type PerformanceSeries } from '../series';
+import { LinePlot, type PlotSeries } from './line-plot';
+
+export type PlotProps = {
+  evaluation: Evaluation;
+  width: number;
+  height?: number;
+  selectedNm?: number | null;
+  onSelectWavelength?: (wavelengthNm: number) => void;
+  followHover?: boolean;
+};
+
+export type PerformancePlotsProps = PlotProps & {
+  /** 1 or 2; by default two when `width` leaves each plot at least 320 px. */
+  columns?: 1 | 2;
+};
+
+/** Widest layout at which one column is kept: two plots need about 320 px each. */
+export const TWO_COLUMN_MIN_WIDTH = 660;
+const GAP = space.lg;
+
+const INK = {
+  dispersion: colors.primary,
+  bandpass: colors.primary,
+  power: colors.accent,
+  efficiency: colors.ok,
+  rotation: colors.primary,
+};
+
+function useSeries(evaluation: Evaluation): PerformanceSeries {
+  return useMemo(() => performanceSeries(evaluation.points), [evaluation]);
+}
+
+type Ready = Omit<PlotProps, 'evaluation'> & { data: PerformanceSeries };
+
+const Dispersion = memo(function Dispersion({ data, ...rest }: Ready) {
+  const series: PlotSeries = useMemo(
+    () => ({
+      label: 'Reciprocal dispersion',
+      unit: 'nm/mm',
+      values: data.reciprocalDispersionNmPerMm,
+      color: INK.dispersion,
+    }),
+    [data],
+  );
+  return (
+    <LinePlot
+      {...rest}
+      testID="plot-dispersion"
+      title="Reciprocal dispersion"
+      wavelengthsNm={data.wavelengthsNm}
+      series={series}
+      emptyMessage="No wavelength in the range is reachable"
+    />
+  );
+});
+
+const Bandpass = memo(function Bandpass({ data, ...rest }: Ready) {
+  const [series, second] = useMemo(
+    (): [PlotSeries, PlotSeries] => [
+      {
+        label: 'Bandpass',
+        unit: 'nm',
+        axisTitle: 'bandpass, nm',
+        values: data.bandpassNm,
+        color: INK.bandpass,
+      },
+      {
+        label: 'R',
+        unit: '',
+        axisTitle: 'resolving power R',
+        values: data.resolvingPower,
+        color: INK.power,
+        dash: '6 3',
+        tickFormat: '~s',
+        format: (v) => formatValue(v === null ? null : Math.round(v), 3),
+      },
+    ],
+    [data],
+  );
+  return (
+    <LinePlot
+      {...rest}
+      testID="plot-bandpass"
+      title="Bandpass and resolving power"
+      wavelengthsNm={data.wavelengthsNm}
+      series={series}
+      secondSeries={second}
+      emptyMessage="No wavelength in the range is reachable"
+    />
+  );
+});
+
+const Efficiency = memo(function Efficiency({ data, ...rest }: Ready) {
+  const series: PlotSeries = useMemo(
+    () => ({
+      label: 'Efficiency',
+      unit: '',
+      axisTitle: 'relative to peak',
+      values: data.blazeEfficiency,
+      color: INK.efficiency,
+      domain: [0, 1],
+      tickFormat: '.0%',
+      format: (v) => (v === null ? '—' : `${Math.round(v * 100)} %`),
+    }),
+    [data],
+  );
+  return (
+    <LinePlot
+      {...rest}
+      testID="plot-efficiency"
+      title="Blaze efficiency"
+      wavelengthsNm={data.wavelengthsNm}
+      series={series}
+      shaded={data.overlapIntervals}
+      shadedLabel="Other orders land here too (overlapping orders)"
+      emptyMessage="Give a blaze wavelength to see the efficiency"
+    />
+  );
+});
+
+const Rotation = memo(function Rotation({ data, ...rest }: Ready) {
+  const series: PlotSeries = useMemo(
+    () => ({
+      label: 'Rotation',
+      unit: '°',
+      axisTitle: 'rotation φ, °',
+      values: data.gratingRotationDeg,
+      color: INK.rotation,
+    }),
+    [data],
+  );
+  return (
+    <LinePlot
+      {...rest}
+      testID="plot-rotation"
+      title="Grating rotation (scan curve)"
+      wavelengthsNm={data.wavelengthsNm}
+      series={series}
+      emptyMessage="No wavelength in the range is reachable"
+    />
+  );
+});
+
+export function DispersionPlot({ evaluation, ...rest }: PlotProps) {
+  return <Dispersion {...rest} data={useSeries(evaluation)} />;
+}
+export function BandpassPlot({ evaluation, ...rest }: PlotProps) {
+  return <Bandpass {...rest} data={useSeries(evaluation)} />;
+}
+export function EfficiencyPlot({ evaluation, ...rest }: PlotProps) {
+  return <Efficiency {...rest} data={useSeries(evaluation)} />;
+}
+export function RotationPlot({ evaluation, ...rest }: PlotProps) {
+  return <Rotation {...rest} data={useSeries(evaluation)} />;
+}
+
+/** The four performance plots against wavelength: one per row, or two columns when wide. */
+export function PerformancePlots({ evaluation, width, columns, ...rest }: PerformancePlotsProps) {
+  const data = useSeries(evaluation);
+  const cols = columns ?? (width >= TWO_COLUMN_MIN_WIDTH ? 2 : 1);
+  const plotWidth = Math.floor(cols === 2 ? (width - GAP) / 2 : width);
+  const shared = { ...rest, data, width: plotWidth };
+  return (
+    <View style={[styles.grid, { width }]} testID="performance-plots">
+      <Dispersion {...shared} />
+      <Bandpass {...shared} />
+      <Efficiency {...shared} />
+      <Rotation {...shared} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: GAP, rowGap: space.xl },
+});

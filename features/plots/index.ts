@@ -1,0 +1,20 @@
+export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './components/line-plot';
+export {
+  BandpassPlot,
+  DispersionPlot,
+  EfficiencyPlot,
+  PerformancePlots,
+  RotationPlot,
+  TWO_COLUMN_MIN_WIDTH,
+  type PerformancePlotsProps,
+  type PlotProps,
+} from './components/performance-plots';
+export {
+  countRuns,
+  flaggedIntervals,
+  linePath,
+  nearestIndex,
+  valueExtent,
+  type Interval,
+} from './plot-paths';
+export { performanceSeries, type PerformanceSeries } from './series';

@@ -1,0 +1,107 @@
+/**
+ * The pure parts of a plot: the line's SVG path with gaps where a value is missing, the shaded
+ * wavelength intervals, value domains and the nearest sample to a pointer. No React.
+ */
+
+import type { ScaleLinear } from 'd3-scale';
+import { line } from 'd3-shape';
+
+export type Values = readonly (number | null)[];
+
+export interface Interval {
+  startNm: number;
+  endNm: number;
+}
+
+/**
+ * SVG path through `(xs[i], ys[i])`, broken (a new `M`) wherever `ys[i]` is null or not finite,
+ * so an unreachable wavelength shows as a gap rather than a line drawn across it.
+ */
+export function linePath(
+  xs: readonly number[],
+  ys: Values,
+  x: ScaleLinear<number, number>,
+  y: ScaleLinear<number, number>,
+): string {
+  const indices = xs.map((_, i) => i);
+  const path = line<number>()
+    .defined((i) => {
+      const v = ys[i];
+      return v !== null && v !== undefined && Number.isFinite(v);
+    })
+    .x((i) => round(x(xs[i] as number)))
+    .y((i) => round(y(ys[i] as number)));
+  return path(indices) ?? '';
+}
+
+/** Number of separate runs in a path: its `M` commands. */
+export function countRuns(d: string): number {
+  return d.match(/M/g)?.length ?? 0;
+}
+
+/**
+ * Runs of consecutive samples where `flagged(i)` holds, as wavelength intervals reaching half-way
+ * to the neighbouring samples (so a single flagged sample still shades a visible band).
+ */
+export function flaggedIntervals(xs: readonly number[], flagged: (i: number) => boolean): Interval[] {
+  const out: Interval[] = [];
+  const n = xs.length;
+  const edgeBefore = (i: number) =>
+    i === 0 ? (xs[0] as number) : ((xs[i - 1] as number) + (xs[i] as number)) / 2;
+  const edgeAfter = (i: number) =>
+    i === n - 1 ? (xs[n - 1] as number) : ((xs[i] as number) + (xs[i + 1] as number)) / 2;
+  let start = -1;
+  for (let i = 0; i <= n; i++) {
+    const on = i < n && flagged(i);
+    if (on && start < 0) start = i;
+    if (!on && start >= 0) {
+      out.push({ startNm: edgeBefore(start), endNm: edgeAfter(i - 1) });
+      start = -1;
+    }
+  }
+  return out;
+}
+
+/** `[min, max]` of the finite values, widened when flat; null when there are none. */
+export function valueExtent(values: Values): [number, number] | null {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of values) {
+    if (v === null || !Number.isFinite(v)) continue;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  if (lo > hi) return null;
+  if (hi - lo < Math.abs(hi) * 1e-9 || hi === lo) {
+    const pad = Math.abs(hi) > 0 ? Math.abs(hi) * 0.05 : 1;
+    return [lo - pad, hi + pad];
+  }
+  return [lo, hi];
+}
+
+/** Index of the sample nearest `x` in the ascending `xs` (binary search). */
+export function nearestIndex(xs: readonly number[], x: number): number {
+  let lo = 0;
+  let hi = xs.length - 1;
+  if (hi < 0) return -1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if ((xs[mid] as number) < x) lo = mid;
+    else hi = mid;
+  }
+  return Math.abs((xs[lo] as number) - x) <= Math.abs((xs[hi] as number) - x) ? lo : hi;
+}
+
+/** A read-out number with `significant` figures and no exponent for everyday magnitudes. */
+export function formatValue(value: number | null, significant = 4): string {
+  if (value === null || !Number.isFinite(value)) return '—';
+  if (value === 0) return '0';
+  const abs = Math.abs(value);
+  if (abs >= 1e5) return Math.round(value).toLocaleString('en-US');
+  if (abs >= 1e-3) return String(Number(value.toPrecision(significant)));
+  return value.toExponential(significant - 1);
+}
+
+function round(value: number): number {
+  return Math.round(value * 10) / 10;
+}
