@@ -401,18 +401,19 @@ export function sketchGeometry(design: Design, options: SketchOptions = {}): Ske
   };
   const bisectorSegment = { a: { x: 0, y: 0 }, b: scale(bisector, 0.3 * fMin) };
 
-  const slitLabelAway = scale(bisector, -1);
+  // Below the slit and outward, so the slit labels stay clear of the grating's between them.
+  const slitLabel = (side: number) => unit(add(scale(bisector, -1), scale(cameraSide, 0.9 * side)));
   const entranceSlit: SketchSlit = {
     centre: entranceCentre,
     along: perpendicular(toEntrance),
     widthMm: slits.entranceWidthUm / UM_PER_MM,
-    labelDirection: isLens ? unit(entranceShift) : slitLabelAway,
+    labelDirection: isLens ? unit(entranceShift) : slitLabel(-1),
   };
   const exitSlit: SketchSlit = {
     centre: exitCentre,
     along: exitAlong,
     widthMm: slits.exitWidthUm / UM_PER_MM,
-    labelDirection: isLens ? unit(exitShift) : slitLabelAway,
+    labelDirection: isLens ? unit(exitShift) : slitLabel(1),
   };
 
   const arcs: AngleArc[] = [];
