@@ -2,7 +2,8 @@ import request from 'supertest';
 import type { DatabaseHandle } from '../../db/client';
 import { createApp, type AppDeps } from '../../server/app';
 import { createFixedClock } from '../../server/clock';
-import { createMemoryMailer } from '../../server/mail/mailer';
+import { createMemoryMailer, createOutboxMailer } from '../../server/mail/mailer';
+import { createOutboxRepository } from '../../server/mail/outbox-repository';
 import { openTestDatabase } from './test-db';
 
 /** The origin the test app believes it is served from; state-changing test requests carry it. */
@@ -10,7 +11,9 @@ export const testOrigin = 'http://blazebook.example.com';
 
 type TestAppOptions = {
   log?: (error: unknown) => void;
-} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'mailer'>>;
+  /** Send through the outbox table, as `npm start` does without SMTP_URL, instead of memory. */
+  outbox?: boolean;
+} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https'>>;
 
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
 export async function createTestApp(options: TestAppOptions = {}) {
@@ -21,7 +24,7 @@ export async function createTestApp(options: TestAppOptions = {}) {
   const app = createApp({
     database,
     clock,
-    mailer: options.mailer ?? mailer,
+    mailer: options.outbox ? createOutboxMailer(createOutboxRepository(database.db, clock)) : mailer,
     version: 'test',
     nodeEnv: options.nodeEnv ?? 'test',
     https: options.https,
@@ -40,6 +43,8 @@ export function browserAgent(app: TestApp['app']) {
   return request.agent(app).set('origin', testOrigin);
 }
 
+export const testPassword = 'long enough password';
+
 let counter = 0;
 
 /** Signs up a fresh account and returns a signed-in agent; names and e-mails are unique per call. */
@@ -49,14 +54,14 @@ export async function signUp(app: TestApp['app'], name = 'Test Person', email?: 
   const address = email ?? `person${counter}-${Date.now()}@example.com`;
   const res = await agent
     .post('/api/auth/sign-up')
-    .send({ email: address, displayName: `${name} ${counter}`, password: 'long enough password' });
+    .send({ email: address, displayName: `${name} ${counter}`, password: testPassword });
   if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return { agent, user: res.body.user as { id: string; email: string; displayName: string }, password: 'long enough password' };
+  return { agent, user: res.body.user as { id: string; email: string; displayName: string }, password: testPassword };
 }
 
 /** The last link of the given path in the latest message sent to `to`. */
 export function linkIn(mailer: ReturnType<typeof createMemoryMailer>, to: string, path: string): string {
-  const message = [...mailer.sent].reverse().find((m) => m.to === to);
+  const message = [...mailer.sent].reverse().find((m) => m.to === to.toLowerCase());
   if (!message) throw new Error(`no message to ${to}`);
   const match = new RegExp(`${testOrigin}${path}[^\\s"<]*`).exec(message.text);
   if (!match) throw new Error(`no ${path} link in “${message.subject}”`);

@@ -1,0 +1,202 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { exampleDesign } from '../../shared/design';
+import type { Role } from '../../shared/teams';
+import { listRoutes } from '../support/routes';
+import { browserAgent, createTestApp, linkIn, signUp, testOrigin, testPassword, tokenFrom, type TestApp } from '../support/test-app';
+
+/**
+ * Who may call what: every API route × every kind of caller → the status they get. The test walks
+ * the routes the app really mounts, so a new route that is not in this table fails the build.
+ */
+const actors = ['owner', 'reviewer', 'viewer', 'outsider', 'anonymous'] as const;
+type Actor = (typeof actors)[number];
+type Statuses = Record<Actor, number>;
+
+type Fixture = {
+  ctx: TestApp;
+  teamId: string;
+  users: Record<Exclude<Actor, 'anonymous'>, { id: string; email: string }>;
+  /** A signed-in agent with a fresh session, so sign-out cases do not end the next case's session. */
+  agent(actor: Actor): Promise<ReturnType<typeof browserAgent>>;
+  /** A new team A-like team owned by `owner` with `reviewer` and `viewer` in it. */
+  freshTeam(): Promise<string>;
+  /** Adds a new person to the team with a role and returns their id. */
+  extraMember(teamId: string, role: Role): Promise<string>;
+  invite(teamId: string, email: string, role?: Role): Promise<{ id: string; token: string }>;
+};
+
+type Case = { params?: Record<string, string>; body?: unknown };
+type Row = { expect: Statuses; prepare?: (fx: Fixture, actor: Actor) => Promise<Case> };
+
+const everyone = (status: number): Statuses => ({ owner: status, reviewer: status, viewer: status, outsider: status, anonymous: status });
+const signedIn = (status: number): Statuses => ({ ...everyone(status), anonymous: 401 });
+const members = (status: number): Statuses => ({ owner: status, reviewer: status, viewer: status, outsider: 404, anonymous: 401 });
+const ownersOnly = (status: number): Statuses => ({ owner: status, reviewer: 403, viewer: 403, outsider: 404, anonymous: 401 });
+
+let unique = 0;
+const freshEmail = () => `matrix-${(unique += 1)}@example.com`;
+const password = testPassword;
+
+const matrix: Record<string, Row> = {
+  'GET /api/health': { expect: everyone(200) },
+  'POST /api/solve': { expect: everyone(200), prepare: async () => ({ body: { design: exampleDesign, at: [500] } }) },
+  'GET /api/dev/outbox': { expect: everyone(200) },
+
+  'GET /api/auth/session': { expect: everyone(200) },
+  'POST /api/auth/sign-up': {
+    expect: everyone(201),
+    prepare: async () => ({ body: { email: freshEmail(), displayName: 'Matrix', password } }),
+  },
+  'POST /api/auth/sign-in': {
+    expect: everyone(200),
+    prepare: async (fx) => ({ body: { email: fx.users.viewer.email, password } }),
+  },
+  'POST /api/auth/sign-out': { expect: everyone(204) },
+  'POST /api/auth/sign-out-everywhere': { expect: signedIn(204) },
+  'POST /api/auth/password-reset': { expect: everyone(202), prepare: async (fx) => ({ body: { email: fx.users.viewer.email } }) },
+  // The token is the credential: a made-up one is refused for everybody alike.
+  'POST /api/auth/password-reset/confirm': {
+    expect: everyone(400),
+    prepare: async () => ({ body: { token: 'x'.repeat(40), password: 'another password 1' } }),
+  },
+  'POST /api/auth/verify-email': { expect: everyone(400), prepare: async () => ({ body: { token: 'x'.repeat(40) } }) },
+  'POST /api/auth/verify-email/resend': { expect: signedIn(202) },
+
+  'GET /api/teams': { expect: signedIn(200) },
+  'POST /api/teams': { expect: signedIn(201), prepare: async () => ({ body: { name: 'Matrix team' } }) },
+  'GET /api/teams/:teamId': { expect: members(200) },
+  'PATCH /api/teams/:teamId': { expect: ownersOnly(200), prepare: async () => ({ body: { name: 'Renamed lab' } }) },
+  'DELETE /api/teams/:teamId': { expect: ownersOnly(204), prepare: async (fx) => ({ params: { teamId: await fx.freshTeam() } }) },
+
+  'GET /api/teams/:teamId/members': { expect: members(200) },
+  'PATCH /api/teams/:teamId/members/:userId': {
+    expect: ownersOnly(200),
+    prepare: async (fx) => ({ params: { userId: fx.users.viewer.id }, body: { role: 'viewer' } }),
+  },
+  'DELETE /api/teams/:teamId/members/:userId': {
+    expect: ownersOnly(204),
+    prepare: async (fx) => ({ params: { userId: await fx.extraMember(fx.teamId, 'viewer') } }),
+  },
+
+  'GET /api/teams/:teamId/invitations': { expect: ownersOnly(200) },
+  'POST /api/teams/:teamId/invitations': {
+    expect: ownersOnly(201),
+    prepare: async () => ({ body: { email: freshEmail(), role: 'reviewer' } }),
+  },
+  'DELETE /api/teams/:teamId/invitations/:invitationId': {
+    expect: ownersOnly(204),
+    prepare: async (fx) => ({ params: { invitationId: (await fx.invite(fx.teamId, freshEmail())).id } }),
+  },
+
+  // Anyone holding the link may read what it offers; only its addressee may accept it.
+  'GET /api/invitations/:token': {
+    expect: everyone(200),
+    prepare: async (fx) => ({ params: { token: (await fx.invite(fx.teamId, freshEmail())).token } }),
+  },
+  'POST /api/invitations/:token/accept': {
+    // Members hold a link addressed to somebody else; the outsider holds one addressed to them.
+    expect: { owner: 403, reviewer: 403, viewer: 403, outsider: 200, anonymous: 401 },
+    prepare: async (fx, actor) => {
+      const email = actor === 'outsider' ? fx.users.outsider.email : freshEmail();
+      const team = actor === 'outsider' ? await fx.freshTeam() : fx.teamId;
+      return { params: { token: (await fx.invite(team, email)).token } };
+    },
+  },
+};
+
+describe('access matrix: every API route × every kind of caller', () => {
+  let fx: Fixture;
+
+  beforeAll(async () => {
+    const ctx = await createTestApp({ rateLimits: { signInPerIp: 10_000, signInPerEmail: 10_000, signUpPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000 } });
+    const owner = await signUp(ctx.app, 'Owner', 'matrix-owner@example.com');
+    const made = await owner.agent.post('/api/teams').send({ name: 'Team A' }).expect(201);
+    const teamId: string = made.body.team.id;
+
+    // The owner's own sessions end in the sign-out-everywhere case: sign in afresh each time.
+    const asOwner = async () => {
+      const agent = browserAgent(ctx.app);
+      await agent.post('/api/auth/sign-in').send({ email: owner.user.email, password }).expect(200);
+      return agent;
+    };
+    const invite = async (team: string, email: string, role: Role = 'viewer') => {
+      const res = await (await asOwner()).post(`/api/teams/${team}/invitations`).send({ email, role }).expect(201);
+      return { id: res.body.invitation.id as string, token: tokenFrom(linkIn(ctx.mailer, email, '/invitations/')) };
+    };
+    const join = async (team: string, role: Role, name: string, email = freshEmail()) => {
+      const person = await signUp(ctx.app, name, email);
+      const { token } = await invite(team, email, role);
+      await person.agent.post(`/api/invitations/${token}/accept`).expect(200);
+      return person.user;
+    };
+    const reviewer = await join(teamId, 'reviewer', 'Reviewer', 'matrix-reviewer@example.com');
+    const viewer = await join(teamId, 'viewer', 'Viewer', 'matrix-viewer@example.com');
+    const outsider = (await signUp(ctx.app, 'Outsider', 'matrix-outsider@example.com')).user;
+    const users = { owner: owner.user, reviewer, viewer, outsider };
+
+    fx = {
+      ctx,
+      teamId,
+      users,
+      invite,
+      async agent(actor) {
+        const agent = browserAgent(ctx.app);
+        if (actor !== 'anonymous') await agent.post('/api/auth/sign-in').send({ email: users[actor].email, password }).expect(200);
+        return agent;
+      },
+      async freshTeam() {
+        const res = await (await asOwner()).post('/api/teams').send({ name: 'Fresh team' }).expect(201);
+        const id: string = res.body.team.id;
+        for (const role of ['reviewer', 'viewer'] as const) {
+          const { token } = await invite(id, users[role].email, role);
+          const agent = await fx.agent(role);
+          await agent.post(`/api/invitations/${token}/accept`).expect(200);
+        }
+        return id;
+      },
+      async extraMember(team, role) {
+        return (await join(team, role, 'Extra')).id;
+      },
+    };
+  }, 120_000);
+  afterAll(() => fx?.ctx.close());
+
+  it('lists every mounted API route, and nothing that is not mounted', () => {
+    const mounted = listRoutes(fx.ctx.app).filter((route) => route.includes(' /api/'));
+    expect(mounted).toEqual(Object.keys(matrix).sort());
+  });
+
+  const cases = Object.entries(matrix).flatMap(([route, row]) =>
+    actors.map((actor) => ({ route, actor, status: row.expect[actor], row })),
+  );
+
+  it.each(cases)('$route as $actor → $status', async ({ route, actor, status, row }) => {
+    const [method, template] = route.split(' ') as [string, string];
+    const prepared = row.prepare ? await row.prepare(fx, actor) : {};
+    const params: Record<string, string> = { teamId: fx.teamId, ...prepared.params };
+    const path = template.replace(/:(\w+)/g, (_, name: string) => {
+      const value = params[name];
+      if (!value) throw new Error(`no value for :${name} in ${route}`);
+      return encodeURIComponent(value);
+    });
+    const agent = await fx.agent(actor);
+    const call = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](path);
+    const res = await (prepared.body === undefined ? call : call.send(prepared.body as object));
+    expect({ status: res.status, error: res.status >= 400 ? res.body?.error?.message : undefined }).toMatchObject({ status });
+  });
+
+  it('answers an outsider exactly as it answers a team id that does not exist', async () => {
+    const outsider = await fx.agent('outsider');
+    const real = await outsider.get(`/api/teams/${fx.teamId}/members`).expect(404);
+    const made_up = await outsider.get('/api/teams/no-such-team/members').expect(404);
+    expect(real.body).toEqual(made_up.body);
+  });
+
+  it('has no dev outbox in production', async () => {
+    const prod = await createTestApp({ nodeEnv: 'production' });
+    expect(listRoutes(prod.app)).not.toContain('GET /api/dev/outbox');
+    await request(prod.app).get('/api/dev/outbox').set('origin', testOrigin).expect(404);
+    await prod.close();
+  });
+});
