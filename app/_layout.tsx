@@ -4,6 +4,7 @@ import { Stack } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { createQueryClient } from '@/features/api';
+import { AccountMenu } from '@/features/auth';
 import { ThemeProvider, Wordmark, colors, fontAssets, fonts } from '@/features/ui';
 
 export default function RootLayout() {
@@ -22,9 +23,12 @@ export default function RootLayout() {
             headerTitleStyle: { fontFamily: fonts.semibold },
             contentStyle: { backgroundColor: colors.paper },
             headerTitle: () => <Wordmark />,
+            headerRight: () => <AccountMenu />,
           }}
         >
           <Stack.Screen name="index" options={{ title: 'Blazebook' }} />
+          <Stack.Screen name="(auth)" options={{ title: 'Account' }} />
+          <Stack.Screen name="(workspace)" options={{ title: 'Teams' }} />
           <Stack.Screen name="+not-found" options={{ title: 'Not found' }} />
         </Stack>
       </ThemeProvider>

@@ -1,0 +1,3 @@
+import { ForgotPasswordScreen } from '@/features/auth';
+
+export default ForgotPasswordScreen;

@@ -1,0 +1,3 @@
+import { InvitationScreen } from '@/features/teams';
+
+export default InvitationScreen;

@@ -1,0 +1,3 @@
+import { OutboxScreen } from '@/features/outbox';
+
+export default OutboxScreen;

@@ -1,0 +1,3 @@
+import { ResetPasswordScreen } from '@/features/auth';
+
+export default ResetPasswordScreen;

@@ -1,0 +1,3 @@
+import { SignInScreen } from '@/features/auth';
+
+export default SignInScreen;

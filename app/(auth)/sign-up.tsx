@@ -1,0 +1,3 @@
+import { SignUpScreen } from '@/features/auth';
+
+export default SignUpScreen;

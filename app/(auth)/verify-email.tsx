@@ -1,0 +1,3 @@
+import { VerifyEmailScreen } from '@/features/auth';
+
+export default VerifyEmailScreen;

@@ -1,0 +1,3 @@
+import { MembersScreen } from '@/features/teams';
+
+export default MembersScreen;

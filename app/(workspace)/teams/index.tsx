@@ -1,0 +1,3 @@
+import { TeamsScreen } from '@/features/teams';
+
+export default TeamsScreen;

@@ -1,0 +1,13 @@
+export { AccountMenu } from './components/account-menu';
+export { ForgotPasswordScreen } from './components/forgot-password-screen';
+export { RequireSignIn } from './components/require-sign-in';
+export { ResetPasswordScreen } from './components/reset-password-screen';
+export { SignInScreen } from './components/sign-in-screen';
+export { SignUpScreen } from './components/sign-up-screen';
+export { VerifyEmailScreen } from './components/verify-email-screen';
+export { AuthCard, FormError } from './components/auth-card';
+export { FormField } from './components/form-field';
+export { TextLink } from './components/text-link';
+export { useApiForm } from './hooks/use-api-form';
+export { safeNextPath } from './next-path';
+export { authKeys, useSessionQuery, useSignOutMutation } from './queries';

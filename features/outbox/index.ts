@@ -1,0 +1,1 @@
+export { OutboxScreen } from './components/outbox-screen';

@@ -1,0 +1,82 @@
+import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { roleLabels } from '@/shared/teams';
+import { AuthCard, FormError, TextLink, useSessionQuery, useSignOutMutation } from '@/features/auth';
+import { Button, Text, space } from '@/features/ui';
+import { useAcceptInvitationMutation, useInvitationPreviewQuery } from '../queries';
+
+/** The page an invitation e-mail links to: accept it signed in, or sign in / sign up first. */
+export function InvitationScreen() {
+  const { token = '' } = useLocalSearchParams<{ token: string }>();
+  const router = useRouter();
+  const preview = useInvitationPreviewQuery(token);
+  const session = useSessionQuery();
+  const accept = useAcceptInvitationMutation(token);
+  const signOut = useSignOutMutation();
+  const here = `/invitations/${token}`;
+
+  if (preview.isPending || session.isPending) {
+    return (
+      <AuthCard title="Invitation">
+        <Text tone="muted">Opening the invitation…</Text>
+      </AuthCard>
+    );
+  }
+  if (preview.isError) {
+    return (
+      <AuthCard title="Invitation" footer={<TextLink href={'/' as Href} label="Go to Blazebook" />}>
+        <Text testID="invitation-invalid">{preview.error.message}</Text>
+      </AuthCard>
+    );
+  }
+
+  const invite = preview.data;
+  const user = session.data?.user ?? null;
+  const forYou = user?.email === invite.email;
+  const query = `next=${encodeURIComponent(here)}&email=${encodeURIComponent(invite.email)}`;
+
+  const onAccept = async () => {
+    const { team } = await accept.mutateAsync();
+    router.replace(`/teams/${team.id}/members` as Href);
+  };
+
+  return (
+    <AuthCard
+      title={`Join ${invite.teamName}`}
+      lead={`${invite.invitedBy ?? 'An owner'} invited ${invite.email} to this team as ${roleLabels[invite.role].toLowerCase()}.`}
+    >
+      {user && forYou ? (
+        <>
+          <FormError message={accept.isError ? accept.error.message : null} />
+          <Button label={accept.isPending ? 'Joining…' : 'Accept the invitation'} onPress={() => void onAccept().catch(() => undefined)} disabled={accept.isPending} testID="accept-invitation" />
+        </>
+      ) : user ? (
+        <>
+          <Text>
+            You are signed in as {user.email}. This invitation is for {invite.email}: sign out, then sign in with that address.
+          </Text>
+          <View style={styles.row}>
+            <Button kind="secondary" label="Sign out" onPress={() => void signOut.mutateAsync(false)} />
+          </View>
+        </>
+      ) : invite.accountExists ? (
+        <View style={styles.row}>
+          <Button label="Sign in to accept" onPress={() => router.push(`/sign-in?${query}` as Href)} testID="invitation-sign-in" />
+        </View>
+      ) : (
+        <>
+          <Text>Create your account with {invite.email} to join. It takes a minute.</Text>
+          <View style={[styles.row, styles.wrap]}>
+            <Button label="Create an account" onPress={() => router.push(`/sign-up?${query}` as Href)} testID="invitation-sign-up" />
+            <Button kind="quiet" label="I already have one" onPress={() => router.push(`/sign-in?${query}` as Href)} />
+          </View>
+        </>
+      )}
+    </AuthCard>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', gap: space.sm },
+  wrap: { flexWrap: 'wrap' },
+});
