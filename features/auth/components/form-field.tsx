@@ -18,7 +18,6 @@ export function FormField<T extends FieldValues>({ control, name, label, hint, .
       render={({ field, fieldState }) => (
         <TextField
           {...input}
-          ref={field.ref}
           label={label}
           hint={hint}
           value={(field.value as string | undefined) ?? ''}
