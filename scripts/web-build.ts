@@ -3,7 +3,16 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
 /** Everything the exported web bundle is made from. */
-const sourceEntries = ['app', 'features', 'shared', 'assets', 'app.json', 'package.json', 'package-lock.json', 'tsconfig.json'];
+const sourceEntries = [
+  'app',
+  'features',
+  'shared',
+  'assets',
+  'app.json',
+  'package.json',
+  'package-lock.json',
+  'tsconfig.json',
+];
 const skip = new Set(['node_modules', '.git', 'dist', 'data']);
 
 function newestMtimeMs(target: string): number {
@@ -27,6 +36,14 @@ export function staleReason(rootDir: string): string | null {
   return sourcesAt > builtAt ? 'sources changed since the last web build' : null;
 }
 
+/** Tree shaking is opt-in in Expo 56; with it the export drops unused mathjs, d3 and zod code. */
+export const webExportEnv = {
+  CI: '1',
+  EXPO_NO_TELEMETRY: '1',
+  EXPO_UNSTABLE_TREE_SHAKING: '1',
+  EXPO_UNSTABLE_METRO_OPTIMIZE_GRAPH: '1',
+};
+
 /** Exports the web app with Expo when it is missing or older than its sources. */
 export function ensureWebBuild(rootDir: string, log: (line: string) => void = console.log): void {
   const reason = staleReason(rootDir);
@@ -36,7 +53,7 @@ export function ensureWebBuild(rootDir: string, log: (line: string) => void = co
   const result = spawnSync(path.join(rootDir, 'node_modules', '.bin', 'expo'), ['export', '-p', 'web'], {
     cwd: rootDir,
     stdio: ['ignore', 'inherit', 'inherit'],
-    env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1' },
+    env: { ...process.env, ...webExportEnv },
   });
   if (result.status !== 0) throw new Error(`expo export failed with exit code ${result.status}`);
   log(`Web app exported in ${((Date.now() - started) / 1000).toFixed(1)} s.`);

@@ -1,15 +1,19 @@
 /**
  * Reading what people type into a field ("1200/mm", "0.5 m", "25 µm", "0.35 deg") into the
  * field's own unit. Uses a units-only mathjs instance (the full library would quadruple the web
- * bundle), created on first use so importing this module has no side effects.
+ * bundle), loaded on first use — a separate chunk on the web — so importing this module has no
+ * side effects and plain numbers never wait for it.
  */
 
-import { create, unitDependencies, type FactoryFunctionMap, type MathJsInstance } from 'mathjs';
+import type { UnitParser } from './mathjs-units';
 
 /** Units the design's fields are stored in. */
 export type FieldUnit = 'nm' | 'um' | 'mm' | 'deg' | 'mm^-1';
 
-export type ParseResult = { ok: true; value: number } | { ok: false; message: string };
+export type ParseResult =
+  | { ok: true; value: number }
+  /** `pending`: the text has units and the unit parser is still loading; ask again once it is. */
+  | { ok: false; message: string; pending?: true };
 
 interface FieldUnitInfo {
   /** How mathjs spells the unit. */
@@ -24,14 +28,29 @@ const FIELD_UNITS: Record<FieldUnit, FieldUnitInfo> = {
   um: { mathjs: 'um', kind: 'a length', expected: 'a length such as 25 µm' },
   mm: { mathjs: 'mm', kind: 'a length', expected: 'a length such as 500 mm' },
   deg: { mathjs: 'deg', kind: 'an angle', expected: 'an angle such as 0.35 deg' },
-  'mm^-1': { mathjs: 'mm^-1', kind: 'a groove density (per length)', expected: 'a groove density such as 1200 / mm' },
+  'mm^-1': {
+    mathjs: 'mm^-1',
+    kind: 'a groove density (per length)',
+    expected: 'a groove density such as 1200 / mm',
+  },
 };
 
-let units: Pick<MathJsInstance, 'unit'> | null = null;
-function mathUnits(): Pick<MathJsInstance, 'unit'> {
-  // mathjs types every *Dependencies export as possibly undefined; it is always defined.
-  units ??= create({ unitDependencies } as FactoryFunctionMap) as Pick<MathJsInstance, 'unit'>;
-  return units;
+let units: UnitParser | null = null;
+let loading: Promise<void> | null = null;
+
+/**
+ * Loads mathjs's unit parser. Plain numbers are read without it; text with units waits for it
+ * (`parseQuantity` answers `pending` until then). Safe to call any number of times.
+ */
+export function loadUnitParser(): Promise<void> {
+  loading ??= import('./mathjs-units').then((module) => {
+    units = module.createUnitParser();
+  });
+  return loading;
+}
+
+export function unitParserReady(): boolean {
+  return units !== null;
 }
 
 const PLAIN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
@@ -66,7 +85,11 @@ export function parseQuantity(text: string, unit: FieldUnit): ParseResult {
   }
   let parsed;
   try {
-    parsed = mathUnits().unit(source);
+    if (units === null) {
+      void loadUnitParser();
+      return { ok: false, message: 'reading the units…', pending: true };
+    }
+    parsed = units.unit(source);
   } catch {
     return { ok: false, message: `could not read "${text.trim()}"; expected ${info.expected}` };
   }

@@ -1,7 +1,9 @@
-import { describe, expect, it } from 'vitest';
-import { parseQuantity, type FieldUnit } from '@/features/solver';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { loadUnitParser, parseQuantity, type FieldUnit } from '@/features/solver';
 
 describe('parseQuantity', () => {
+  beforeAll(loadUnitParser);
+
   it.each([
     { text: '1200/mm', unit: 'mm^-1', value: 1200 },
     { text: '1200 / mm', unit: 'mm^-1', value: 1200 },
