@@ -27,6 +27,7 @@ export default function RootLayout() {
           }}
         >
           <Stack.Screen name="index" options={{ title: 'Blazebook' }} />
+          <Stack.Screen name="workbench" options={{ title: 'Workbench' }} />
           <Stack.Screen name="(auth)" options={{ title: 'Account' }} />
           <Stack.Screen name="(workspace)" options={{ title: 'Teams' }} />
           <Stack.Screen name="+not-found" options={{ title: 'Not found' }} />

@@ -7,5 +7,5 @@ export { TextField } from './components/text-field';
 export { Wordmark } from './components/wordmark';
 export { fontAssets } from './fonts';
 export { ThemeProvider, useLayout, useTheme } from './theme-context';
-export { breakpoints, colors, fonts, layoutForWidth, maxContentWidth, radius, space, type } from './theme';
+export { breakpoints, colors, fonts, layoutForWidth, maxContentWidth, minTouch, radius, space, type } from './theme';
 export type { Layout, Theme } from './theme';

@@ -1,5 +1,6 @@
+import { useRouter } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
-import { Card, Heading, Screen, Text, colors, space, useLayout } from '@/features/ui';
+import { Button, Card, Heading, Screen, Text, colors, space, useLayout } from '@/features/ui';
 import { useHealthQuery } from '@/features/health';
 
 const steps = [
@@ -43,6 +44,7 @@ function ServerStatus() {
 /** First screen: what Blazebook is for, and whether its server is reachable. */
 export function LandingScreen() {
   const layout = useLayout();
+  const router = useRouter();
   return (
     <Screen>
       <View style={styles.hero}>
@@ -58,6 +60,9 @@ export function LandingScreen() {
           team.
         </Text>
         <ServerStatus />
+        <View style={styles.actions}>
+          <Button label="Open the workbench" onPress={() => router.push('/workbench')} testID="open-workbench" />
+        </View>
       </View>
       <View style={[styles.grid, layout !== 'phone' && styles.gridWide]}>
         {steps.map((step, index) => (
@@ -84,6 +89,7 @@ export function LandingScreen() {
 const styles = StyleSheet.create({
   hero: { gap: space.md, paddingVertical: space.xl },
   kicker: { letterSpacing: 1.5 },
+  actions: { flexDirection: 'row', paddingTop: space.sm },
   status: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   dot: { width: 10, height: 10, borderRadius: 5 },
   grid: { gap: space.lg },

@@ -1,0 +1,3 @@
+import { WorkbenchScreen } from '@/features/workbench';
+
+export default WorkbenchScreen;

@@ -1,0 +1,108 @@
+import { memo, useState } from 'react';
+import { ScrollView, StyleSheet, Text, View } from 'react-native';
+import type { WavelengthPoint } from '@/features/solver';
+import { Button, Card, colors, fonts, space, type } from '@/features/ui';
+import { copyText } from '../copy-text';
+import { rangeTableCsv } from '../csv';
+import { fmt, percent } from '../format';
+
+const columns = [
+  { title: 'λ\nnm', width: 64, cell: (p: WavelengthPoint) => fmt(p.wavelengthNm, 5) },
+  { title: 'rotation\n°', width: 72, cell: (p: WavelengthPoint) => fmt(p.gratingRotationDeg) },
+  { title: 'RLD\nnm/mm', width: 68, cell: (p: WavelengthPoint) => fmt(p.reciprocalDispersionNmPerMm, 3) },
+  { title: 'bandpass\nnm', width: 76, cell: (p: WavelengthPoint) => fmt(p.bandpassNm, 3) },
+  { title: 'R\nλ/Δλ', width: 68, cell: (p: WavelengthPoint) => fmt(p.resolvingPower, 3) },
+  { title: 'blaze\neff.', width: 56, cell: (p: WavelengthPoint) => percent(p.blazeEfficiency) },
+  {
+    title: 'other\norders',
+    width: 96,
+    cell: (p: WavelengthPoint) =>
+      p.overlaps.length === 0
+        ? '—'
+        : p.overlaps.map((o) => `${o.order}: ${fmt(o.wavelengthNm, 3)}`).join(', '),
+  },
+] as const;
+
+/** The design across its range, a row per step, copyable as CSV for a spreadsheet. */
+export const RangeTable = memo(function RangeTable({
+  points,
+  dimmed,
+}: {
+  points: readonly WavelengthPoint[];
+  dimmed: boolean;
+}) {
+  const [copied, setCopied] = useState<null | 'ok' | 'failed'>(null);
+  return (
+    <Card title="Across the range" testID="range-table">
+      <ScrollView horizontal style={dimmed ? styles.dimmed : undefined}>
+        <View role="table" aria-label="Figures across the wavelength range">
+          <View role="row" style={[styles.row, styles.headRow]}>
+            {columns.map((c) => (
+              <Text key={c.title} role="columnheader" style={[styles.head, { width: c.width }]}>
+                {c.title}
+              </Text>
+            ))}
+          </View>
+          {points.map((p) => (
+            <View key={p.wavelengthNm} role="row" style={[styles.row, !p.reachable && styles.unreachable]}>
+              {p.reachable ? (
+                columns.map((c) => (
+                  <Text key={c.title} role="cell" style={[styles.cell, { width: c.width }]}>
+                    {c.cell(p)}
+                  </Text>
+                ))
+              ) : (
+                <>
+                  <Text role="cell" style={[styles.cell, { width: columns[0].width }]}>
+                    {columns[0].cell(p)}
+                  </Text>
+                  <Text role="cell" style={[styles.cell, styles.reason]}>
+                    not reachable
+                  </Text>
+                </>
+              )}
+            </View>
+          ))}
+        </View>
+      </ScrollView>
+      <View style={styles.actions}>
+        <Button
+          kind="secondary"
+          label="Copy as CSV"
+          testID="copy-csv"
+          onPress={async () => setCopied((await copyText(rangeTableCsv(points))) ? 'ok' : 'failed')}
+        />
+        {copied ? (
+          <Text role="status" style={styles.copied}>
+            {copied === 'ok' ? 'Copied — paste into a spreadsheet.' : 'Could not reach the clipboard.'}
+          </Text>
+        ) : null}
+      </View>
+    </Card>
+  );
+});
+
+const styles = StyleSheet.create({
+  dimmed: { opacity: 0.45 },
+  row: { flexDirection: 'row', borderBottomWidth: StyleSheet.hairlineWidth, borderBottomColor: colors.line },
+  headRow: { borderBottomWidth: 1, borderBottomColor: colors.inkFaint },
+  head: {
+    ...type.caption,
+    fontFamily: fonts.semibold,
+    color: colors.inkMuted,
+    paddingVertical: space.xs,
+    paddingRight: space.sm,
+  },
+  cell: {
+    ...type.caption,
+    fontFamily: fonts.mono,
+    color: colors.ink,
+    paddingVertical: space.xs,
+    paddingRight: space.sm,
+    fontVariant: ['tabular-nums'],
+  },
+  unreachable: { backgroundColor: colors.dangerSoft },
+  reason: { color: colors.danger, fontFamily: fonts.semibold },
+  actions: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.md },
+  copied: { ...type.small, color: colors.ok, fontFamily: fonts.regular },
+});

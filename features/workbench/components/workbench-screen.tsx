@@ -1,0 +1,214 @@
+import { useCallback, useDeferredValue, useEffect, useLayoutEffect, useRef, useState } from 'react';
+import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import { useSafeAreaInsets } from 'react-native-safe-area-context';
+import { PerformancePlots } from '@/features/plots';
+import { RaySketch, SaveSketchButton } from '@/features/sketch';
+import { Card, Heading, Text, colors, space, useLayout } from '@/features/ui';
+import type { FormValues } from '../form-model';
+import { useWorkbench } from '../hooks/use-workbench';
+import { measureEditEnd } from '../perf-marks';
+import type { Preset } from '../presets';
+import { BlockedNote } from './blocked-note';
+import { DesignEditor } from './design-editor';
+import { PresetPicker } from './preset-picker';
+import { RangeTable } from './range-table';
+import { ReadoutCard } from './readout-card';
+import { SummaryBar } from './summary-bar';
+import { WarningList } from './warning-list';
+
+/** Width of a column, measured after layout, for the sketch and plots to fit. */
+function useWidth(initial: number) {
+  const [width, setWidth] = useState(initial);
+  const onLayout = useCallback((event: LayoutChangeEvent) => {
+    const next = Math.round(event.nativeEvent.layout.width);
+    setWidth((current) => (Math.abs(current - next) >= 1 ? next : current));
+  }, []);
+  return [width, onLayout] as const;
+}
+
+/** The scratch workbench: edit a design and see every figure, the sketch and the plots follow. */
+export function WorkbenchScreen() {
+  const bench = useWorkbench();
+  const layout = useLayout();
+  const insets = useSafeAreaInsets();
+  const [highlightedPath, setHighlightedPath] = useState<string | null>(null);
+  const [undo, setUndo] = useState<{ title: string; previous: FormValues } | null>(null);
+  const [graphicsWidth, onGraphicsLayout] = useWidth(360);
+  const clearHighlight = useRef<ReturnType<typeof setTimeout> | null>(null);
+
+  // The benchmark's edit ends when the sketch and plots for the new design are committed.
+  useLayoutEffect(() => {
+    measureEditEnd();
+  }, [bench.evaluation, bench.selected]);
+
+  useEffect(
+    () => () => {
+      if (clearHighlight.current) clearTimeout(clearHighlight.current);
+    },
+    [],
+  );
+
+  const { setFocus } = bench.form;
+  const showField = useCallback(
+    (path: string) => {
+      setHighlightedPath(path);
+      // The section opens on this render; focus once the field exists.
+      setTimeout(() => setFocus(path as Parameters<typeof setFocus>[0]), 0);
+      if (clearHighlight.current) clearTimeout(clearHighlight.current);
+      clearHighlight.current = setTimeout(() => setHighlightedPath(null), 4000);
+    },
+    [setFocus],
+  );
+
+  const pickPreset = (preset: Preset) => {
+    const previous = bench.applyPreset(preset);
+    setUndo({ title: preset.title, previous });
+  };
+
+  const dimmed = bench.blockedBy !== null;
+  const selectedNm = bench.selected.ok ? bench.selected.wavelengthNm : null;
+  const { setSelectedText } = bench;
+  const onSelectWavelength = useCallback(
+    (nm: number) => setSelectedText(String(Math.round(nm * 10) / 10)),
+    [setSelectedText],
+  );
+
+  const heading = (
+    <View style={styles.heading}>
+      <Heading level={1}>Workbench</Heading>
+      <Text variant="small" tone="muted">
+        Scratch design, kept in this browser as you type. Values take units: “0.5 m”, “1200/mm”, “25 um”.
+      </Text>
+    </View>
+  );
+  const editor = (
+    <>
+      <PresetPicker
+        presetId={bench.presetId}
+        onPick={pickPreset}
+        undo={
+          undo ? { title: undo.title, onUndo: () => (bench.restore(undo.previous), setUndo(null)) } : null
+        }
+      />
+      <DesignEditor
+        control={bench.form.control}
+        setValue={bench.form.setValue}
+        values={bench.values}
+        collapsible={layout === 'phone'}
+        highlightedPath={highlightedPath}
+      />
+    </>
+  );
+  const blocked = bench.blockedBy ? <BlockedNote fields={bench.blockedBy} onShowField={showField} /> : null;
+  const graphics = (
+    <View onLayout={onGraphicsLayout} style={styles.stack}>
+      <Card title="Ray sketch" testID="sketch-card">
+        <View style={dimmed ? styles.dimmed : undefined}>
+          <RaySketch
+            design={bench.design}
+            evaluation={bench.evaluation}
+            width={Math.max(240, graphicsWidth - 2 * space.lg - 2)}
+            // A scanning instrument turns its grating: draw it set for the wavelength being read out.
+            settingNm={selectedNm}
+          />
+        </View>
+        <View style={styles.actions}>
+          <SaveSketchButton design={bench.design} settingNm={selectedNm} />
+        </View>
+      </Card>
+      <Card title="Across the range" testID="plots-card">
+        <View style={dimmed ? styles.dimmed : undefined}>
+          <PerformancePlots
+            evaluation={bench.evaluation}
+            width={Math.max(240, graphicsWidth - 2 * space.lg - 2)}
+            selectedNm={selectedNm}
+            onSelectWavelength={onSelectWavelength}
+          />
+        </View>
+      </Card>
+    </View>
+  );
+  // The sketch and plots follow each keystroke at once; the long text lists (about 200 text
+  // elements) may trail by a frame so typing stays smooth on a tablet.
+  const deferredEvaluation = useDeferredValue(bench.evaluation);
+  const deferredTable = useDeferredValue(bench.table);
+  const deferredSelected = useDeferredValue(bench.selected);
+  const readout = (
+    <ReadoutCard
+      evaluation={deferredEvaluation}
+      selectedText={bench.selectedText}
+      onChangeSelected={bench.setSelectedText}
+      selected={deferredSelected}
+      dimmed={dimmed}
+    />
+  );
+  const warnings = <WarningList warnings={deferredEvaluation.warnings} onShowField={showField} />;
+  const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
+  const pad = { paddingBottom: insets.bottom + space.xxl };
+
+  if (layout === 'phone') {
+    return (
+      <View style={styles.root} testID="workbench-phone">
+        <SummaryBar selected={bench.selected} blocked={dimmed} />
+        <ScrollView contentContainerStyle={[styles.column, pad]}>
+          {heading}
+          {editor}
+          {blocked}
+          {warnings}
+          {readout}
+          {graphics}
+          {table}
+        </ScrollView>
+      </View>
+    );
+  }
+
+  if (layout === 'tablet') {
+    return (
+      <View style={[styles.root, styles.row]} testID="workbench-tablet">
+        <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
+          {heading}
+          {editor}
+        </ScrollView>
+        <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
+          {blocked}
+          {graphics}
+          {warnings}
+          {readout}
+          {table}
+        </ScrollView>
+      </View>
+    );
+  }
+
+  return (
+    <View style={[styles.root, styles.row]} testID="workbench-wide">
+      <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
+        {heading}
+        {editor}
+      </ScrollView>
+      <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
+        {blocked}
+        {graphics}
+      </ScrollView>
+      <ScrollView style={styles.resultsPane} contentContainerStyle={[styles.column, pad]}>
+        {warnings}
+        {readout}
+        {table}
+      </ScrollView>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: colors.paper },
+  row: { flexDirection: 'row' },
+  column: { padding: space.lg, gap: space.lg },
+  stack: { gap: space.lg },
+  heading: { gap: space.xs },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  editorPane: { width: 360, flexGrow: 0, flexShrink: 0, borderRightWidth: 1, borderRightColor: colors.line },
+  flexPane: { flex: 1 },
+  resultsPane: { width: 420, flexGrow: 0, flexShrink: 0, borderLeftWidth: 1, borderLeftColor: colors.line },
+  dimmed: { opacity: 0.45 },
+});

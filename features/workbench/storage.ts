@@ -1,0 +1,18 @@
+/** Web (and default): the browser's local storage. Native builds use storage.native.ts. */
+export const draftStorage = {
+  read(key: string): string | null {
+    try {
+      return globalThis.localStorage?.getItem(key) ?? null;
+    } catch {
+      return null;
+    }
+  },
+  write(key: string, value: string): boolean {
+    try {
+      globalThis.localStorage?.setItem(key, value);
+      return true;
+    } catch {
+      return false;
+    }
+  },
+};
