@@ -1,10 +1,10 @@
-import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
+import { Redirect, useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { View } from 'react-native';
 import { signInRequestSchema } from '@/shared/auth';
 import { Button, Text, space } from '@/features/ui';
 import { useApiForm } from '../hooks/use-api-form';
 import { safeNextPath } from '../next-path';
-import { useSignInMutation } from '../queries';
+import { useSessionQuery, useSignInMutation } from '../queries';
 import { AuthCard, FormError } from './auth-card';
 import { FormField } from './form-field';
 import { TextLink } from './text-link';
@@ -13,6 +13,7 @@ export function SignInScreen() {
   const params = useLocalSearchParams<{ next?: string; email?: string }>();
   const router = useRouter();
   const next = safeNextPath(params.next);
+  const session = useSessionQuery();
   const signIn = useSignInMutation();
   const { form, formError, setFormError, showServerError } = useApiForm(signInRequestSchema, {
     email: params.email ?? '',
@@ -28,6 +29,9 @@ export function SignInScreen() {
       showServerError(error);
     }
   });
+
+  // Someone already signed in has nothing to do here: on to where they were going.
+  if (session.data?.user && !signIn.isPending) return <Redirect href={next as Href} />;
 
   const withNext = (path: string) => (params.next ? `${path}?next=${encodeURIComponent(next)}` : path) as Href;
 

@@ -1,10 +1,10 @@
-import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
+import { Redirect, useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { View } from 'react-native';
 import { minPasswordLength, signUpRequestSchema } from '@/shared/auth';
 import { Button, Text, space } from '@/features/ui';
 import { useApiForm } from '../hooks/use-api-form';
 import { safeNextPath } from '../next-path';
-import { useSignUpMutation } from '../queries';
+import { useSessionQuery, useSignUpMutation } from '../queries';
 import { AuthCard, FormError } from './auth-card';
 import { FormField } from './form-field';
 import { TextLink } from './text-link';
@@ -13,6 +13,7 @@ export function SignUpScreen() {
   const params = useLocalSearchParams<{ next?: string; email?: string }>();
   const router = useRouter();
   const next = safeNextPath(params.next);
+  const session = useSessionQuery();
   const signUp = useSignUpMutation();
   const { form, formError, setFormError, showServerError } = useApiForm(signUpRequestSchema, {
     email: params.email ?? '',
@@ -29,6 +30,9 @@ export function SignUpScreen() {
       showServerError(error);
     }
   });
+
+  // Someone already signed in has nothing to do here: on to where they were going.
+  if (session.data?.user && !signUp.isPending) return <Redirect href={next as Href} />;
 
   const signInHref = (params.next ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in') as Href;
 
