@@ -23,7 +23,7 @@ export function AccountMenu() {
         role="link"
         accessibilityLabel={user ? `Signed in as ${user.displayName}. Your teams` : 'Sign in'}
         onPress={() => router.push(href)}
-        style={({ hovered }: { hovered?: boolean }) => [styles.button, hovered && styles.hovered]}
+        style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.button, hovered && styles.hovered]}
         testID="account-menu"
       >
         <Text style={styles.label} numberOfLines={1}>

@@ -26,7 +26,7 @@ export function RolePicker({ value, onChange, label, disabled = false, testID }:
             accessibilityLabel={roleLabels[role]}
             disabled={disabled}
             onPress={() => !selected && onChange(role)}
-            style={({ hovered, focused }: { hovered?: boolean; focused?: boolean }) => [
+            style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
               styles.option,
               selected && styles.selected,
               hovered && !selected && styles.hovered,

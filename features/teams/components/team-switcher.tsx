@@ -18,7 +18,7 @@ export function TeamSwitcher({ currentTeamId }: { currentTeamId?: string }) {
             role="tab"
             aria-selected={current}
             onPress={() => router.push(`/teams/${team.id}/members` as Href)}
-            style={({ hovered }: { hovered?: boolean }) => [styles.tab, current && styles.current, hovered && !current && styles.hovered]}
+            style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.tab, current && styles.current, hovered && !current && styles.hovered]}
           >
             <Text style={[styles.label, current && styles.labelCurrent]} numberOfLines={1}>
               {team.personal ? 'Personal workspace' : team.name}

@@ -52,7 +52,7 @@ export function TeamsScreen() {
             role="link"
             accessibilityLabel={`${team.personal ? 'Personal workspace' : team.name}, ${roleLabels[team.role]}, ${team.memberCount} ${team.memberCount === 1 ? 'member' : 'members'}`}
             onPress={() => router.push(`/teams/${team.id}/members` as Href)}
-            style={({ hovered }: { hovered?: boolean }) => [styles.team, hovered && styles.teamHovered]}
+            style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.team, hovered && styles.teamHovered]}
             testID={`team-${team.name}`}
           >
             <Text weight="semibold">{team.personal ? 'Personal workspace' : team.name}</Text>
