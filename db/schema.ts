@@ -1,5 +1,17 @@
 import { sql } from 'drizzle-orm';
-import { boolean, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import {
+  boolean,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  type AnyPgColumn,
+} from 'drizzle-orm/pg-core';
 
 /**
  * Table definitions only: importable by tooling and tests without loading a database driver.
@@ -116,3 +128,75 @@ export const mailOutbox = pgTable('mail_outbox', {
   html: text().notNull(),
   createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
 });
+
+/**
+ * A design notebook: one design's life in a team. `latestVersion` mirrors the highest version
+ * number so lists and the save check read one row; it only changes inside the save transaction.
+ * A clone keeps where it came from, with the source's title as it was then.
+ */
+export const designs = pgTable(
+  'designs',
+  {
+    id: text().primaryKey(),
+    teamId: text()
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    title: text().notNull(),
+    tags: text().array().notNull().default(sql`'{}'::text[]`),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    archived: boolean().notNull().default(false),
+    latestVersion: integer().notNull(),
+    baselineVersion: integer(),
+    clonedFromDesignId: text().references((): AnyPgColumn => designs.id, { onDelete: 'set null' }),
+    clonedFromVersion: integer(),
+    clonedFromTitle: text(),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [
+    index('designs_team_updated_idx').on(t.teamId, t.updatedAt),
+    index('designs_team_title_idx').on(t.teamId, sql`lower(${t.title})`),
+    index('designs_tags_idx').using('gin', t.tags),
+  ],
+);
+
+/**
+ * Immutable saved states of a design, numbered 1…n per design. `params` passed `designSchema`;
+ * `summary` holds the solver's key figures, computed once at save time.
+ */
+export const designVersions = pgTable(
+  'design_versions',
+  {
+    id: text().primaryKey(),
+    designId: text()
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    number: integer().notNull(),
+    params: jsonb().notNull(),
+    notes: text().notNull().default(''),
+    message: text().notNull(),
+    authorId: text().references(() => users.id, { onDelete: 'set null' }),
+    parentNumber: integer(),
+    summary: jsonb().notNull(),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('design_versions_design_number_unique').on(t.designId, t.number)],
+);
+
+/** Read-only links to one version (or the latest when `version` is null); only the token's SHA-256 is kept. */
+export const shareLinks = pgTable(
+  'share_links',
+  {
+    id: text().primaryKey(),
+    tokenHash: text().notNull().unique(),
+    designId: text()
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    version: integer(),
+    expiresAt: timestamp({ withTimezone: true, mode: 'date' }),
+    revokedAt: timestamp({ withTimezone: true, mode: 'date' }),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [index('share_links_design_id_idx').on(t.designId)],
+);
