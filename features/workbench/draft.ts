@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { LAYOUT_KINDS } from '@/shared/design';
+import { LAYOUT_KINDS, type Design } from '@/shared/design';
 import { designToForm, type FormValues } from './form-model';
 import { defaultPreset } from './presets';
 import { draftStorage } from './storage';
@@ -39,27 +39,38 @@ const draftSchema = z.object({
 
 export type Draft = z.infer<typeof draftSchema>;
 
-export function initialDraft(): Draft {
-  const { design } = defaultPreset;
+/** A draft that starts from a stored design, read out at the centre of its range. */
+export function draftFromDesign(design: Design, presetId: string | null = null): Draft {
   return {
     values: designToForm(design),
     selectedNm: String((design.range.startNm + design.range.endNm) / 2),
-    presetId: defaultPreset.id,
+    presetId,
   };
 }
 
-/** The saved scratch design, or the default preset when there is none or it cannot be read. */
-export function loadDraft(): Draft {
-  const raw = draftStorage.read(DRAFT_KEY);
-  if (!raw) return initialDraft();
+export function initialDraft(): Draft {
+  return draftFromDesign(defaultPreset.design, defaultPreset.id);
+}
+
+/**
+ * The draft kept under `key`, or `fallback` when there is none or it cannot be read. Notebooks
+ * keep one per user and design, so a reload or a lost connection loses no unsaved edit.
+ */
+export function loadDraft(key: string = DRAFT_KEY, fallback: () => Draft = initialDraft): Draft {
+  const raw = draftStorage.read(key);
+  if (!raw) return fallback();
   try {
     const parsed = draftSchema.safeParse(JSON.parse(raw));
-    return parsed.success ? parsed.data : initialDraft();
+    return parsed.success ? parsed.data : fallback();
   } catch {
-    return initialDraft();
+    return fallback();
   }
 }
 
-export function saveDraft(draft: Draft): boolean {
-  return draftStorage.write(DRAFT_KEY, JSON.stringify(draft));
+export function saveDraft(draft: Draft, key: string = DRAFT_KEY): boolean {
+  return draftStorage.write(key, JSON.stringify(draft));
+}
+
+export function clearDraft(key: string): void {
+  draftStorage.remove(key);
 }

@@ -12,4 +12,7 @@ export const draftStorage = {
     memory.set(key, value);
     return true;
   },
+  remove(key: string): void {
+    memory.delete(key);
+  },
 };

@@ -15,4 +15,11 @@ export const draftStorage = {
       return false;
     }
   },
+  remove(key: string): void {
+    try {
+      globalThis.localStorage?.removeItem(key);
+    } catch {
+      // Nothing to remove where storage is unavailable.
+    }
+  },
 };

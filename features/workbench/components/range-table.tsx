@@ -7,15 +7,15 @@ import { rangeTableCsv } from '../csv';
 import { fmt, percent } from '../format';
 
 const columns = [
-  { title: 'λ\nnm', width: 64, cell: (p: WavelengthPoint) => fmt(p.wavelengthNm, 5) },
-  { title: 'rotation\n°', width: 72, cell: (p: WavelengthPoint) => fmt(p.gratingRotationDeg) },
-  { title: 'RLD\nnm/mm', width: 68, cell: (p: WavelengthPoint) => fmt(p.reciprocalDispersionNmPerMm, 3) },
-  { title: 'bandpass\nnm', width: 76, cell: (p: WavelengthPoint) => fmt(p.bandpassNm, 3) },
-  { title: 'R\nλ/Δλ', width: 68, cell: (p: WavelengthPoint) => fmt(p.resolvingPower, 3) },
-  { title: 'blaze\neff.', width: 56, cell: (p: WavelengthPoint) => percent(p.blazeEfficiency) },
+  { title: 'λ\nnm', width: 56, cell: (p: WavelengthPoint) => fmt(p.wavelengthNm, 5) },
+  { title: 'rotation\n°', width: 60, cell: (p: WavelengthPoint) => fmt(p.gratingRotationDeg) },
+  { title: 'RLD\nnm/mm', width: 56, cell: (p: WavelengthPoint) => fmt(p.reciprocalDispersionNmPerMm, 3) },
+  { title: 'bandpass\nnm', width: 66, cell: (p: WavelengthPoint) => fmt(p.bandpassNm, 3) },
+  { title: 'R\nλ/Δλ', width: 56, cell: (p: WavelengthPoint) => fmt(p.resolvingPower, 3) },
+  { title: 'blaze\neff.', width: 48, cell: (p: WavelengthPoint) => percent(p.blazeEfficiency) },
   {
     title: 'other\norders',
-    width: 96,
+    width: 84,
     cell: (p: WavelengthPoint) =>
       p.overlaps.length === 0
         ? '—'

@@ -1,10 +1,19 @@
-import { useCallback, useDeferredValue, useEffect, useLayoutEffect, useRef, useState } from 'react';
+import {
+  useCallback,
+  useDeferredValue,
+  useEffect,
+  useLayoutEffect,
+  useRef,
+  useState,
+  type ReactNode,
+} from 'react';
 import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { PerformancePlots } from '@/features/plots';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
-import { Card, Heading, Text, colors, space, useLayout } from '@/features/ui';
-import type { FormValues } from '../form-model';
+import { Card, colors, space, useLayout } from '@/features/ui';
+import type { Draft } from '../draft';
+import type { FormResult, FormValues } from '../form-model';
 import { useWorkbench } from '../hooks/use-workbench';
 import { measureEditEnd } from '../perf-marks';
 import type { Preset } from '../presets';
@@ -26,9 +35,31 @@ function useWidth(initial: number) {
   return [width, onLayout] as const;
 }
 
-/** The scratch workbench: edit a design and see every figure, the sketch and the plots follow. */
-export function WorkbenchScreen() {
-  const bench = useWorkbench();
+export type WorkbenchProps = {
+  /** The draft to start from (read once, on mount; remount with a `key` to start over). */
+  initial: () => Draft;
+  /** Called with the typed text on every change, e.g. to keep it in local storage. */
+  onDraftChange: (draft: Draft) => void;
+  /** Told the typed design, or why it is refused, whenever it changes. */
+  onResultChange?: (result: FormResult) => void;
+  /** Above the editor: the page's heading and its own controls. */
+  header: ReactNode;
+  /** Reviewers, viewers and share links see the design without editing it. */
+  readOnly?: boolean;
+  /** Offer the starting presets (the scratch page). */
+  showPresets?: boolean;
+};
+
+/** Edit a design and see every figure, the sketch and the plots follow. */
+export function Workbench({
+  initial,
+  onDraftChange,
+  onResultChange,
+  header,
+  readOnly = false,
+  showPresets = false,
+}: WorkbenchProps) {
+  const bench = useWorkbench(initial, onDraftChange);
   const layout = useLayout();
   const insets = useSafeAreaInsets();
   const [highlightedPath, setHighlightedPath] = useState<string | null>(null);
@@ -65,6 +96,10 @@ export function WorkbenchScreen() {
     setUndo({ title: preset.title, previous });
   };
 
+  useEffect(() => {
+    onResultChange?.(bench.result);
+  }, [bench.result, onResultChange]);
+
   const dimmed = bench.blockedBy !== null;
   const selectedNm = bench.selected.ok ? bench.selected.wavelengthNm : null;
   const { setSelectedText } = bench;
@@ -73,14 +108,6 @@ export function WorkbenchScreen() {
     [setSelectedText],
   );
 
-  const heading = (
-    <View style={styles.heading}>
-      <Heading level={1}>Workbench</Heading>
-      <Text variant="small" tone="muted">
-        Scratch design, kept in this browser as you type. Values take units: “0.5 m”, “1200/mm”, “25 um”.
-      </Text>
-    </View>
-  );
   const editor = (
     <>
       <PresetPicker
@@ -96,6 +123,7 @@ export function WorkbenchScreen() {
         values={bench.values}
         collapsible={layout === 'phone'}
         highlightedPath={highlightedPath}
+        readOnly={readOnly}
       />
     </>
   );
@@ -151,7 +179,7 @@ export function WorkbenchScreen() {
       <View style={styles.root} testID="workbench-phone">
         <SummaryBar selected={bench.selected} blocked={dimmed} />
         <ScrollView contentContainerStyle={[styles.column, pad]}>
-          {heading}
+          {header}
           {editor}
           {blocked}
           {warnings}
@@ -167,7 +195,7 @@ export function WorkbenchScreen() {
     return (
       <View style={[styles.root, styles.row]} testID="workbench-tablet">
         <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
-          {heading}
+          {header}
           {editor}
         </ScrollView>
         <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
@@ -184,7 +212,7 @@ export function WorkbenchScreen() {
   return (
     <View style={[styles.root, styles.row]} testID="workbench-wide">
       <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
-        {heading}
+        {header}
         {editor}
       </ScrollView>
       <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
@@ -205,10 +233,9 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row' },
   column: { padding: space.lg, gap: space.lg },
   stack: { gap: space.lg },
-  heading: { gap: space.xs },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   editorPane: { width: 360, flexGrow: 0, flexShrink: 0, borderRightWidth: 1, borderRightColor: colors.line },
   flexPane: { flex: 1 },
-  resultsPane: { width: 420, flexGrow: 0, flexShrink: 0, borderLeftWidth: 1, borderLeftColor: colors.line },
+  resultsPane: { width: 480, flexGrow: 0, flexShrink: 0, borderLeftWidth: 1, borderLeftColor: colors.line },
   dimmed: { opacity: 0.45 },
 });

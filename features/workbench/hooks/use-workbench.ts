@@ -10,7 +10,7 @@ import {
 } from '@/features/solver';
 import type { Design } from '@/shared/design';
 import type { FieldErrors } from '@/shared/validation';
-import { loadDraft, saveDraft, type Draft } from '../draft';
+import type { Draft } from '../draft';
 import { designToForm, formToDesign, readForm, type FormResult, type FormValues } from '../form-model';
 import { defaultPreset, type Preset } from '../presets';
 
@@ -44,7 +44,7 @@ export type SelectedReadout =
  * makes, and the results of the last design that passed the schema — so a bad value dims the
  * results instead of blanking them.
  */
-export function useWorkbench(initial: Draft = loadDraft()) {
+export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft) => void) {
   const [start] = useState(initial);
   const form = useForm<FormValues>({
     defaultValues: start.values,
@@ -95,8 +95,8 @@ export function useWorkbench(initial: Draft = loadDraft()) {
   }, [selectedText, shown, unitsReady]);
 
   useEffect(() => {
-    saveDraft({ values, selectedNm: selectedText, presetId });
-  }, [values, selectedText, presetId]);
+    onDraftChange({ values, selectedNm: selectedText, presetId });
+  }, [values, selectedText, presetId, onDraftChange]);
 
   function applyPreset(preset: Preset) {
     const previous = form.getValues();
