@@ -74,7 +74,7 @@ describe('solve CLI', { timeout: 30_000 }, () => {
     { name: 'a negative --at', args: ['--at', '-5'] },
     { name: '--points below 2', args: ['--points', '1'] },
     { name: 'a missing value', args: ['--points'] },
-  ] satisfies ReadonlyArray<{ name: string; args: string[] }>)('exits 2 with the usage for $name', ({ args }) => {
+  ] satisfies readonly { name: string; args: string[] }[])('exits 2 with the usage for $name', ({ args }) => {
     const r = solve([designFile('flags.json', exampleDesign), ...args]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/usage: npm run --silent solve/);

@@ -34,7 +34,7 @@ describe('design schema', () => {
     { field: 'source.maxNm', set: (d: any) => (d.source.maxNm = 100), message: 'must be greater than source.minNm' },
     { field: 'detector.pixelCount', set: (d: any) => (d.detector.pixelCount = 10.5), message: 'must be a whole number' },
     { field: 'grating', set: (d: any) => (d.grating.grooveDensityPerMM = 1200), message: "has an unknown field 'grooveDensityPerMM' (check the spelling)" },
-  ] satisfies ReadonlyArray<{ field: string; set: (d: Record<string, any>) => unknown; message: string }>)(
+  ] satisfies readonly { field: string; set: (d: Record<string, any>) => unknown; message: string }[])(
     '$field: "$message"',
     ({ field, set, message }) => {
       expect(errorsFor(set)[field]).toBe(message);

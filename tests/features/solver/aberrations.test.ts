@@ -65,7 +65,7 @@ describe('coma-free Czerny–Turner (Shafer, Megill & Droppleman, JOSA 54, 879, 
     { name: 'asymmetric mirrors', grooves: 1200, order: 1, lambda: 600, deviationDeg: 30, fCol: 200, fCam: 400, theta1Deg: 6 },
     { name: 'order −1, 2400 g/mm', grooves: 2400, order: -1, lambda: 350, deviationDeg: 26, fCol: 500, fCam: 500, theta1Deg: 5 },
     { name: 'second order, wide deviation', grooves: 600, order: 2, lambda: 700, deviationDeg: 50, fCol: 320, fCam: 350, theta1Deg: 10 },
-  ] satisfies ReadonlyArray<{
+  ] satisfies readonly {
     name: string;
     grooves: number;
     order: number;
@@ -74,7 +74,7 @@ describe('coma-free Czerny–Turner (Shafer, Megill & Droppleman, JOSA 54, 879, 
     fCol: number;
     fCam: number;
     theta1Deg: number;
-  }>)('$name: a tangential-fan ray trace agrees to four decimals of a degree', (c) => {
+  }[])('$name: a tangential-fan ray trace agrees to four decimals of a degree', (c) => {
     const design = makeDesign({
       grating: { grooveDensityPerMm: c.grooves, order: c.order },
       layout: {

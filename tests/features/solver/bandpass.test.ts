@@ -55,7 +55,7 @@ describe('slit function and bandpass', () => {
     { a: 0.2, b: 0.2 },
     { a: 0.1, b: 0.3 },
     { a: 0.45, b: 0.05 },
-  ] satisfies ReadonlyArray<{ a: number; b: number }>)(
+  ] satisfies readonly { a: number; b: number }[])(
     'a numerical convolution of rect($a nm) and rect($b nm) has the FWHM and shape the solver reports',
     ({ a, b }) => {
       const { xs, ys, step } = convolvedRects(a, b);
@@ -98,7 +98,7 @@ describe('sodium D doublet (NIST ASD, 588.995 and 589.592 nm in air, from memory
     { name: '200 µm slits', widthUm: 200 },
     { name: '300 µm slits', widthUm: 300 },
     { name: '400 µm slits', widthUm: 400 },
-  ] satisfies ReadonlyArray<{ name: string; widthUm: number }>;
+  ] satisfies readonly { name: string; widthUm: number }[];
 
   it.each(cases)('$name: the pair is resolved exactly when the bandpass is under 0.597 nm', ({ widthUm }) => {
     const design = makeDesign({

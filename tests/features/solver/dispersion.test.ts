@@ -59,7 +59,7 @@ describe('independent chief-ray trace', () => {
     { name: 'second order, 600 g/mm', grooves: 600, order: 2, lambda: 450, deviationDeg: 24, fCol: 500, fCam: 500 },
     { name: 'asymmetric mount, f_col ≠ f_cam', grooves: 1800, order: 1, lambda: 400, deviationDeg: 40, fCol: 200, fCam: 450 },
     { name: 'near-Littrow, high order', grooves: 79, order: 35, lambda: 550, deviationDeg: 8, fCol: 750, fCam: 750 },
-  ] satisfies ReadonlyArray<{
+  ] satisfies readonly {
     name: string;
     grooves: number;
     order: number;
@@ -67,7 +67,7 @@ describe('independent chief-ray trace', () => {
     deviationDeg: number;
     fCol: number;
     fCam: number;
-  }>;
+  }[];
 
   it.each(cases)('$name: traced dx/dλ matches the closed form within 0.5 %', (c) => {
     const design = makeDesign({

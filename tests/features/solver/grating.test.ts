@@ -23,14 +23,14 @@ describe('grating equation in constant-deviation form', () => {
     // 2K = 60°, 600 nm, 1200 g/mm: sin φ = 600 / (1666.67 · cos 30°) = 0.41569.
     { name: 'wide deviation, 60°', grooves: 1200, order: 1, lambda: 600, deviationDeg: 60, sinPhi: 600 / (1666.6666666666667 * Math.cos(deg(30))) },
     { name: 'negative order with deviation', grooves: 600, order: -2, lambda: 400, deviationDeg: 24, sinPhi: (-2 * 400) / (2 * (1e6 / 600) * Math.cos(deg(12))) },
-  ] satisfies ReadonlyArray<{
+  ] satisfies readonly {
     name: string;
     grooves: number;
     order: number;
     lambda: number;
     deviationDeg: number;
     sinPhi: number;
-  }>;
+  }[];
 
   it.each(cases)('$name: φ, α = φ + K and β = φ − K solve the equation', (c) => {
     const K = deg(c.deviationDeg / 2);

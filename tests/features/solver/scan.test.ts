@@ -8,7 +8,7 @@ describe('scan sensitivity', () => {
     { order: 1, lambda: 500, deviationDeg: 30 },
     { order: -2, lambda: 300, deviationDeg: 20 },
     { order: 3, lambda: 250, deviationDeg: 0 },
-  ] satisfies ReadonlyArray<{ order: number; lambda: number; deviationDeg: number }>)(
+  ] satisfies readonly { order: number; lambda: number; deviationDeg: number }[])(
     'order $order at $lambda nm matches a numerical dλ/dφ of the grating equation',
     ({ order, lambda, deviationDeg }) => {
       // Differentiating mλ = 2d cos K sin φ numerically (Palmer & Loewen, ch. 2).

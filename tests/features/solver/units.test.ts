@@ -20,7 +20,7 @@ describe('parseQuantity', () => {
     { text: '21 arcmin', unit: 'deg', value: 0.35 },
     { text: '500', unit: 'nm', value: 500 },
     { text: ' 12.5 ', unit: 'mm', value: 12.5 },
-  ] satisfies ReadonlyArray<{ text: string; unit: FieldUnit; value: number }>)(
+  ] satisfies readonly { text: string; unit: FieldUnit; value: number }[])(
     '"$text" in $unit is $value',
     ({ text, unit, value }) => {
       const r = parseQuantity(text, unit);
@@ -37,7 +37,7 @@ describe('parseQuantity', () => {
     { text: '', unit: 'um', message: /enter a length such as 25 µm/ },
     { text: 'mm', unit: 'mm', message: /has no number/ },
     { text: '1e999', unit: 'mm', message: /too large/ },
-  ] satisfies ReadonlyArray<{ text: string; unit: FieldUnit; message: RegExp }>)(
+  ] satisfies readonly { text: string; unit: FieldUnit; message: RegExp }[])(
     '"$text" as $unit fails with a clear message and does not throw',
     ({ text, unit, message }) => {
       const r = parseQuantity(text, unit);
