@@ -10,6 +10,7 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
+import { createNotebooks } from './notebooks/index';
 import { solveRouter } from './solve/router';
 import { createTeams } from './teams/index';
 
@@ -81,6 +82,7 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(solveRouter());
   apiRouter.use(auth.router);
   apiRouter.use(createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl }).router);
+  apiRouter.use(createNotebooks({ db: deps.database.db, clock: deps.clock }).router);
   if (deps.nodeEnv !== 'production') apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock)));
   apiRouter.use(apiNotFound);
   app.use('/api', apiRouter);

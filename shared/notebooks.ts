@@ -152,7 +152,11 @@ export const listDesignsQuerySchema = z.object({
   tag: tagSchema.optional(),
   sort: designSortSchema.default('updated'),
   dir: z.enum(['asc', 'desc'], { error: 'must be asc or desc' }).optional(),
-  page: z.coerce.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).default(1),
+  page: z.coerce
+    .number({ error: 'must be a number' })
+    .int({ error: 'must be a whole number' })
+    .min(1, { error: 'must be at least 1' })
+    .default(1),
   pageSize: z.coerce
     .number({ error: 'must be a number' })
     .int({ error: 'must be a whole number' })
@@ -160,7 +164,9 @@ export const listDesignsQuerySchema = z.object({
     .max(maxPageSize, { error: `must be at most ${maxPageSize}` })
     .default(20),
   /** `only`: the archived ones; `include`: both; default: the live ones. */
-  archived: z.enum(['exclude', 'include', 'only'], { error: 'must be exclude, include or only' }).default('exclude'),
+  archived: z
+    .enum(['exclude', 'include', 'only'], { error: 'must be exclude, include or only' })
+    .default('exclude'),
 });
 export type ListDesignsQuery = z.input<typeof listDesignsQuerySchema>;
 
@@ -193,7 +199,11 @@ export type NotebookWithVersionResponse = z.infer<typeof notebookWithVersionResp
 export const notebookResponseSchema = notebookWithVersionResponseSchema;
 
 export const updateDesignRequestSchema = z
-  .object({ title: designTitleSchema.optional(), tags: tagsSchema.optional(), archived: z.boolean({ error: 'must be true or false' }).optional() })
+  .object({
+    title: designTitleSchema.optional(),
+    tags: tagsSchema.optional(),
+    archived: z.boolean({ error: 'must be true or false' }).optional(),
+  })
   .refine((body) => body.title !== undefined || body.tags !== undefined || body.archived !== undefined, {
     error: 'must change title, tags or archived',
   });
@@ -306,7 +316,10 @@ export type ShareLink = z.infer<typeof shareLinkSchema>;
 
 export const createShareLinkRequestSchema = z.object({
   version: versionNumberSchema.nullable().default(null),
-  expiresAt: z.iso.datetime({ error: 'must be a date and time such as 2026-06-30T12:00:00Z' }).nullable().default(null),
+  expiresAt: z.iso
+    .datetime({ error: 'must be a date and time such as 2026-06-30T12:00:00Z' })
+    .nullable()
+    .default(null),
 });
 export type CreateShareLinkRequest = z.input<typeof createShareLinkRequestSchema>;
 
@@ -343,17 +356,30 @@ export const notebookFileKind = 'blazebook-notebook';
 export const notebookFormatVersion = 1;
 export const maxFileVersions = 1000;
 
-export const notebookFileVersionSchema = z.strictObject({
-  number: versionNumberSchema,
-  message: versionMessageSchema,
-  notes: notesSchema.default(''),
-  params: designSchema,
-  /** Null for version 1; otherwise an earlier version of this file. */
-  parentNumber: versionNumberSchema.nullable().default(null),
-  createdAt: z.iso.datetime({ error: 'must be a date and time such as 2026-03-14T09:00:00Z' }),
-  /** The author's display name when exported; informative only (import records the importer). */
-  authorName: z.string().max(200).nullable().default(null),
-});
+/** Unknown keys in a file are named, so a typo surfaces instead of being dropped. */
+const unknownFields = {
+  error: (issue: { code?: string; keys?: string[]; input?: unknown }) =>
+    issue.code === 'unrecognized_keys'
+      ? `has an unknown field ${(issue.keys ?? []).map((key) => `'${key}'`).join(', ')} (check the spelling)`
+      : issue.input === undefined
+        ? 'is required'
+        : 'must be an object',
+};
+
+export const notebookFileVersionSchema = z.strictObject(
+  {
+    number: versionNumberSchema,
+    message: versionMessageSchema,
+    notes: notesSchema.default(''),
+    params: designSchema,
+    /** Null for version 1; otherwise an earlier version of this file. */
+    parentNumber: versionNumberSchema.nullable().default(null),
+    createdAt: z.iso.datetime({ error: 'must be a date and time such as 2026-03-14T09:00:00Z' }),
+    /** The author's display name when exported; informative only (import records the importer). */
+    authorName: z.string().max(200).nullable().default(null),
+  },
+  unknownFields,
+);
 export type NotebookFileVersion = z.infer<typeof notebookFileVersionSchema>;
 
 /**
@@ -362,35 +388,67 @@ export type NotebookFileVersion = z.infer<typeof notebookFileVersionSchema>;
  * order, every parent must be an earlier version, and the baseline must be one of them.
  */
 export const notebookFileSchema = z
-  .strictObject({
-    kind: z.literal(notebookFileKind, { error: `must be "${notebookFileKind}"` }),
-    formatVersion: z.literal(notebookFormatVersion, { error: `must be ${notebookFormatVersion} (the only format this version reads)` }),
-    exportedAt: z.iso.datetime().optional(),
-    title: designTitleSchema,
-    tags: tagsSchema.default([]),
-    baselineVersion: versionNumberSchema.nullable().default(null),
-    clonedFrom: z.strictObject({ title: z.string().max(200), version: versionNumberSchema }).nullable().default(null),
-    versions: z
-      .array(notebookFileVersionSchema, { error: 'must be a list of versions' })
-      .min(1, { error: 'must hold at least one version' })
-      .max(maxFileVersions, { error: `must hold at most ${maxFileVersions} versions` }),
-  })
-  .superRefine((file, ctx) => {
-    file.versions.forEach((version, index) => {
-      if (version.number !== index + 1) {
-        ctx.addIssue({ code: 'custom', path: ['versions', index, 'number'], message: `must be ${index + 1} (versions run 1, 2, … in order)` });
+  .strictObject(
+    {
+      kind: z.literal(notebookFileKind, { error: `must be "${notebookFileKind}"` }),
+      formatVersion: z.literal(notebookFormatVersion, {
+        error: `must be ${notebookFormatVersion} (the only format this version reads)`,
+      }),
+      exportedAt: z.iso.datetime().optional(),
+      title: designTitleSchema,
+      tags: tagsSchema.default([]),
+      baselineVersion: versionNumberSchema.nullable().default(null),
+      clonedFrom: z
+        .strictObject({ title: z.string().max(200), version: versionNumberSchema }, unknownFields)
+        .nullable()
+        .default(null),
+      versions: z
+        .array(notebookFileVersionSchema, { error: 'must be a list of versions' })
+        .min(1, { error: 'must hold at least one version' })
+        .max(maxFileVersions, { error: `must hold at most ${maxFileVersions} versions` }),
+    },
+    unknownFields,
+  )
+  // Runs even when other fields failed, so one upload reports every problem at once; it reads
+  // the raw values defensively because they may be the very ones that failed.
+  .superRefine(
+    (file, ctx) => {
+      const versions: unknown[] = Array.isArray(file.versions) ? file.versions : [];
+      versions.forEach((raw, index) => {
+        if (typeof raw !== 'object' || raw === null) return;
+        const { number, parentNumber } = raw as { number?: unknown; parentNumber?: unknown };
+        if (number !== index + 1) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['versions', index, 'number'],
+            message: `must be ${index + 1} (versions run 1, 2, … in order)`,
+          });
+        }
+        if (typeof parentNumber === 'number' && parentNumber >= index + 1) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['versions', index, 'parentNumber'],
+            message: 'must be an earlier version',
+          });
+        }
+        if (index > 0 && (parentNumber === null || parentNumber === undefined)) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['versions', index, 'parentNumber'],
+            message: 'is required after version 1',
+          });
+        }
+      });
+      if (typeof file.baselineVersion === 'number' && file.baselineVersion > versions.length) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['baselineVersion'],
+          message: 'must be one of the versions in the file',
+        });
       }
-      if (version.parentNumber !== null && version.parentNumber >= version.number) {
-        ctx.addIssue({ code: 'custom', path: ['versions', index, 'parentNumber'], message: 'must be an earlier version' });
-      }
-      if (index > 0 && version.parentNumber === null) {
-        ctx.addIssue({ code: 'custom', path: ['versions', index, 'parentNumber'], message: 'is required after version 1' });
-      }
-    });
-    if (file.baselineVersion !== null && file.baselineVersion > file.versions.length) {
-      ctx.addIssue({ code: 'custom', path: ['baselineVersion'], message: 'must be one of the versions in the file' });
-    }
-  });
+    },
+    { when: (payload) => typeof payload.value === 'object' && payload.value !== null },
+  );
 export type NotebookFile = z.infer<typeof notebookFileSchema>;
 export type NotebookFileInput = z.input<typeof notebookFileSchema>;
 
@@ -406,11 +464,13 @@ export const notebookPaths = {
   design: (id: string) => `/api/designs/${encodeURIComponent(id)}`,
   versions: (id: string) => `/api/designs/${encodeURIComponent(id)}/versions`,
   version: (id: string, n: number) => `/api/designs/${encodeURIComponent(id)}/versions/${n}`,
-  compare: (id: string, a: number, b: number) => `/api/designs/${encodeURIComponent(id)}/compare?a=${a}&b=${b}`,
+  compare: (id: string, a: number, b: number) =>
+    `/api/designs/${encodeURIComponent(id)}/compare?a=${a}&b=${b}`,
   clone: (id: string) => `/api/designs/${encodeURIComponent(id)}/clone`,
   baseline: (id: string) => `/api/designs/${encodeURIComponent(id)}/baseline`,
   shareLinks: (id: string) => `/api/designs/${encodeURIComponent(id)}/share-links`,
-  shareLink: (id: string, linkId: string) => `/api/designs/${encodeURIComponent(id)}/share-links/${encodeURIComponent(linkId)}`,
+  shareLink: (id: string, linkId: string) =>
+    `/api/designs/${encodeURIComponent(id)}/share-links/${encodeURIComponent(linkId)}`,
   exportFile: (id: string) => `/api/designs/${encodeURIComponent(id)}/export`,
   shared: (token: string) => `/api/share/${encodeURIComponent(token)}`,
 } as const;

@@ -1,0 +1,16 @@
+import type { Database } from '../../db/client';
+import type { Clock } from '../clock';
+import { createNotebooksRepository } from './repository';
+import { notebooksRouter } from './router';
+import { createNotebooksService } from './service';
+
+export type { NotebooksService } from './service';
+export { summarizeVersion } from './summary';
+
+export function createNotebooks(deps: { db: Database; clock: Clock }) {
+  const service = createNotebooksService({
+    repository: createNotebooksRepository(deps.db),
+    clock: deps.clock,
+  });
+  return { service, router: notebooksRouter(service) };
+}

@@ -1,0 +1,298 @@
+import { and, asc, desc, eq, ilike, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
+import type { Database } from '../../db/client';
+import { designs, designVersions, memberships, shareLinks, teams, users } from '../../db/schema';
+import type { DesignSort, VersionSummary } from '../../shared/notebooks';
+import type { Role } from '../../shared/teams';
+
+export type DesignRow = typeof designs.$inferSelect;
+export type VersionInsert = typeof designVersions.$inferInsert & { summary: VersionSummary };
+export type ShareLinkRow = typeof shareLinks.$inferSelect;
+
+const creator = alias(users, 'creator');
+const author = alias(users, 'author');
+const linkCreator = alias(users, 'link_creator');
+
+/** A design as the API shows it: the row, its creator's name and the caller's role (null: not a member). */
+export type DesignView = DesignRow & { creatorName: string | null; role: Role | null };
+
+export type VersionView = {
+  number: number;
+  message: string;
+  authorId: string | null;
+  authorName: string | null;
+  createdAt: Date;
+  parentNumber: number | null;
+  summary: VersionSummary;
+};
+export type FullVersionView = VersionView & { params: unknown; notes: string };
+
+const designColumns = {
+  id: designs.id,
+  teamId: designs.teamId,
+  title: designs.title,
+  tags: designs.tags,
+  createdBy: designs.createdBy,
+  archived: designs.archived,
+  latestVersion: designs.latestVersion,
+  baselineVersion: designs.baselineVersion,
+  clonedFromDesignId: designs.clonedFromDesignId,
+  clonedFromVersion: designs.clonedFromVersion,
+  clonedFromTitle: designs.clonedFromTitle,
+  createdAt: designs.createdAt,
+  updatedAt: designs.updatedAt,
+  creatorName: creator.displayName,
+};
+
+const versionHeaderColumns = {
+  number: designVersions.number,
+  message: designVersions.message,
+  authorId: designVersions.authorId,
+  authorName: author.displayName,
+  createdAt: designVersions.createdAt,
+  parentNumber: designVersions.parentNumber,
+  summary: sql<VersionSummary>`${designVersions.summary}`,
+};
+
+const fullVersionColumns = {
+  ...versionHeaderColumns,
+  params: designVersions.params,
+  notes: designVersions.notes,
+};
+
+/** `%` and `_` typed in the search box are letters, not wildcards. */
+function likePattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+export type ListFilter = {
+  teamId: string;
+  q?: string;
+  tag?: string;
+  sort: DesignSort;
+  dir: 'asc' | 'desc';
+  archived: 'exclude' | 'include' | 'only';
+  limit: number;
+  offset: number;
+};
+
+function queries(db: Database) {
+  // The hot reads are prepared once per database: building a Drizzle query costs more than PGlite
+  // takes to run a primary-key lookup (see the team's STACK notes).
+  const designForUser = db
+    .select({ ...designColumns, role: memberships.role })
+    .from(designs)
+    .leftJoin(creator, eq(creator.id, designs.createdBy))
+    .leftJoin(
+      memberships,
+      and(eq(memberships.teamId, designs.teamId), eq(memberships.userId, sql.placeholder('userId'))),
+    )
+    .where(eq(designs.id, sql.placeholder('designId')))
+    .prepare('notebook_design_for_user');
+
+  const versionForUser = db
+    .select({ ...fullVersionColumns, teamId: designs.teamId, role: memberships.role })
+    .from(designs)
+    .innerJoin(
+      designVersions,
+      and(eq(designVersions.designId, designs.id), eq(designVersions.number, sql.placeholder('n'))),
+    )
+    .leftJoin(author, eq(author.id, designVersions.authorId))
+    .leftJoin(
+      memberships,
+      and(eq(memberships.teamId, designs.teamId), eq(memberships.userId, sql.placeholder('userId'))),
+    )
+    .where(eq(designs.id, sql.placeholder('designId')))
+    .prepare('notebook_version_for_user');
+
+  const versionByNumber = db
+    .select(fullVersionColumns)
+    .from(designVersions)
+    .leftJoin(author, eq(author.id, designVersions.authorId))
+    .where(
+      and(
+        eq(designVersions.designId, sql.placeholder('designId')),
+        eq(designVersions.number, sql.placeholder('n')),
+      ),
+    )
+    .prepare('notebook_version_by_number');
+
+  return {
+    async designForUser(designId: string, userId: string): Promise<DesignView | null> {
+      const [row] = await designForUser.execute({ designId, userId });
+      return row ?? null;
+    },
+
+    /** One version, with the caller's role in its design's team, in one round trip. */
+    async versionForUser(designId: string, n: number, userId: string) {
+      const [row] = await versionForUser.execute({ designId, n, userId });
+      return row ?? null;
+    },
+
+    async version(designId: string, n: number): Promise<FullVersionView | null> {
+      const [row] = await versionByNumber.execute({ designId, n });
+      return row ?? null;
+    },
+
+    /** Newest first. */
+    async versionHeaders(designId: string): Promise<VersionView[]> {
+      return db
+        .select(versionHeaderColumns)
+        .from(designVersions)
+        .leftJoin(author, eq(author.id, designVersions.authorId))
+        .where(eq(designVersions.designId, designId))
+        .orderBy(desc(designVersions.number));
+    },
+
+    async allVersions(designId: string): Promise<FullVersionView[]> {
+      return db
+        .select(fullVersionColumns)
+        .from(designVersions)
+        .leftJoin(author, eq(author.id, designVersions.authorId))
+        .where(eq(designVersions.designId, designId))
+        .orderBy(asc(designVersions.number));
+    },
+
+    async roleOf(teamId: string, userId: string): Promise<Role | null> {
+      const [row] = await db
+        .select({ role: memberships.role })
+        .from(memberships)
+        .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+      return row?.role ?? null;
+    },
+
+    async personalTeamOf(userId: string): Promise<string | null> {
+      const [row] = await db
+        .select({ id: teams.id })
+        .from(memberships)
+        .innerJoin(teams, eq(teams.id, memberships.teamId))
+        .where(and(eq(memberships.userId, userId), eq(teams.personal, true)))
+        .orderBy(asc(teams.createdAt))
+        .limit(1);
+      return row?.id ?? null;
+    },
+
+    /** A page of the team's designs, baselines first, with the total before paging. */
+    async listDesigns(filter: ListFilter) {
+      const conditions: SQL[] = [eq(designs.teamId, filter.teamId)];
+      if (filter.archived === 'exclude') conditions.push(eq(designs.archived, false));
+      if (filter.archived === 'only') conditions.push(eq(designs.archived, true));
+      if (filter.q) conditions.push(ilike(designs.title, likePattern(filter.q)));
+      if (filter.tag) conditions.push(sql`${designs.tags} @> array[${filter.tag}]::text[]`);
+      const order = filter.dir === 'asc' ? asc : desc;
+      const sortKey =
+        filter.sort === 'title'
+          ? [order(sql`lower(${designs.title})`)]
+          : filter.sort === 'owner'
+            ? [
+                filter.dir === 'asc'
+                  ? sql`lower(${creator.displayName}) asc nulls last`
+                  : sql`lower(${creator.displayName}) desc nulls last`,
+              ]
+            : [order(designs.updatedAt)];
+      return db
+        .select({ ...designColumns, total: sql<number>`count(*) over ()`.mapWith(Number) })
+        .from(designs)
+        .leftJoin(creator, eq(creator.id, designs.createdBy))
+        .where(and(...conditions))
+        .orderBy(asc(isNull(designs.baselineVersion)), ...sortKey, asc(designs.id))
+        .limit(filter.limit)
+        .offset(filter.offset);
+    },
+
+    async teamTags(teamId: string): Promise<string[]> {
+      const rows = await db
+        .selectDistinct({ tag: sql<string>`unnest(${designs.tags})`.as('tag') })
+        .from(designs)
+        .where(eq(designs.teamId, teamId))
+        .orderBy(sql`tag`);
+      return rows.map((row) => row.tag);
+    },
+
+    async insertDesign(design: typeof designs.$inferInsert, versions: VersionInsert[]) {
+      await db.insert(designs).values(design);
+      await db.insert(designVersions).values(versions);
+    },
+
+    async latestVersionNumber(designId: string): Promise<number | null> {
+      const [row] = await db
+        .select({ n: designs.latestVersion })
+        .from(designs)
+        .where(eq(designs.id, designId));
+      return row?.n ?? null;
+    },
+
+    async appendVersion(version: VersionInsert) {
+      await db.insert(designVersions).values(version);
+      await db
+        .update(designs)
+        .set({ latestVersion: version.number, updatedAt: version.createdAt })
+        .where(eq(designs.id, version.designId));
+    },
+
+    async updateDesign(
+      designId: string,
+      patch: Partial<Pick<DesignRow, 'title' | 'tags' | 'archived' | 'baselineVersion' | 'updatedAt'>>,
+    ) {
+      await db.update(designs).set(patch).where(eq(designs.id, designId));
+    },
+
+    async insertShareLink(link: typeof shareLinks.$inferInsert) {
+      await db.insert(shareLinks).values(link);
+    },
+
+    async shareLinks(designId: string) {
+      return db
+        .select({ link: shareLinks, creatorName: linkCreator.displayName })
+        .from(shareLinks)
+        .leftJoin(linkCreator, eq(linkCreator.id, shareLinks.createdBy))
+        .where(eq(shareLinks.designId, designId))
+        .orderBy(desc(shareLinks.createdAt), asc(shareLinks.id));
+    },
+
+    async revokeShareLink(designId: string, linkId: string, at: Date): Promise<boolean> {
+      const rows = await db
+        .update(shareLinks)
+        .set({ revokedAt: at })
+        .where(
+          and(eq(shareLinks.designId, designId), eq(shareLinks.id, linkId), isNull(shareLinks.revokedAt)),
+        )
+        .returning({ id: shareLinks.id });
+      if (rows.length > 0) return true;
+      const [existing] = await db
+        .select({ id: shareLinks.id })
+        .from(shareLinks)
+        .where(
+          and(eq(shareLinks.designId, designId), eq(shareLinks.id, linkId), isNotNull(shareLinks.revokedAt)),
+        );
+      return existing !== undefined;
+    },
+
+    async shareLinkByTokenHash(tokenHash: string) {
+      const [row] = await db
+        .select({ link: shareLinks, title: designs.title, latestVersion: designs.latestVersion })
+        .from(shareLinks)
+        .innerJoin(designs, eq(designs.id, shareLinks.designId))
+        .where(eq(shareLinks.tokenHash, tokenHash));
+      return row ?? null;
+    },
+  };
+}
+
+export type NotebookQueries = ReturnType<typeof queries>;
+
+export function createNotebooksRepository(db: Database) {
+  const base = queries(db);
+  return {
+    ...base,
+    /**
+     * Runs `work` in one transaction. PGlite has one connection and Drizzle's transaction takes its
+     * lock, so a read-latest-then-insert inside cannot interleave with another save.
+     */
+    inTransaction<T>(work: (repo: NotebookQueries) => Promise<T>): Promise<T> {
+      return db.transaction((tx) => work(queries(tx as unknown as Database)));
+    },
+  };
+}
+
+export type NotebooksRepository = ReturnType<typeof createNotebooksRepository>;
