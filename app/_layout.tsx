@@ -30,6 +30,7 @@ export default function RootLayout() {
           <Stack.Screen name="workbench" options={{ title: 'Workbench' }} />
           <Stack.Screen name="(auth)" options={{ title: 'Account' }} />
           <Stack.Screen name="(workspace)" options={{ title: 'Teams' }} />
+          <Stack.Screen name="share/[token]" options={{ title: 'Shared design' }} />
           <Stack.Screen name="+not-found" options={{ title: 'Not found' }} />
         </Stack>
       </ThemeProvider>

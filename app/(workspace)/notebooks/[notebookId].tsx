@@ -1,0 +1,3 @@
+import { NotebookScreen } from '@/features/notebooks';
+
+export default NotebookScreen;

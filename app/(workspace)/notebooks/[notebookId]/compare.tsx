@@ -1,0 +1,3 @@
+import { CompareScreen } from '@/features/notebooks';
+
+export default CompareScreen;

@@ -1,0 +1,3 @@
+import { NotebooksHomeScreen } from '@/features/notebooks';
+
+export default NotebooksHomeScreen;

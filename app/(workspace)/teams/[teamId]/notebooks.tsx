@@ -1,0 +1,3 @@
+import { NotebookListScreen } from '@/features/notebooks';
+
+export default NotebookListScreen;

@@ -1,0 +1,3 @@
+import { ShareScreen } from '@/features/notebooks';
+
+export default ShareScreen;

@@ -1,0 +1,247 @@
+import { useRouter, type Href } from 'expo-router';
+import { useCallback, useEffect, useRef, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { versionMessageSchema, type Notebook, type Version } from '@/shared/notebooks';
+import { can, roleLabels } from '@/shared/teams';
+import { ApiError } from '@/features/api';
+import { Button, Card, Text, colors, space } from '@/features/ui';
+import { draftFromDesign, formToDesign, Workbench, type Draft, type FormResult } from '@/features/workbench';
+import { clearEdits, loadEdits, notebookDraftKey, saveEdits, type StoredEdits } from '../draft-store';
+import { formatWhen } from '../format';
+import { useSaveVersionMutation, useVersionQuery, VersionConflict } from '../queries';
+import { changedPaths, reapplyEdits } from '../rebase';
+import { ConflictCard } from './conflict-card';
+import { MarkdownView } from './markdown-view';
+import { SaveCard } from './save-card';
+
+type Props = {
+  design: Notebook;
+  version: Version;
+  latest: Version;
+  userId: string;
+  /** Remount the workbench from what is now in storage (after a rebase or a discard). */
+  onRestart: (note?: string) => void;
+  rebaseNote: string | null;
+};
+
+/** The workbench on one version, with the save flow for owners on the latest version. */
+export function DesignTab({ design, version, latest, userId, onRestart, rebaseNote }: Props) {
+  const router = useRouter();
+  const isLatest = version.number === latest.number;
+  const editable = can(design.role, 'designs.edit') && isLatest && !design.archived;
+  const key = notebookDraftKey(userId, design.id);
+
+  // Read once per mount: the kept edits when there are any, else the version as saved.
+  const [start] = useState<StoredEdits>(() => {
+    const stored = editable ? loadEdits(key) : null;
+    return stored ?? { draft: draftFromDesign(version.params), baseVersion: version.number, notes: version.notes, message: '' };
+  });
+  const [notes, setNotes] = useState(start.notes);
+  const [message, setMessage] = useState(start.message);
+  const [result, setResult] = useState<FormResult | null>(null);
+  const [conflict, setConflict] = useState<Version | null>(null);
+  const [messageError, setMessageError] = useState<string | null>(null);
+  const [formError, setFormError] = useState<string | null>(null);
+  const save = useSaveVersionMutation(design.id);
+  const draftRef = useRef<Draft>(start.draft);
+  const textRef = useRef({ notes, message });
+  useEffect(() => {
+    textRef.current = { notes, message };
+  }, [notes, message]);
+
+  const base = start.baseVersion;
+  const stale = editable && base < latest.number;
+  const shownConflict = conflict ?? (stale ? latest : null);
+  const baseVersion = useVersionQuery(design.id, shownConflict ? base : null);
+
+  const isDirty = useCallback(
+    (draft: Draft, text: { notes: string; message: string }) => {
+      if (base !== version.number) return true;
+      const typed = formToDesign(draft.values);
+      return !typed.ok || changedPaths(version.params, typed.design).length > 0 || text.notes !== version.notes || text.message.trim() !== '';
+    },
+    [base, version],
+  );
+
+  const persist = useCallback(
+    (draft: Draft, text: { notes: string; message: string }) => {
+      if (!editable) return;
+      if (isDirty(draft, text)) saveEdits(key, { draft, baseVersion: base, ...text });
+      else clearEdits(key);
+    },
+    [editable, isDirty, key, base],
+  );
+
+  const onDraftChange = useCallback(
+    (draft: Draft) => {
+      draftRef.current = draft;
+      persist(draft, textRef.current);
+    },
+    [persist],
+  );
+  const initial = useCallback(() => start.draft, [start]);
+
+  const changeNotes = (next: string) => {
+    setNotes(next);
+    persist(draftRef.current, { notes: next, message });
+  };
+  const changeMessage = (next: string) => {
+    setMessage(next);
+    setMessageError(null);
+    persist(draftRef.current, { notes, message: next });
+  };
+
+  const mine = result?.ok ? result.design : null;
+  const nothingChanged = mine !== null && base === version.number && changedPaths(version.params, mine).length === 0 && notes === version.notes;
+  const blockedReason = !result
+    ? 'Reading the design…'
+    : !result.ok
+      ? 'Some fields are refused; fix them in the editor before saving.'
+      : nothingChanged
+        ? 'Nothing has changed since this version yet.'
+        : null;
+
+  const submit = async (onTopOf?: Version) => {
+    if (!mine) return;
+    setFormError(null);
+    const checked = versionMessageSchema.safeParse(message);
+    if (!checked.success) {
+      setMessageError(`The message ${checked.error.issues[0]?.message ?? 'is not valid'}`);
+      return;
+    }
+    try {
+      const saved = await save.mutateAsync({ baseVersion: onTopOf ? onTopOf.number : base, params: mine, notes, message: checked.data });
+      clearEdits(key);
+      setConflict(null);
+      if (version.number !== saved.version.number) router.replace(`/notebooks/${design.id}` as Href);
+    } catch (error) {
+      if (error instanceof VersionConflict) {
+        setConflict(error.latest);
+      } else if (error instanceof ApiError) {
+        setFormError(Object.keys(error.fields).length > 0 ? Object.entries(error.fields).map(([path, why]) => `${path} ${why}`).join('; ') : error.message);
+      } else {
+        setFormError('The version could not be saved. Your edits are kept in this browser; try again.');
+      }
+    }
+  };
+
+  const reapply =
+    shownConflict && baseVersion.data && mine
+      ? () => {
+          const rebased = reapplyEdits(baseVersion.data.params, mine, shownConflict.params);
+          saveEdits(key, { draft: draftFromDesign(rebased.design), baseVersion: shownConflict.number, notes, message });
+          onRestart(
+            rebased.overridden.length > 0
+              ? `Re-applied your changes on v${shownConflict.number}. Where both changed the same field yours won: ${rebased.overridden.map((o) => o.path).join(', ')}.`
+              : `Re-applied your changes on v${shownConflict.number}. Check the figures, then save.`,
+          );
+        }
+      : null;
+
+  const discard = () => {
+    clearEdits(key);
+    onRestart();
+  };
+
+  const startFromThis = () => {
+    if (loadEdits(key)) {
+      setFormError('You have unsaved edits on the latest version. Save or drop them there first.');
+      return;
+    }
+    saveEdits(key, { draft: draftFromDesign(version.params), baseVersion: latest.number, notes: version.notes, message: `Back to v${version.number}` });
+    router.push(`/notebooks/${design.id}` as Href);
+  };
+
+  const readOnlyWhy = !can(design.role, 'designs.edit')
+    ? `You are ${roleLabels[design.role].toLowerCase()} of this team: you can read, compare and clone this design, not change it.`
+    : design.archived
+      ? 'This design is archived; bring it back from the list to edit it.'
+      : null;
+
+  const header = (
+    <View style={styles.header}>
+      <View style={styles.versionLine} testID="version-line">
+        <Text weight="semibold">
+          v{version.number} of {latest.number}
+          {isLatest ? ' (latest)' : ''}
+          {design.baselineVersion === version.number ? ' · team baseline' : ''}
+        </Text>
+        <Text variant="small" tone="muted">
+          “{version.message}” · {version.author?.displayName ?? 'Former member'} · {formatWhen(version.createdAt)}
+        </Text>
+      </View>
+      {readOnlyWhy ? (
+        <Text variant="small" tone="muted" testID="read-only-note">
+          {readOnlyWhy}
+        </Text>
+      ) : null}
+      {!isLatest ? (
+        <Card testID="older-version">
+          <Text>This is an older version; it is shown read-only.</Text>
+          <View style={styles.actions}>
+            <Button kind="secondary" label={`Open the latest (v${latest.number})`} onPress={() => router.push(`/notebooks/${design.id}` as Href)} testID="open-latest" />
+            {can(design.role, 'designs.edit') && !design.archived ? (
+              <Button kind="quiet" label={`Start v${latest.number + 1} from this version`} onPress={startFromThis} testID="start-from-version" />
+            ) : null}
+          </View>
+          {formError && !editable ? (
+            <Text role="alert" tone="danger">
+              {formError}
+            </Text>
+          ) : null}
+        </Card>
+      ) : null}
+      {rebaseNote && editable ? (
+        <Text role="status" tone="ok" weight="semibold" testID="rebase-note">
+          {rebaseNote}
+        </Text>
+      ) : null}
+      {editable && shownConflict ? (
+        <ConflictCard
+          latest={shownConflict}
+          baseVersion={base}
+          mine={mine}
+          myNotes={notes}
+          busy={save.isPending}
+          onReapply={reapply}
+          onSaveOnTop={() => void submit(shownConflict)}
+          onDiscard={discard}
+        />
+      ) : null}
+      {editable ? (
+        <SaveCard
+          message={message}
+          notes={notes}
+          onChangeMessage={changeMessage}
+          onChangeNotes={changeNotes}
+          messageError={messageError}
+          formError={formError}
+          blockedReason={shownConflict ? 'Choose how to go on with the newer version above first.' : blockedReason}
+          nextNumber={(shownConflict?.number ?? latest.number) + 1}
+          busy={save.isPending}
+          onSave={() => void submit()}
+        />
+      ) : null}
+      <Card title={`Notes of v${version.number}`} testID="notes-card">
+        <MarkdownView source={version.notes} testID="notes" />
+      </Card>
+    </View>
+  );
+
+  return (
+    <Workbench
+      key={`${design.id}:${version.number}`}
+      initial={initial}
+      onDraftChange={onDraftChange}
+      onResultChange={setResult}
+      header={header}
+      readOnly={!editable}
+    />
+  );
+}
+
+const styles = StyleSheet.create({
+  header: { gap: space.md },
+  versionLine: { gap: space.xxs, borderLeftWidth: 3, borderLeftColor: colors.accent, paddingLeft: space.sm },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+});

@@ -1,0 +1,173 @@
+import { Pressable, StyleSheet, View, type TextStyle } from 'react-native';
+import type { VersionHeader } from '@/shared/notebooks';
+import { Text, colors, fonts, radius, space, useLayout } from '@/features/ui';
+import { formatWhen, summaryFigures } from '../format';
+
+type Props = {
+  versions: readonly VersionHeader[];
+  /** The version on screen, marked in the table. */
+  current: number;
+  baselineVersion: number | null;
+  onOpen: (n: number) => void;
+  onCompare: (a: number, b: number) => void;
+};
+
+const columns = ['Version', 'Message', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', ''] as const;
+const columnStyle: TextStyle[] = [
+  { width: 72 },
+  { flex: 2, minWidth: 0 },
+  { flex: 1, minWidth: 0 },
+  { width: 150 },
+  { width: 120 },
+  { width: 96 },
+  { width: 72 },
+  { width: 72 },
+  { width: 190 },
+];
+
+function Badge({ label, tone }: { label: string; tone: 'accent' | 'primary' }) {
+  return (
+    <View style={[styles.badge, tone === 'accent' ? styles.badgeAccent : styles.badgePrimary]}>
+      <Text variant="caption" weight="semibold" style={tone === 'accent' ? styles.badgeAccentText : styles.badgePrimaryText}>
+        {label}
+      </Text>
+    </View>
+  );
+}
+
+/** Newest first: number, author, date, message and the figures a reviewer scans for. */
+export function HistoryTable({ versions, current, baselineVersion, onOpen, onCompare }: Props) {
+  const layout = useLayout();
+  const wide = layout !== 'phone';
+  return (
+    <View role="table" aria-label="Version history" testID="history-table">
+      {wide ? (
+        <View role="row" style={[styles.row, styles.headerRow]}>
+          {columns.map((title, i) => (
+            <Text key={title || 'actions'} role="columnheader" variant="caption" tone="muted" weight="semibold" style={columnStyle[i]}>
+              {title.toUpperCase()}
+            </Text>
+          ))}
+        </View>
+      ) : null}
+      {versions.map((version) => {
+        const figures = summaryFigures(version.summary);
+        const marks = (
+          <>
+            {version.number === current ? <Badge label="On screen" tone="primary" /> : null}
+            {version.number === baselineVersion ? <Badge label="Baseline" tone="accent" /> : null}
+          </>
+        );
+        const actions = (
+          <View style={styles.actions}>
+            {version.number !== current ? (
+              <Pressable role="link" onPress={() => onOpen(version.number)} testID={`open-v${version.number}`} style={styles.linkBox}>
+                <Text weight="semibold" style={styles.link}>
+                  Open
+                </Text>
+              </Pressable>
+            ) : null}
+            {version.parentNumber !== null ? (
+              <Pressable
+                role="link"
+                accessibilityLabel={`Compare version ${version.number} with version ${version.parentNumber}`}
+                onPress={() => onCompare(version.parentNumber as number, version.number)}
+                testID={`compare-v${version.number}`}
+                style={styles.linkBox}
+              >
+                <Text weight="semibold" style={styles.link}>
+                  Compare with v{version.parentNumber}
+                </Text>
+              </Pressable>
+            ) : null}
+          </View>
+        );
+        const author = version.author?.displayName ?? 'Former member';
+        if (!wide) {
+          return (
+            <View key={version.number} role="row" style={[styles.block, version.number === current && styles.currentRow]} testID={`history-v${version.number}`}>
+              <View style={styles.blockLine}>
+                <Text role="cell" variant="number" weight="semibold">
+                  v{version.number}
+                </Text>
+                {marks}
+              </View>
+              <Text role="cell" weight="semibold">
+                {version.message}
+              </Text>
+              <Text role="cell" variant="small" tone="muted">
+                {author} · {formatWhen(version.createdAt)}
+              </Text>
+              <Text role="cell" variant="small">
+                {figures.range} · bandpass {figures.bandpass} · R {figures.resolvingPower} · {figures.fNumber}
+              </Text>
+              {actions}
+            </View>
+          );
+        }
+        return (
+          <View key={version.number} role="row" style={[styles.row, version.number === current && styles.currentRow]} testID={`history-v${version.number}`}>
+            <View role="cell" style={[columnStyle[0], styles.cellStack]}>
+              <Text variant="number" weight="semibold">
+                v{version.number}
+              </Text>
+              {marks}
+            </View>
+            <Text role="cell" style={columnStyle[1]}>
+              {version.message}
+            </Text>
+            <Text role="cell" variant="small" tone="muted" style={columnStyle[2]}>
+              {author}
+            </Text>
+            <Text role="cell" variant="small" tone="muted" style={columnStyle[3]}>
+              {formatWhen(version.createdAt)}
+            </Text>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[4]]}>
+              {figures.range}
+            </Text>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[5]]}>
+              {figures.bandpass}
+            </Text>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[6]]}>
+              {figures.resolvingPower}
+            </Text>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[7]]}>
+              {figures.fNumber}
+            </Text>
+            <View role="cell" style={columnStyle[8]}>
+              {actions}
+            </View>
+          </View>
+        );
+      })}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    paddingVertical: space.sm,
+    paddingHorizontal: space.sm,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
+  headerRow: { borderBottomWidth: 2 },
+  currentRow: { backgroundColor: '#FFF8F1' },
+  cellStack: { gap: space.xxs, alignItems: 'flex-start' },
+  figure: { fontSize: 14 },
+  block: { gap: space.xxs, paddingVertical: space.md, paddingHorizontal: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
+  blockLine: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.md },
+  linkBox: { minHeight: 32, justifyContent: 'center' },
+  link: { color: colors.primary, fontSize: 14, textDecorationLine: 'underline', fontFamily: fonts.semibold },
+  badge: { borderRadius: radius.sm, paddingHorizontal: space.xs, alignSelf: 'flex-start' },
+  badgeAccent: { backgroundColor: colors.accent },
+  badgeAccentText: { color: colors.onPrimary },
+  badgePrimary: { backgroundColor: colors.surfaceSunken },
+  badgePrimaryText: { color: colors.primary },
+});
+
+export { Badge };

@@ -1,0 +1,38 @@
+import { useRouter, type Href } from 'expo-router';
+import { Pressable, ScrollView, StyleSheet, Text } from 'react-native';
+import type { Team } from '@/shared/teams';
+import { colors, fonts, minTouch, radius, space, type } from '@/features/ui';
+
+/** The user's teams as tabs leading to each team's designs (the team switcher leads to members). */
+export function TeamTabs({ teams, currentTeamId }: { teams: readonly Team[]; currentTeamId: string }) {
+  const router = useRouter();
+  return (
+    <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.row} role="tablist" aria-label="Your teams" testID="notebook-team-tabs">
+      {teams.map((team) => {
+        const current = team.id === currentTeamId;
+        return (
+          <Pressable
+            key={team.id}
+            role="tab"
+            aria-selected={current}
+            onPress={() => router.push(`/teams/${team.id}/notebooks` as Href)}
+            style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.tab, current && styles.current, hovered && !current && styles.hovered]}
+          >
+            <Text style={[styles.label, current && styles.labelCurrent]} numberOfLines={1}>
+              {team.personal ? 'Personal workspace' : team.name}
+            </Text>
+          </Pressable>
+        );
+      })}
+    </ScrollView>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { gap: space.sm, paddingVertical: space.xxs },
+  tab: { minHeight: minTouch - 4, justifyContent: 'center', paddingHorizontal: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface, maxWidth: 240 },
+  current: { backgroundColor: colors.primary, borderColor: colors.primary },
+  hovered: { backgroundColor: colors.surfaceSunken },
+  label: { ...type.small, fontFamily: fonts.semibold, color: colors.ink },
+  labelCurrent: { color: colors.onPrimary },
+});
