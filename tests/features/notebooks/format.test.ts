@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+import { changeTone, describePath, formatFigure, formatRelativeChange } from '../../../features/notebooks/format';
+
+describe('changes between versions, in words', () => {
+  it.each([
+    { relative: -0.12, text: '−12\u2009%' },
+    { relative: 0.034, text: '+3.4\u2009%' },
+    { relative: 0, text: '±0\u2009%' },
+    { relative: 0.00001, text: '±0\u2009%' },
+    { relative: 1.5, text: '+150\u2009%' },
+    { relative: null, text: '—' },
+  ] satisfies { relative: number | null; text: string }[])('$relative reads "$text"', ({ relative, text }) => {
+    expect(formatRelativeChange(relative)).toBe(text);
+  });
+
+  it('calls a narrower bandpass better and a lower R worse', () => {
+    expect(changeTone('bandpassAtCentreNm', -0.12)).toBe('ok');
+    expect(changeTone('resolvingPowerAtCentre', -0.12)).toBe('danger');
+    expect(changeTone('fNumber', 0.2)).toBe('muted');
+  });
+
+  it('writes figures with their units', () => {
+    expect(formatFigure('bandpassAtCentreNm', 0.5234)).toBe('0.5234 nm');
+    expect(formatFigure('fNumber', 4.06)).toBe('f/4.06');
+    expect(formatFigure('resolvingPowerAtCentre', null)).toBe('—');
+  });
+
+  it('names parameter paths the way the editor labels them', () => {
+    expect(describePath('slits.exitWidthUm')).toBe('Slits: exit width (µm)');
+    expect(describePath('detector')).toBe('Detector');
+  });
+});
