@@ -199,7 +199,7 @@ export const sections: readonly SectionSpec[] = [
       {
         kind: 'quantity',
         path: 'range.startNm',
-        label: 'From',
+        label: 'Range start',
         unit: 'nm',
         unitLabel: 'nm',
         step: 10,
@@ -209,7 +209,7 @@ export const sections: readonly SectionSpec[] = [
       {
         kind: 'quantity',
         path: 'range.endNm',
-        label: 'To',
+        label: 'Range end',
         unit: 'nm',
         unitLabel: 'nm',
         step: 10,

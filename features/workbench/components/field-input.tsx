@@ -1,4 +1,4 @@
-import { memo } from 'react';
+import { memo, useState } from 'react';
 import { useController, type Control } from 'react-hook-form';
 import { Button, TextField } from '@/features/ui';
 import type { FieldSpec } from '../fields';
@@ -23,12 +23,16 @@ export const FieldInput = memo(function FieldInput({ control, field, highlighted
   const text = typeof input.value === 'string' ? input.value : '';
   const canonical = field.kind === 'quantity' ? canonicalText(field, text) : null;
   const unitLabel = field.kind === 'quantity' ? field.unitLabel : undefined;
+  // While typing, say what the field wants; once it reads, say what it was read as.
+  const [focused, setFocused] = useState(false);
   const hint =
     canonical !== null
       ? `= ${canonical} ${unitLabel ?? ''}`.trim()
-      : field.optional && text === ''
-        ? 'optional'
-        : null;
+      : focused
+        ? field.help
+        : field.optional && text === ''
+          ? 'optional'
+          : null;
   const change = (next: string) => {
     markEditStart();
     input.onChange(next);
@@ -44,7 +48,9 @@ export const FieldInput = memo(function FieldInput({ control, field, highlighted
       label={field.label}
       value={text}
       onChangeText={change}
+      onFocus={() => setFocused(true)}
       onBlur={() => {
+        setFocused(false);
         if (canonical !== null && !fieldState.error) input.onChange(canonical);
         input.onBlur();
       }}

@@ -30,7 +30,7 @@ export const WarningList = memo(function WarningList({ warnings, onShowField }: 
                 testID={`warning-${warning.code}`}
               >
                 <Text style={styles.message}>{warning.message}</Text>
-                <Text style={styles.link}>Go to {fieldLabel(path).toLowerCase()} →</Text>
+                <Text style={styles.link}>Go to {fieldLabel(path)} →</Text>
               </Pressable>
             );
           })}

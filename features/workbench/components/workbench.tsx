@@ -102,6 +102,10 @@ export function Workbench({
 
   const dimmed = bench.blockedBy !== null;
   const selectedNm = bench.selected.ok ? bench.selected.wavelengthNm : null;
+  // The sketch turns the grating to the read-out wavelength when it can; otherwise it keeps its
+  // default (the range centre) rather than drawing an empty mount.
+  const sketchSettingNm =
+    bench.selected.ok && bench.selected.point.reachable ? bench.selected.wavelengthNm : null;
   const { setSelectedText } = bench;
   const onSelectWavelength = useCallback(
     (nm: number) => setSelectedText(String(Math.round(nm * 10) / 10)),
@@ -137,11 +141,11 @@ export function Workbench({
             evaluation={bench.evaluation}
             width={Math.max(240, graphicsWidth - 2 * space.lg - 2)}
             // A scanning instrument turns its grating: draw it set for the wavelength being read out.
-            settingNm={selectedNm}
+            settingNm={sketchSettingNm}
           />
         </View>
         <View style={styles.actions}>
-          <SaveSketchButton design={bench.design} settingNm={selectedNm} />
+          <SaveSketchButton design={bench.design} settingNm={sketchSettingNm} />
         </View>
       </Card>
       <Card title="Across the range" testID="plots-card">
