@@ -243,8 +243,14 @@ export type VersionConflictBody = z.infer<typeof versionConflictBodySchema>;
 
 // ── compare ─────────────────────────────────────────────────────────────────────────────────
 
-/** `GET /api/designs/:id/compare?a=1&b=3`: `a` is "before", `b` is "after". */
-export const compareQuerySchema = z.object({ a: versionNumberText, b: versionNumberText });
+/**
+ * `GET /api/designs/:id/compare?a=1&b=3`: `a` is "before", `b` is "after". Without `b`, the latest;
+ * without `a`, the parent of `b` (itself for version 1).
+ */
+export const compareQuerySchema = z.object({
+  a: versionNumberText.optional(),
+  b: versionNumberText.optional(),
+});
 
 export const parameterChangeSchema = z.object({
   /** Dotted path into the design, e.g. `slits.exitWidthUm`; a section present in only one side is one entry. */

@@ -306,11 +306,19 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       return withVersion(user, designId, outcome.n);
     },
 
-    async compare(user: User, designId: string, a: number, b: number): Promise<CompareResponse> {
-      await designFor(user, designId, 'designs.read');
-      const [before, after] = [await repository.version(designId, a), await repository.version(designId, b)];
-      if (!before) throw versionNotFound(a);
-      if (!after) throw versionNotFound(b);
+    async compare(
+      user: User,
+      designId: string,
+      a: number | undefined,
+      b: number | undefined,
+    ): Promise<CompareResponse> {
+      const { design } = await designFor(user, designId, 'designs.read');
+      const bNumber = b ?? design.latestVersion;
+      const after = await repository.version(designId, bNumber);
+      if (!after) throw versionNotFound(bNumber);
+      const aNumber = a ?? after.parentNumber ?? after.number;
+      const before = await repository.version(designId, aNumber);
+      if (!before) throw versionNotFound(aNumber);
       return {
         a: toVersion(before),
         b: toVersion(after),

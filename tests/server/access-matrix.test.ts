@@ -34,6 +34,20 @@ const signedIn = (status: number): Statuses => ({ ...everyone(status), anonymous
 const members = (status: number): Statuses => ({ owner: status, reviewer: status, viewer: status, outsider: 404, anonymous: 401 });
 const ownersOnly = (status: number): Statuses => ({ owner: status, reviewer: 403, viewer: 403, outsider: 404, anonymous: 401 });
 
+/** One design in Team A for the read cases; writes that need a clean state make their own. */
+let matrixDesign: Promise<string> | undefined;
+async function newDesign(fx: Fixture): Promise<string> {
+  const res = await (await fx.agent('owner')).post(`/api/teams/${fx.teamId}/designs`).send({ title: 'Matrix design', params: exampleDesign }).expect(201);
+  return res.body.design.id as string;
+}
+const design = (fx: Fixture) => (matrixDesign ??= newDesign(fx));
+async function newShareLink(fx: Fixture): Promise<{ id: string; designId: string; token: string }> {
+  const designId = await design(fx);
+  const res = await (await fx.agent('owner')).post(`/api/designs/${designId}/share-links`).send({}).expect(201);
+  return { id: res.body.link.id, designId, token: res.body.token };
+}
+const designParams = async (fx: Fixture): Promise<Case> => ({ params: { id: await design(fx) } });
+
 let unique = 0;
 const freshEmail = () => `matrix-${(unique += 1)}@example.com`;
 const password = testPassword;
@@ -88,6 +102,46 @@ const matrix: Record<string, Row> = {
     expect: ownersOnly(204),
     prepare: async (fx) => ({ params: { invitationId: (await fx.invite(fx.teamId, freshEmail())).id } }),
   },
+
+  // Design notebooks: members read and clone, owners write; outsiders learn nothing (404).
+  'GET /api/teams/:teamId/designs': { expect: members(200) },
+  'POST /api/teams/:teamId/designs': { expect: ownersOnly(201), prepare: async () => ({ body: { title: 'Matrix notebook', params: exampleDesign } }) },
+  'POST /api/teams/:teamId/designs/import': {
+    expect: ownersOnly(201),
+    prepare: async () => ({
+      body: {
+        kind: 'blazebook-notebook',
+        formatVersion: 1,
+        title: 'Imported in the matrix',
+        versions: [{ number: 1, message: 'Start', params: exampleDesign, createdAt: '2026-01-05T10:00:00Z' }],
+      },
+    }),
+  },
+  'GET /api/designs/:id': { expect: members(200), prepare: designParams },
+  'PATCH /api/designs/:id': { expect: ownersOnly(200), prepare: async (fx) => ({ ...(await designParams(fx)), body: { tags: ['matrix'] } }) },
+  'GET /api/designs/:id/versions': { expect: members(200), prepare: designParams },
+  // A design of its own per case, so every save is on top of the latest.
+  'POST /api/designs/:id/versions': {
+    expect: ownersOnly(201),
+    prepare: async (fx) => ({ params: { id: await newDesign(fx) }, body: { baseVersion: 1, params: exampleDesign, message: 'Matrix save' } }),
+  },
+  'GET /api/designs/:id/versions/:n': { expect: members(200), prepare: async (fx) => ({ params: { id: await design(fx), n: '1' } }) },
+  'GET /api/designs/:id/compare': { expect: members(200), prepare: designParams },
+  // Into the caller's own workspace, where everyone is owner.
+  'POST /api/designs/:id/clone': { expect: members(201), prepare: async (fx) => ({ ...(await designParams(fx)), body: {} }) },
+  'PUT /api/designs/:id/baseline': { expect: ownersOnly(200), prepare: async (fx) => ({ ...(await designParams(fx)), body: { version: 1 } }) },
+  'GET /api/designs/:id/share-links': { expect: ownersOnly(200), prepare: designParams },
+  'POST /api/designs/:id/share-links': { expect: ownersOnly(201), prepare: async (fx) => ({ ...(await designParams(fx)), body: { version: 1 } }) },
+  'DELETE /api/designs/:id/share-links/:linkId': {
+    expect: ownersOnly(204),
+    prepare: async (fx) => {
+      const link = await newShareLink(fx);
+      return { params: { id: link.designId, linkId: link.id } };
+    },
+  },
+  'GET /api/designs/:id/export': { expect: members(200), prepare: designParams },
+  // The token is the credential: signed in or not, member or not, it shows one version and nothing else.
+  'GET /api/share/:token': { expect: everyone(200), prepare: async (fx) => ({ params: { token: (await newShareLink(fx)).token } }) },
 
   // Anyone holding the link may read what it offers; only its addressee may accept it.
   'GET /api/invitations/:token': {
@@ -181,7 +235,7 @@ describe('access matrix: every API route × every kind of caller', () => {
       return encodeURIComponent(value);
     });
     const agent = await fx.agent(actor);
-    const call = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](path);
+    const call = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](path);
     const res = await (prepared.body === undefined ? call : call.send(prepared.body as object));
     expect({ status: res.status, error: res.status >= 400 ? res.body?.error?.message : undefined }).toMatchObject({ status });
   });
@@ -191,6 +245,13 @@ describe('access matrix: every API route × every kind of caller', () => {
     const real = await outsider.get(`/api/teams/${fx.teamId}/members`).expect(404);
     const made_up = await outsider.get('/api/teams/no-such-team/members').expect(404);
     expect(real.body).toEqual(made_up.body);
+  });
+
+  it('answers an outsider about a real design exactly as about a made-up one', async () => {
+    const outsider = await fx.agent('outsider');
+    const real = await outsider.get(`/api/designs/${await design(fx)}/versions/1`).expect(404);
+    const madeUp = await outsider.get('/api/designs/no-such-design/versions/1').expect(404);
+    expect(real.body).toEqual(madeUp.body);
   });
 
   it('has no dev outbox in production', async () => {

@@ -228,12 +228,17 @@ describe('compare', () => {
     expect(bandpass.after! / bandpass.before!).toBeCloseTo(0.5, 9);
     const fNumber = body.figures.find((f) => f.key === 'fNumber')!;
     expect(fNumber.relativeChange).toBe(0);
+    // Without numbers: the latest against its parent.
+    const latest = compareResponseSchema.parse(
+      (await fx.viewer.agent.get(`/api/designs/${design.id}/compare`).expect(200)).body,
+    );
+    expect([latest.a.number, latest.b.number, latest.changes.length]).toEqual([1, 2, 4]);
   });
 
   it('reports an unknown version as 404 and bad numbers as 400', async () => {
     const { design } = await createNotebook(fx, 'Compare errors');
     await fx.owner.agent.get(`/api/designs/${design.id}/compare?a=1&b=4`).expect(404);
-    const res = await fx.owner.agent.get(`/api/designs/${design.id}/compare?a=zero`).expect(400);
+    const res = await fx.owner.agent.get(`/api/designs/${design.id}/compare?a=zero&b=1.5`).expect(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['a', 'b']);
   });
 });
