@@ -6,6 +6,7 @@ import { hashPassword } from '../auth/password';
 import { createAuthRepository } from '../auth/repository';
 import type { Clock } from '../clock';
 import { createTeamsRepository } from '../teams/repository';
+import { demoNotebooks, seedDemoNotebooks } from './notebooks';
 import { createSeedRepository } from './repository';
 
 /** Invented people and an invented lab: any likeness to real ones is an accident. */
@@ -44,9 +45,11 @@ export async function seedDemoData({ database, clock }: { database: DatabaseHand
   for (const [index, person] of demoUsers.entries()) {
     if (person.role !== 'owner') await teams.addMember(teamId, ids[index]!, person.role, now);
   }
+  await seedDemoNotebooks(database, teamId, ids[0]!, now);
   await meta.setMeta(seededKey, now.toISOString(), now);
   return [
     `Demo data: the team “${demoTeamName}” with three accounts (password: ${demoPassword})`,
     ...demoUsers.map((person) => `  ${person.role.padEnd(9)}${person.email}  (${person.displayName})`),
+    `  notebooks: ${demoNotebooks.map((notebook) => `“${notebook.title}”`).join(', ')}`,
   ];
 }
