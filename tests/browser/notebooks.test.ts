@@ -56,6 +56,7 @@ describe('design notebooks in Chromium', () => {
   it('creates a notebook from the team’s design list', async () => {
     await page.goto(`${server.url}/teams/${teamId}/notebooks`);
     await page.getByTestId('list-heading').waitFor();
+    await page.getByTestId('show-create').click();
     await page.getByTestId('new-title').fill(title);
     await page.getByTestId('new-from-visible-scanner').click();
     await page.getByTestId('create-design').click();

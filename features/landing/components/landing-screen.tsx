@@ -1,4 +1,4 @@
-import { useRouter } from 'expo-router';
+import { useRouter, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { Button, Card, Heading, Screen, Text, colors, space, useLayout } from '@/features/ui';
 import { useHealthQuery } from '@/features/health';
@@ -62,6 +62,7 @@ export function LandingScreen() {
         <ServerStatus />
         <View style={styles.actions}>
           <Button label="Open the workbench" onPress={() => router.push('/workbench')} testID="open-workbench" />
+          <Button kind="secondary" label="Team notebooks" onPress={() => router.push('/notebooks' as Href)} testID="open-notebooks" />
         </View>
       </View>
       <View style={[styles.grid, layout !== 'phone' && styles.gridWide]}>
@@ -89,7 +90,7 @@ export function LandingScreen() {
 const styles = StyleSheet.create({
   hero: { gap: space.md, paddingVertical: space.xl },
   kicker: { letterSpacing: 1.5 },
-  actions: { flexDirection: 'row', paddingTop: space.sm },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, paddingTop: space.sm },
   status: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   dot: { width: 10, height: 10, borderRadius: 5 },
   grid: { gap: space.lg },

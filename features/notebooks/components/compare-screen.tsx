@@ -19,7 +19,7 @@ function FiguresTable({ data }: { data: CompareResponse }) {
     <View role="table" aria-label="Derived figures" testID="compare-figures">
       <View role="row" style={[styles.row, styles.headerRow]}>
         {['Figure', `v${data.a.number}`, `v${data.b.number}`, 'Change'].map((title, i) => (
-          <Text key={title} role="columnheader" variant="caption" tone="muted" weight="semibold" style={i === 0 ? styles.wideCell : styles.cell}>
+          <Text key={title} role="columnheader" variant="caption" tone="muted" weight="semibold" style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}>
             {title.toUpperCase()}
           </Text>
         ))}
@@ -62,7 +62,7 @@ function ParametersTable({ data }: { data: CompareResponse }) {
       <View role="table" aria-label="Parameters" testID="compare-params">
         <View role="row" style={[styles.row, styles.headerRow]}>
           {['Parameter', `v${data.a.number}`, `v${data.b.number}`].map((title, i) => (
-            <Text key={title} role="columnheader" variant="caption" tone="muted" weight="semibold" style={i === 0 ? styles.wideCell : styles.cell}>
+            <Text key={title} role="columnheader" variant="caption" tone="muted" weight="semibold" style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}>
               {title.toUpperCase()}
             </Text>
           ))}
@@ -233,6 +233,7 @@ const styles = StyleSheet.create({
   wideCell: { flex: 2, minWidth: 0 },
   cell: { flex: 1, minWidth: 0 },
   num: { fontSize: 14, textAlign: 'right' },
+  numHead: { textAlign: 'right' },
   after: { color: colors.accent, fontFamily: fonts.semibold },
   inlineLink: { color: colors.primary, textDecorationLine: 'underline' },
   legend: { gap: space.xs },

@@ -11,7 +11,7 @@ import { ChoiceChips } from './choice-chips';
 const scratch = 'scratch';
 
 /** A new notebook: a title, and its first version from the scratch workbench or a preset. */
-export function CreateNotebookCard({ teamId }: { teamId: string }) {
+export function CreateNotebookCard({ teamId, onCancel }: { teamId: string; onCancel: () => void }) {
   const router = useRouter();
   const create = useCreateDesignMutation(teamId);
   const [title, setTitle] = useState('');
@@ -64,6 +64,7 @@ export function CreateNotebookCard({ teamId }: { teamId: string }) {
       ) : null}
       <View style={styles.row}>
         <Button label={create.isPending ? 'Creating…' : 'Create design'} onPress={() => void submit()} disabled={create.isPending} testID="create-design" />
+        <Button kind="quiet" label="Cancel" onPress={onCancel} />
       </View>
     </Card>
   );

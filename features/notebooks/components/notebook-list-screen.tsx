@@ -19,7 +19,7 @@ const sorts: { value: DesignSort; label: string }[] = [
   { value: 'title', label: 'Title' },
   { value: 'owner', label: 'Owner' },
 ];
-const columnStyle: TextStyle[] = [{ flex: 3, minWidth: 0 }, { flex: 1.2, minWidth: 0 }, { width: 110 }, { width: 70 }, { width: 210 }];
+const columnStyle: TextStyle[] = [{ flex: 3, minWidth: 0 }, { flex: 1.2, minWidth: 0 }, { width: 110 }, { width: 70 }, { width: 250 }];
 
 /** `/notebooks`: the designs of the user's first shared team, else of their personal workspace. */
 export function NotebooksHomeScreen() {
@@ -96,6 +96,7 @@ export function NotebookListScreen() {
   const [archived, setArchived] = useState<'exclude' | 'only'>('exclude');
   const [page, setPage] = useState(1);
   const [editing, setEditing] = useState<string | null>(null);
+  const [creating, setCreating] = useState(false);
   const q = useDebounced(search.trim(), 250);
   /** Any change of filter or order starts again at page 1. */
   const firstPage =
@@ -169,9 +170,14 @@ export function NotebookListScreen() {
         <Text tone="muted">
           {owner ? 'Baselines come first: they are where colleagues start.' : 'Baselines come first. You can open, compare and clone every design here.'}
         </Text>
+        {owner && !creating ? (
+          <View style={styles.row}>
+            <Button label="New design" onPress={() => setCreating(true)} testID="show-create" />
+          </View>
+        ) : null}
       </View>
 
-      {owner ? <CreateNotebookCard teamId={teamId} /> : null}
+      {owner && creating ? <CreateNotebookCard teamId={teamId} onCancel={() => setCreating(false)} /> : null}
 
       <Card>
         <TextField label="Search titles" value={search} onChangeText={firstPage(setSearch)} placeholder="e.g. sodium" testID="search" />
@@ -296,7 +302,7 @@ const styles = StyleSheet.create({
   titleCell: { gap: space.xxs, alignItems: 'flex-start' },
   marks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   link: { color: colors.primary, textDecorationLine: 'underline', fontFamily: fonts.semibold },
-  rowActions: { flexDirection: 'row', flexWrap: 'wrap' },
+  rowActions: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'flex-start' },
   filters: { gap: space.md },
   filtersWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl },
   editor: { gap: space.sm, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
