@@ -1,4 +1,6 @@
-export { RaySketch, type RaySketchProps } from './components/ray-sketch';
+export { OverlaySketch } from './components/overlay-sketch';
+export { RaySketch, SceneSvg, type RaySketchProps } from './components/ray-sketch';
+export { overlaySketchScenes } from './overlay';
 export { SaveSketchButton, saveSketchSvg } from './components/save-sketch-button';
 export {
   describeSketch,

@@ -44,7 +44,9 @@ describe('design notebooks in Chromium', () => {
     ownerContext = await signedInContext(owner);
     page = await ownerContext.newPage();
     page.on('pageerror', (error) => errors.push(error.message));
-    const teams = (await (await ownerContext.request.get(`${server.url}/api/teams`)).json()) as { teams: { id: string; personal: boolean }[] };
+    const teams = (await (await ownerContext.request.get(`${server.url}/api/teams`)).json()) as {
+      teams: { id: string; personal: boolean }[];
+    };
     teamId = teams.teams.find((team) => !team.personal)?.id ?? '';
     expect(teamId).not.toBe('');
   });
@@ -74,7 +76,9 @@ describe('design notebooks in Chromium', () => {
     await page.goto(`${server.url}/notebooks/${notebookId}`);
     await page.getByTestId('field-slits.exitWidthUm').fill('25');
     await page.getByTestId('version-message').fill('Narrower exit slit to split the sodium doublet');
-    await page.getByTestId('version-notes').fill('# Why\nThe doublet is **0.6 nm** apart.\n\n- exit slit `25 um`\n- <b>not bold</b>');
+    await page
+      .getByTestId('version-notes')
+      .fill('# Why\nThe doublet is **0.6 nm** apart.\n\n- exit slit `25 um`\n- <b>not bold</b>');
     await page.getByTestId('save-version').click();
     await expect.poll(() => page.getByTestId('version-line').textContent()).toContain('v2 of 2');
     await expect.poll(() => page.getByTestId('notes').textContent()).toContain('<b>not bold</b>');
@@ -89,7 +93,13 @@ describe('design notebooks in Chromium', () => {
   it('shows a save on a stale base beside the newer version and saves on top only when asked', async () => {
     // A colleague's save (the same owner, from another tab) lands first.
     const other = await ownerContext.request.post(`${server.url}/api/designs/${notebookId}/versions`, {
-      data: { baseVersion: 2, params: (await (await ownerContext.request.get(`${server.url}/api/designs/${notebookId}`)).json()).version.params, notes: '', message: 'Saved in another tab' },
+      data: {
+        baseVersion: 2,
+        params: (await (await ownerContext.request.get(`${server.url}/api/designs/${notebookId}`)).json())
+          .version.params,
+        notes: '',
+        message: 'Saved in another tab',
+      },
       headers: { origin: server.url },
     });
     expect(other.status()).toBe(201);
@@ -98,7 +108,9 @@ describe('design notebooks in Chromium', () => {
     await page.getByTestId('version-message').fill('Narrower entrance slit too');
     await page.getByTestId('save-version').click();
     await page.getByTestId('conflict-card').waitFor();
-    await expect.poll(() => page.getByTestId('conflict-card').textContent()).toContain('Saved in another tab');
+    await expect
+      .poll(() => page.getByTestId('conflict-card').textContent())
+      .toContain('Saved in another tab');
     await page.getByTestId('rebase-reapply').click();
     await page.getByTestId('rebase-note').waitFor();
     await expect.poll(() => page.getByTestId('field-slits.entranceWidthUm').inputValue()).toBe('30');
@@ -110,9 +122,14 @@ describe('design notebooks in Chromium', () => {
     await page.goto(`${server.url}/notebooks/${notebookId}/compare?a=1&b=2`);
     await page.getByTestId('compare-heading').waitFor();
     await page.getByTestId('changed-slits.exitWidthUm').waitFor();
-    await expect.poll(() => page.getByTestId('change-bandpassAtCentreNm').textContent()).toMatch(/^−\d+(\.\d)?\u2009%$/);
-    await page.getByTestId('compare-sketch-a').waitFor();
-    await page.getByTestId('compare-sketch-b').waitFor();
+    await expect
+      .poll(() => page.getByTestId('change-bandpassAtCentreNm').textContent())
+      .toMatch(/^−\d+(\.\d)?\u2009%$/);
+    // Both versions on one drawing: the earlier one's grating lies beneath the later one's.
+    const overlay = page.getByTestId('compare-sketch-overlay');
+    await overlay.waitFor();
+    expect(await overlay.locator('[data-testid="before-sketch-grating"]').count()).toBe(1);
+    expect(await overlay.locator('[data-testid="sketch-grating"]').count()).toBe(1);
     await page.getByTestId('compare-plot-bandpass').waitFor();
     await shoot(page, 'notebooks-compare');
   });
@@ -146,7 +163,9 @@ describe('design notebooks in Chromium', () => {
     visitorPage.on('pageerror', (error) => errors.push(error.message));
     await visitorPage.goto(`${server.url}${sharePath}`);
     await visitorPage.getByTestId('shared-title').filter({ hasText: title }).waitFor();
-    await expect.poll(() => visitorPage.getByTestId('notes').textContent()).toContain('The doublet is 0.6 nm apart.');
+    await expect
+      .poll(() => visitorPage.getByTestId('notes').textContent())
+      .toContain('The doublet is 0.6 nm apart.');
     await visitorPage.getByTestId('plots-card').waitFor();
     expect(await visitorPage.getByTestId('save-card').count()).toBe(0);
     expect(await visitorPage.getByText('Members').count()).toBe(0);

@@ -3,10 +3,17 @@ import { useCallback, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import type { CompareResponse, Version } from '@/shared/notebooks';
 import { LinePlot, type PlotSeries } from '@/features/plots';
-import { RaySketch } from '@/features/sketch';
+import { OverlaySketch } from '@/features/sketch';
 import { Card, Heading, Screen, Text, colors, fonts, space, useLayout } from '@/features/ui';
 import { compareSeries, type ComparedMetric } from '../compare-series';
-import { changeTone, describePath, figureLabels, formatFigure, formatParam, formatRelativeChange } from '../format';
+import {
+  changeTone,
+  describePath,
+  figureLabels,
+  formatFigure,
+  formatParam,
+  formatRelativeChange,
+} from '../format';
 import { useCompareQuery, useNotebookQuery } from '../queries';
 import { flattenDesign } from '../rebase';
 import { VersionPicker } from './version-picker';
@@ -19,7 +26,14 @@ function FiguresTable({ data }: { data: CompareResponse }) {
     <View role="table" aria-label="Derived figures" testID="compare-figures">
       <View role="row" style={[styles.row, styles.headerRow]}>
         {['Figure', `v${data.a.number}`, `v${data.b.number}`, 'Change'].map((title, i) => (
-          <Text key={title} role="columnheader" variant="caption" tone="muted" weight="semibold" style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}>
+          <Text
+            key={title}
+            role="columnheader"
+            variant="caption"
+            tone="muted"
+            weight="semibold"
+            style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}
+          >
             {title.toUpperCase()}
           </Text>
         ))}
@@ -35,7 +49,14 @@ function FiguresTable({ data }: { data: CompareResponse }) {
           <Text role="cell" variant="number" style={[styles.cell, styles.num]}>
             {formatFigure(figure.key, figure.after)}
           </Text>
-          <Text role="cell" variant="number" weight="semibold" tone={changeTone(figure.key, figure.relativeChange)} style={[styles.cell, styles.num]} testID={`change-${figure.key}`}>
+          <Text
+            role="cell"
+            variant="number"
+            weight="semibold"
+            tone={changeTone(figure.key, figure.relativeChange)}
+            style={[styles.cell, styles.num]}
+            testID={`change-${figure.key}`}
+          >
             {formatRelativeChange(figure.relativeChange)}
           </Text>
         </View>
@@ -50,19 +71,36 @@ function ParametersTable({ data }: { data: CompareResponse }) {
   const b = flattenDesign(data.b.params);
   const changed = new Set(data.changes.map((c) => c.path));
   const paths = [...new Set([...Object.keys(a), ...Object.keys(b)])];
-  const rows = paths.filter((path) => !onlyChanged || changed.has(path) || changed.has(path.split('.')[0] ?? ''));
+  const rows = paths.filter(
+    (path) => !onlyChanged || changed.has(path) || changed.has(path.split('.')[0] ?? ''),
+  );
   return (
     <View style={styles.stack}>
       <Text variant="small" tone="muted">
-        {data.changes.length === 0 ? 'No parameter differs.' : `${data.changes.length} ${data.changes.length === 1 ? 'parameter differs' : 'parameters differ'}, highlighted.`}{' '}
-        <Text variant="small" weight="semibold" role="button" style={styles.inlineLink} onPress={() => setOnlyChanged((v) => !v)}>
+        {data.changes.length === 0
+          ? 'No parameter differs.'
+          : `${data.changes.length} ${data.changes.length === 1 ? 'parameter differs' : 'parameters differ'}, highlighted.`}{' '}
+        <Text
+          variant="small"
+          weight="semibold"
+          role="button"
+          style={styles.inlineLink}
+          onPress={() => setOnlyChanged((v) => !v)}
+        >
           {onlyChanged ? 'Show all' : 'Show only changes'}
         </Text>
       </Text>
       <View role="table" aria-label="Parameters" testID="compare-params">
         <View role="row" style={[styles.row, styles.headerRow]}>
           {['Parameter', `v${data.a.number}`, `v${data.b.number}`].map((title, i) => (
-            <Text key={title} role="columnheader" variant="caption" tone="muted" weight="semibold" style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}>
+            <Text
+              key={title}
+              role="columnheader"
+              variant="caption"
+              tone="muted"
+              weight="semibold"
+              style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}
+            >
               {title.toUpperCase()}
             </Text>
           ))}
@@ -70,8 +108,18 @@ function ParametersTable({ data }: { data: CompareResponse }) {
         {rows.map((path) => {
           const differs = changed.has(path) || changed.has(path.split('.')[0] ?? '') || a[path] !== b[path];
           return (
-            <View key={path} role="row" style={[styles.row, differs && styles.changedRow]} testID={differs ? `changed-${path}` : `same-${path}`}>
-              <Text role="cell" variant="small" weight={differs ? 'semibold' : 'regular'} style={styles.wideCell}>
+            <View
+              key={path}
+              role="row"
+              style={[styles.row, differs && styles.changedRow]}
+              testID={differs ? `changed-${path}` : `same-${path}`}
+            >
+              <Text
+                role="cell"
+                variant="small"
+                weight={differs ? 'semibold' : 'regular'}
+                style={styles.wideCell}
+              >
                 {differs ? '● ' : ''}
                 {describePath(path)}
               </Text>
@@ -108,16 +156,35 @@ function Legend({ a, b }: { a: Version; b: Version }) {
   );
 }
 
-function series(label: string, unit: string, metric: ComparedMetric, which: 'a' | 'b', format?: PlotSeries['format']): PlotSeries {
+function series(
+  label: string,
+  unit: string,
+  metric: ComparedMetric,
+  which: 'a' | 'b',
+  format?: PlotSeries['format'],
+): PlotSeries {
   const ink = which === 'a' ? BEFORE : AFTER;
-  return { label, unit, values: metric[which], color: ink.color, dash: 'dash' in ink ? ink.dash : undefined, domain: metric.domain ?? undefined, format };
+  return {
+    label,
+    unit,
+    values: metric[which],
+    color: ink.color,
+    dash: 'dash' in ink ? ink.dash : undefined,
+    domain: metric.domain ?? undefined,
+    format,
+  };
 }
 
 function ComparePlots({ data, width }: { data: CompareResponse; width: number }) {
   const compared = useMemo(() => compareSeries(data.a.params, data.b.params), [data]);
   const plots = [
     { id: 'bandpass', title: 'Bandpass', unit: 'nm', metric: compared.bandpassNm },
-    { id: 'dispersion', title: 'Reciprocal dispersion', unit: 'nm/mm', metric: compared.reciprocalDispersionNmPerMm },
+    {
+      id: 'dispersion',
+      title: 'Reciprocal dispersion',
+      unit: 'nm/mm',
+      metric: compared.reciprocalDispersionNmPerMm,
+    },
     { id: 'power', title: 'Resolving power R', unit: '', metric: compared.resolvingPower },
     { id: 'efficiency', title: 'Blaze efficiency', unit: '', metric: compared.blazeEfficiency },
   ];
@@ -132,8 +199,14 @@ function ComparePlots({ data, width }: { data: CompareResponse; width: number })
             title={plot.title}
             width={plotWidth}
             wavelengthsNm={compared.wavelengthsNm}
-            series={{ ...series(`v${data.a.number}`, plot.unit, plot.metric, 'a'), axisTitle: plot.unit || plot.title }}
-            secondSeries={{ ...series(`v${data.b.number}`, plot.unit, plot.metric, 'b'), axisTitle: plot.unit || plot.title }}
+            series={{
+              ...series(`v${data.a.number}`, plot.unit, plot.metric, 'a'),
+              axisTitle: plot.unit || plot.title,
+            }}
+            secondSeries={{
+              ...series(`v${data.b.number}`, plot.unit, plot.metric, 'b'),
+              axisTitle: plot.unit || plot.title,
+            }}
             emptyMessage="Neither version reaches these wavelengths"
           />
         </View>
@@ -144,7 +217,11 @@ function ComparePlots({ data, width }: { data: CompareResponse; width: number })
 
 /** `/notebooks/:id/compare?a=1&b=2`: what changed between two versions and what it did. */
 export function CompareScreen() {
-  const { notebookId = '', a: aText = '1', b: bText = '2' } = useLocalSearchParams<{ notebookId: string; a?: string; b?: string }>();
+  const {
+    notebookId = '',
+    a: aText = '1',
+    b: bText = '2',
+  } = useLocalSearchParams<{ notebookId: string; a?: string; b?: string }>();
   const router = useRouter();
   const layout = useLayout();
   const a = Number(aText);
@@ -152,16 +229,24 @@ export function CompareScreen() {
   const notebook = useNotebookQuery(notebookId);
   const compare = useCompareQuery(notebookId, a, b);
   const [width, setWidth] = useState(340);
-  const onLayout = useCallback((event: LayoutChangeEvent) => setWidth(Math.round(event.nativeEvent.layout.width)), []);
+  const onLayout = useCallback(
+    (event: LayoutChangeEvent) => setWidth(Math.round(event.nativeEvent.layout.width)),
+    [],
+  );
   const count = notebook.data?.design.latestVersion ?? Math.max(a, b);
-  const pick = (next: { a?: number; b?: number }) => router.setParams({ a: String(next.a ?? a), b: String(next.b ?? b) });
+  const pick = (next: { a?: number; b?: number }) =>
+    router.setParams({ a: String(next.a ?? a), b: String(next.b ?? b) });
   const data = compare.data;
   const sideBySide = layout !== 'phone';
-  const sketchWidth = sideBySide ? Math.floor((width - 2 * space.lg - space.lg - 2) / 2) : width - 2 * space.lg - 2;
 
   return (
     <Screen wide style={styles.page}>
-      <Pressable role="link" onPress={() => router.push(`/notebooks/${notebookId}` as Href)} style={styles.back} testID="back-to-notebook">
+      <Pressable
+        role="link"
+        onPress={() => router.push(`/notebooks/${notebookId}` as Href)}
+        style={styles.back}
+        testID="back-to-notebook"
+      >
         <Text variant="small" weight="semibold" style={styles.backText}>
           ← {notebook.data?.design.title ?? 'The notebook'}
         </Text>
@@ -170,8 +255,20 @@ export function CompareScreen() {
         Compare v{a} and v{b}
       </Heading>
       <Card>
-        <VersionPicker label="Before" count={count} value={a} onChange={(n) => pick({ a: n })} testID="compare-a" />
-        <VersionPicker label="After" count={count} value={b} onChange={(n) => pick({ b: n })} testID="compare-b" />
+        <VersionPicker
+          label="Before"
+          count={count}
+          value={a}
+          onChange={(n) => pick({ a: n })}
+          testID="compare-a"
+        />
+        <VersionPicker
+          label="After"
+          count={count}
+          value={b}
+          onChange={(n) => pick({ b: n })}
+          testID="compare-b"
+        />
       </Card>
       {compare.isError ? (
         <Text role="alert" tone="danger">
@@ -192,24 +289,20 @@ export function CompareScreen() {
             </Card>
           </View>
           <Card title="Ray sketches" testID="compare-sketches">
-            <View style={[styles.split, sideBySide && styles.splitWide]}>
-              <View style={[styles.sketchFrame, styles.sketchBefore]}>
-                <Text variant="small" weight="semibold" tone="muted">
-                  v{data.a.number} · before
-                </Text>
-                <RaySketch design={data.a.params} width={sketchWidth - 2 * space.sm} testID="compare-sketch-a" />
-              </View>
-              <View style={[styles.sketchFrame, styles.sketchAfter]}>
-                <Text variant="small" weight="semibold" style={styles.after}>
-                  v{data.b.number} · after
-                </Text>
-                <RaySketch design={data.b.params} width={sketchWidth - 2 * space.sm} testID="compare-sketch-b" />
-              </View>
-            </View>
+            <Text variant="small" tone="muted">
+              One drawing, one scale: v{data.a.number} dashed grey beneath, v{data.b.number} on top in colour.
+            </Text>
+            <OverlaySketch
+              before={data.a.params}
+              after={data.b.params}
+              width={width - 2 * space.lg - 2}
+              testID="compare-sketch-overlay"
+            />
           </Card>
           <Card title="Across the range" testID="compare-plots">
             <Text variant="small" tone="muted">
-              Dashed grey: v{data.a.number}; copper: v{data.b.number}. Both on one scale, each only over its own range.
+              Dashed grey: v{data.a.number}; copper: v{data.b.number}. Both on one scale, each only over its
+              own range.
             </Text>
             <ComparePlots data={data} width={width - 2 * space.lg - 2} />
           </Card>
@@ -227,7 +320,14 @@ const styles = StyleSheet.create({
   split: { gap: space.lg },
   splitWide: { flexDirection: 'row', alignItems: 'flex-start' },
   half: { flex: 1, minWidth: 0 },
-  row: { flexDirection: 'row', gap: space.sm, paddingVertical: space.xs, paddingHorizontal: space.xs, borderBottomWidth: 1, borderBottomColor: colors.line },
+  row: {
+    flexDirection: 'row',
+    gap: space.sm,
+    paddingVertical: space.xs,
+    paddingHorizontal: space.xs,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
   headerRow: { borderBottomWidth: 2 },
   changedRow: { backgroundColor: '#FFF2E6' },
   wideCell: { flex: 2, minWidth: 0 },
@@ -241,9 +341,6 @@ const styles = StyleSheet.create({
   swatch: { width: 28, height: 0, borderTopWidth: 3 },
   swatchBefore: { borderColor: colors.inkMuted, borderStyle: 'dashed' },
   swatchAfter: { borderColor: colors.accent },
-  sketchFrame: { flex: 1, minWidth: 0, borderWidth: 2, borderRadius: 8, padding: space.sm, gap: space.xs },
-  sketchBefore: { borderColor: colors.inkFaint, borderStyle: 'dashed' },
-  sketchAfter: { borderColor: colors.accent },
   plots: { gap: space.lg },
   plotsTwo: { flexDirection: 'row', flexWrap: 'wrap' },
 });

@@ -5,7 +5,7 @@ import type { Evaluation } from '@/features/solver';
 import { Text, colors, fonts, space } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import { describeSketch, formatNm, sketchGeometry, type SketchGeometry } from '../geometry';
-import { buildSketchScene, type SketchShape, type TextWeight } from '../sketch-scene';
+import { buildSketchScene, type SketchScene, type SketchShape, type TextWeight } from '../sketch-scene';
 
 export type RaySketchProps = {
   design: Design;
@@ -62,16 +62,7 @@ const SketchView = memo(function SketchView({ geometry, design, width, maxHeight
   ];
   return (
     <View style={styles.root}>
-      <View
-        role="img"
-        aria-label={label}
-        testID={testID}
-        style={{ width: scene.widthPx, height: scene.heightPx }}
-      >
-        <Svg width={scene.widthPx} height={scene.heightPx} viewBox={`0 0 ${scene.widthPx} ${scene.heightPx}`}>
-          {scene.shapes.map(renderShape)}
-        </Svg>
-      </View>
+      <SceneSvg scene={scene} label={label} testID={testID} />
       {notes.length > 0 ? (
         <View style={styles.notes} testID={`${testID}-notes`}>
           {notes.map((note) => (
@@ -84,6 +75,22 @@ const SketchView = memo(function SketchView({ geometry, design, width, maxHeight
     </View>
   );
 });
+
+/** A laid-out scene as an SVG image with a spoken description. */
+export function SceneSvg({ scene, label, testID }: { scene: SketchScene; label: string; testID: string }) {
+  return (
+    <View
+      role="img"
+      aria-label={label}
+      testID={testID}
+      style={{ width: scene.widthPx, height: scene.heightPx }}
+    >
+      <Svg width={scene.widthPx} height={scene.heightPx} viewBox={`0 0 ${scene.widthPx} ${scene.heightPx}`}>
+        {scene.shapes.map(renderShape)}
+      </Svg>
+    </View>
+  );
+}
 
 function renderShape(shape: SketchShape) {
   if (shape.type === 'text') {
