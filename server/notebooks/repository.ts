@@ -117,6 +117,17 @@ function queries(db: Database) {
     )
     .prepare('notebook_version_by_number');
 
+  const roleOf = db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(
+      and(
+        eq(memberships.teamId, sql.placeholder('teamId')),
+        eq(memberships.userId, sql.placeholder('userId')),
+      ),
+    )
+    .prepare('notebook_role_of');
+
   return {
     async designForUser(designId: string, userId: string): Promise<DesignView | null> {
       const [row] = await designForUser.execute({ designId, userId });
@@ -154,10 +165,7 @@ function queries(db: Database) {
     },
 
     async roleOf(teamId: string, userId: string): Promise<Role | null> {
-      const [row] = await db
-        .select({ role: memberships.role })
-        .from(memberships)
-        .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+      const [row] = await roleOf.execute({ teamId, userId });
       return row?.role ?? null;
     },
 

@@ -100,8 +100,28 @@ type Versionable = { params: Design; notes: string; message: string };
 
 export type NotebooksServiceDeps = { repository: NotebooksRepository; clock: Clock };
 
+/** Versions are immutable, so a read can be answered from memory once its access is checked. */
+const versionCacheSize = 2000;
+
 export function createNotebooksService({ repository, clock }: NotebooksServiceDeps) {
   const teamAccess = createTeamAccess(repository);
+  // Per app, in process. Safe to keep: a version never changes, a design never changes team, and
+  // only this service writes tags (a team's tag list is dropped on every write to the team).
+  // Roles are never cached: a member removed a second ago must get a 404 now.
+  const versionCache = new Map<string, { teamId: string; version: Version }>();
+  const tagCache = new Map<string, string[]>();
+  const remember = (designId: string, teamId: string, version: Version) => {
+    if (versionCache.size >= versionCacheSize) versionCache.delete(versionCache.keys().next().value!);
+    versionCache.set(`${designId}:${version.number}`, { teamId, version });
+  };
+  const teamTags = async (teamId: string) => {
+    let tags = tagCache.get(teamId);
+    if (!tags) {
+      tags = await repository.teamTags(teamId);
+      tagCache.set(teamId, tags);
+    }
+    return tags;
+  };
 
   /** The design and the caller's role; outsiders and made-up ids get the same 404. */
   async function designFor(
@@ -166,6 +186,7 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
     const rows = versions.map((v, index) =>
       versionRow(id, index + 1, v, user.id, v.parentNumber, v.createdAt ?? now),
     );
+    tagCache.delete(teamId);
     await repository.inTransaction(async (repo) => {
       await repo.insertDesign(
         {
@@ -221,7 +242,7 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
           limit: query.pageSize,
           offset: (query.page - 1) * query.pageSize,
         }),
-        await repository.teamTags(teamId),
+        await teamTags(teamId),
       ];
       return {
         designs: rows.map((row) => toNotebook({ ...row, role }, role)),
@@ -253,8 +274,9 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       designId: string,
       patch: z.output<typeof updateDesignRequestSchema>,
     ): Promise<Notebook> {
-      await designFor(user, designId, 'designs.edit');
+      const { design } = await designFor(user, designId, 'designs.edit');
       await repository.updateDesign(designId, { ...patch, updatedAt: clock.now() });
+      tagCache.delete(design.teamId);
       return notebook(user, designId);
     },
 
@@ -265,6 +287,13 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
 
     /** The hot read: access and version in one prepared query. */
     async version(user: User, designId: string, n: number): Promise<Version> {
+      const cached = versionCache.get(`${designId}:${n}`);
+      if (cached) {
+        const role = await repository.roleOf(cached.teamId, user.id);
+        if (!role) throw designNotFound();
+        if (!can(role, 'designs.read')) throw forbidden();
+        return cached.version;
+      }
       const row = await repository.versionForUser(designId, n, user.id);
       if (!row) {
         // Tell "no such version" from "no such design" only to members.
@@ -273,7 +302,9 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       }
       if (!row.role) throw designNotFound();
       if (!can(row.role, 'designs.read')) throw forbidden();
-      return toVersion(row);
+      const version = toVersion(row);
+      remember(designId, row.teamId, version);
+      return version;
     },
 
     /**
@@ -303,7 +334,21 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
         if (!latest) throw designNotFound();
         throw new VersionConflictError(toVersion(latest));
       }
-      return withVersion(user, designId, outcome.n);
+      // Answer from what was just written rather than reading it back: a save is the slow path.
+      const row = { ...summaryRow, number: outcome.n };
+      const version: Version = {
+        number: row.number,
+        message: row.message,
+        author: { id: user.id, displayName: user.displayName },
+        createdAt: row.createdAt!.toISOString(),
+        parentNumber: row.parentNumber ?? null,
+        summary: row.summary,
+        params: input.params,
+        notes: input.notes,
+      };
+      remember(designId, design.teamId, version);
+      const saved: DesignView = { ...design, latestVersion: row.number, updatedAt: row.createdAt! };
+      return { design: toNotebook(saved, design.role!), version };
     },
 
     async compare(

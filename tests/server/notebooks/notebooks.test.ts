@@ -8,6 +8,7 @@ import {
   versionListResponseSchema,
   versionResponseSchema,
 } from '../../../shared/notebooks';
+import { signUp } from '../../support/test-app';
 import {
   createNotebook,
   createNotebookFixture,
@@ -202,6 +203,17 @@ describe('history and versions', () => {
     const outsider = await fx.outsider.agent.get(`/api/designs/${design.id}/versions/1`).expect(404);
     const madeUp = await fx.outsider.agent.get('/api/designs/no-such-design/versions/1').expect(404);
     expect(outsider.body).toEqual(madeUp.body);
+  });
+});
+
+describe('a removed member', () => {
+  it('loses access to a version at once, even one read a moment ago', async () => {
+    const { design } = await createNotebook(fx, 'Read then leave');
+    const leaver = await signUp(fx.ctx.app, 'Leaver');
+    await fx.addMember(fx.teamId, leaver, 'viewer');
+    await leaver.agent.get(`/api/designs/${design.id}/versions/1`).expect(200);
+    await fx.owner.agent.delete(`/api/teams/${fx.teamId}/members/${leaver.user.id}`).expect(204);
+    await leaver.agent.get(`/api/designs/${design.id}/versions/1`).expect(404);
   });
 });
 
