@@ -200,3 +200,25 @@ export const shareLinks = pgTable(
   },
   (t) => [index('share_links_design_id_idx').on(t.designId)],
 );
+
+/**
+ * Review comments on one version of a design, listed oldest first. `decision` is null for a plain
+ * comment; a decision belongs to the version it was made on, so a new version starts unreviewed.
+ */
+export const versionReviews = pgTable(
+  'version_reviews',
+  {
+    id: text().primaryKey(),
+    /** Insertion order: comments written in the same millisecond still list in the order sent. */
+    seq: integer().notNull().generatedAlwaysAsIdentity(),
+    designId: text()
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    versionNumber: integer().notNull(),
+    authorId: text().references(() => users.id, { onDelete: 'set null' }),
+    body: text().notNull(),
+    decision: text({ enum: ['approved', 'changes-requested'] }),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [index('version_reviews_design_version_idx').on(t.designId, t.versionNumber, t.seq)],
+);
