@@ -11,6 +11,7 @@ import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
 import { createNotebooks } from './notebooks/index';
+import { createReviews } from './reviews/index';
 import { solveRouter } from './solve/router';
 import { createTeams } from './teams/index';
 
@@ -83,6 +84,7 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(auth.router);
   apiRouter.use(createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl }).router);
   apiRouter.use(createNotebooks({ db: deps.database.db, clock: deps.clock }).router);
+  apiRouter.use(createReviews({ db: deps.database.db, clock: deps.clock }).router);
   if (deps.nodeEnv !== 'production') apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock)));
   apiRouter.use(apiNotFound);
   app.use('/api', apiRouter);

@@ -140,6 +140,12 @@ const matrix: Record<string, Row> = {
     },
   },
   'GET /api/designs/:id/export': { expect: members(200), prepare: designParams },
+  // Reviews: members read them; owners and reviewers comment and record decisions.
+  'GET /api/designs/:id/versions/:n/reviews': { expect: members(200), prepare: async (fx) => ({ params: { id: await design(fx), n: '1' } }) },
+  'POST /api/designs/:id/versions/:n/reviews': {
+    expect: { owner: 201, reviewer: 201, viewer: 403, outsider: 404, anonymous: 401 },
+    prepare: async (fx) => ({ params: { id: await design(fx), n: '1' }, body: { body: 'Matrix review', decision: 'approved' } }),
+  },
   // The token is the credential: signed in or not, member or not, it shows one version and nothing else.
   'GET /api/share/:token': { expect: everyone(200), prepare: async (fx) => ({ params: { token: (await newShareLink(fx)).token } }) },
 

@@ -1,0 +1,73 @@
+import { randomUUID } from 'node:crypto';
+import type { z } from 'zod';
+import type { User } from '../../shared/auth';
+import type { createReviewRequestSchema, Review } from '../../shared/reviews';
+import { can, type Capability } from '../../shared/teams';
+import type { Clock } from '../clock';
+import { forbidden, notFound } from '../http/errors';
+import type { ReviewsRepository, ReviewView } from './repository';
+
+// The same words as the notebook routes, so an outsider cannot tell a real design from a made-up one.
+const designNotFound = () => notFound('No such design.');
+const versionNotFound = (n: number) => notFound(`This design has no version ${n}.`);
+
+function toReview(row: ReviewView): Review {
+  return {
+    id: row.id,
+    version: row.versionNumber,
+    author: row.authorId ? { id: row.authorId, displayName: row.authorName ?? '' } : null,
+    body: row.body,
+    decision: row.decision,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+export type ReviewsServiceDeps = { repository: ReviewsRepository; clock: Clock };
+
+/** Review comments and decisions on design versions. Roles are checked here, never only in the client. */
+export function createReviewsService({ repository, clock }: ReviewsServiceDeps) {
+  /** Outsiders and made-up ids: 404. Members without the capability: 403. Then the version must exist. */
+  async function requireVersion(user: User, designId: string, n: number, capabilities: Capability[]) {
+    const access = await repository.versionAccess(designId, n, user.id);
+    if (!access || !access.role) throw designNotFound();
+    const role = access.role;
+    if (!capabilities.every((capability) => can(role, capability)))
+      throw forbidden(`A ${role} of this team may not do that.`);
+    if (!access.versionExists) throw versionNotFound(n);
+  }
+
+  return {
+    async list(user: User, designId: string, n: number): Promise<Review[]> {
+      await requireVersion(user, designId, n, ['designs.read']);
+      return (await repository.list(designId, n)).map(toReview);
+    },
+
+    /** A plain comment needs `designs.comment`; one that records a decision needs `designs.review` too. */
+    async create(
+      user: User,
+      designId: string,
+      n: number,
+      input: z.output<typeof createReviewRequestSchema>,
+    ): Promise<Review> {
+      await requireVersion(
+        user,
+        designId,
+        n,
+        input.decision === null ? ['designs.comment'] : ['designs.comment', 'designs.review'],
+      );
+      const row = {
+        id: randomUUID(),
+        designId,
+        versionNumber: n,
+        authorId: user.id,
+        body: input.body,
+        decision: input.decision,
+        createdAt: clock.now(),
+      };
+      await repository.insert(row);
+      return toReview({ ...row, authorName: user.displayName });
+    },
+  };
+}
+
+export type ReviewsService = ReturnType<typeof createReviewsService>;
