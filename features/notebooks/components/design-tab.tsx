@@ -4,6 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { versionMessageSchema, type Notebook, type Version } from '@/shared/notebooks';
 import { can, roleLabels } from '@/shared/teams';
 import { ApiError } from '@/features/api';
+import { ReviewPanel } from '@/features/reviews';
 import { Button, Card, Text, colors, space } from '@/features/ui';
 import { draftFromDesign, formToDesign, Workbench, type Draft, type FormResult } from '@/features/workbench';
 import { clearEdits, loadEdits, notebookDraftKey, saveEdits, type StoredEdits } from '../draft-store';
@@ -225,6 +226,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
       <Card title={`Notes of v${version.number}`} testID="notes-card">
         <MarkdownView source={version.notes} testID="notes" />
       </Card>
+      <ReviewPanel designId={design.id} version={version.number} role={design.role} />
     </View>
   );
 
