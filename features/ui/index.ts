@@ -5,7 +5,18 @@ export { Screen } from './components/screen';
 export { Text } from './components/text';
 export { TextField } from './components/text-field';
 export { Wordmark } from './components/wordmark';
+export { copyText } from './clipboard';
 export { fontAssets } from './fonts';
 export { ThemeProvider, useLayout, useTheme } from './theme-context';
-export { breakpoints, colors, fonts, layoutForWidth, maxContentWidth, minTouch, radius, space, type } from './theme';
+export {
+  breakpoints,
+  colors,
+  fonts,
+  layoutForWidth,
+  maxContentWidth,
+  minTouch,
+  radius,
+  space,
+  type,
+} from './theme';
 export type { Layout, Theme } from './theme';

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { DatabaseHandle } from '../../db/client';
+import { demoDesigns } from '../../shared/demo-designs';
 import { exampleDesign, type Design } from '../../shared/design';
 import { createNotebooksRepository, type VersionInsert } from '../notebooks/repository';
 import { summarizeVersion } from '../notebooks/summary';
@@ -63,49 +64,14 @@ export const demoNotebooks: readonly DemoNotebook[] = [
         notes:
           '# Excitation side\n\n0.25 m, 2400/mm blazed at 250 nm. Throughput matters more than resolution ' +
           'here, so the slits are wide.',
-        design: {
-          grating: {
-            grooveDensityPerMm: 2400,
-            order: 1,
-            blazeWavelengthNm: 250,
-            ruledWidthMm: 50,
-            ruledHeightMm: 50,
-          },
-          layout: {
-            kind: 'czerny-turner',
-            deviationAngleDeg: 26,
-            collimatorFocalMm: 250,
-            cameraFocalMm: 250,
-            collimatorOffAxisDeg: 5,
-            cameraOffAxisDeg: 6,
-          },
-          slits: { entranceWidthUm: 500, exitWidthUm: 500, heightMm: 10 },
-          range: { startNm: 200, endNm: 450 },
-          source: { minNm: 190, maxNm: 1100 },
-        },
+        design: demoDesigns.uvExcitation,
       },
       {
         message: 'Narrow the exit slit to 300 µm',
         notes: 'The sample holder only takes a 3 mm spot; a narrower exit costs little light on it.',
         design: {
-          grating: {
-            grooveDensityPerMm: 2400,
-            order: 1,
-            blazeWavelengthNm: 250,
-            ruledWidthMm: 50,
-            ruledHeightMm: 50,
-          },
-          layout: {
-            kind: 'czerny-turner',
-            deviationAngleDeg: 26,
-            collimatorFocalMm: 250,
-            cameraFocalMm: 250,
-            collimatorOffAxisDeg: 5,
-            cameraOffAxisDeg: 6,
-          },
-          slits: { entranceWidthUm: 500, exitWidthUm: 300, heightMm: 10 },
-          range: { startNm: 200, endNm: 450 },
-          source: { minNm: 190, maxNm: 1100 },
+          ...demoDesigns.uvExcitation,
+          slits: { ...demoDesigns.uvExcitation.slits, exitWidthUm: 300 },
         },
       },
     ],

@@ -4,8 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Notebook, Version } from '@/shared/notebooks';
 import { can } from '@/shared/teams';
 import { useTeamsQuery } from '@/features/teams';
-import { Button, Card, Screen, Text, TextField, colors, space } from '@/features/ui';
-import { copyText } from '../copy-text';
+import { Button, Card, Screen, Text, TextField, colors, space, copyText } from '@/features/ui';
 import { formatDay, formatWhen } from '../format';
 import {
   fetchNotebookFile,
@@ -30,18 +29,26 @@ function ClonePanel({ design, version }: { design: Notebook; version: Version })
   const clone = useCloneMutation(design.id);
   const target = teamId ?? personal?.id ?? owned[0]?.id ?? '';
   const submit = async () => {
-    const made = await clone.mutateAsync({ version: version.number, teamId: target || undefined, title: title.trim() || undefined });
+    const made = await clone.mutateAsync({
+      version: version.number,
+      teamId: target || undefined,
+      title: title.trim() || undefined,
+    });
     router.push(`/notebooks/${made.design.id}` as Href);
   };
   return (
     <Card title={`Clone v${version.number}`} testID="clone-card">
       <Text tone="muted">
-        Start your own design from this version. The copy begins a new history and says where it came from: “from {design.title} v{version.number}”.
+        Start your own design from this version. The copy begins a new history and says where it came from:
+        “from {design.title} v{version.number}”.
       </Text>
       {owned.length > 1 ? (
         <ChoiceChips
           label="Into"
-          options={owned.map((team) => ({ value: team.id, label: team.personal ? 'Personal workspace' : team.name }))}
+          options={owned.map((team) => ({
+            value: team.id,
+            label: team.personal ? 'Personal workspace' : team.name,
+          }))}
           value={target}
           onChange={setTeamId}
           testID="clone-team"
@@ -51,14 +58,25 @@ function ClonePanel({ design, version }: { design: Notebook; version: Version })
           Into your personal workspace.
         </Text>
       )}
-      <TextField label="Title of the copy" value={title} onChangeText={setTitle} maxLength={120} testID="clone-title" />
+      <TextField
+        label="Title of the copy"
+        value={title}
+        onChangeText={setTitle}
+        maxLength={120}
+        testID="clone-title"
+      />
       {clone.isError ? (
         <Text role="alert" tone="danger">
           {errorText(clone.error)}
         </Text>
       ) : null}
       <View style={styles.row}>
-        <Button label={clone.isPending ? 'Cloning…' : `Clone v${version.number}`} onPress={() => void submit().catch(() => undefined)} disabled={clone.isPending || !target} testID="clone-submit" />
+        <Button
+          label={clone.isPending ? 'Cloning…' : `Clone v${version.number}`}
+          onPress={() => void submit().catch(() => undefined)}
+          disabled={clone.isPending || !target}
+          testID="clone-submit"
+        />
       </View>
     </Card>
   );
@@ -81,10 +99,21 @@ function BaselinePanel({ design, version }: { design: Notebook; version: Version
       ) : null}
       <View style={styles.row}>
         {!isBaseline ? (
-          <Button label={`Mark v${version.number} as baseline`} onPress={() => baseline.mutate(version.number)} disabled={baseline.isPending} testID="mark-baseline" />
+          <Button
+            label={`Mark v${version.number} as baseline`}
+            onPress={() => baseline.mutate(version.number)}
+            disabled={baseline.isPending}
+            testID="mark-baseline"
+          />
         ) : null}
         {design.baselineVersion !== null ? (
-          <Button kind="quiet" label="Clear the baseline" onPress={() => baseline.mutate(null)} disabled={baseline.isPending} testID="clear-baseline" />
+          <Button
+            kind="quiet"
+            label="Clear the baseline"
+            onPress={() => baseline.mutate(null)}
+            disabled={baseline.isPending}
+            testID="clear-baseline"
+          />
         ) : null}
       </View>
     </Card>
@@ -107,8 +136,12 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
   const [made, setMade] = useState<{ url: string; copied: boolean | null } | null>(null);
 
   const submit = async () => {
-    const expiresAt = expiry === 'never' ? null : new Date(Date.now() + Number(expiry) * 86_400_000).toISOString();
-    const answer = await create.mutateAsync({ version: pin === 'version' ? version.number : null, expiresAt });
+    const expiresAt =
+      expiry === 'never' ? null : new Date(Date.now() + Number(expiry) * 86_400_000).toISOString();
+    const answer = await create.mutateAsync({
+      version: pin === 'version' ? version.number : null,
+      expiresAt,
+    });
     setMade({ url: absoluteUrl(answer.path), copied: null });
   };
   const copy = async () => {
@@ -120,7 +153,8 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
   return (
     <Card title="Read-only links" testID="share-card">
       <Text tone="muted">
-        Anyone with a link sees this design read-only — the workbench, the notes and the plots — without signing in. No comments, members or other designs.
+        Anyone with a link sees this design read-only — the workbench, the notes and the plots — without
+        signing in. No comments, members or other designs.
       </Text>
       <ChoiceChips
         label="Shows"
@@ -132,9 +166,20 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
         onChange={setPin}
         testID="share-pin"
       />
-      <ChoiceChips label="Expires" options={expiries} value={expiry} onChange={setExpiry} testID="share-expiry" />
+      <ChoiceChips
+        label="Expires"
+        options={expiries}
+        value={expiry}
+        onChange={setExpiry}
+        testID="share-expiry"
+      />
       <View style={styles.row}>
-        <Button label={create.isPending ? 'Creating…' : 'Create link'} onPress={() => void submit().catch(() => undefined)} disabled={create.isPending} testID="create-share-link" />
+        <Button
+          label={create.isPending ? 'Creating…' : 'Create link'}
+          onPress={() => void submit().catch(() => undefined)}
+          disabled={create.isPending}
+          testID="create-share-link"
+        />
       </View>
       {create.isError ? (
         <Text role="alert" tone="danger">
@@ -150,7 +195,12 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
             {made.url}
           </Text>
           <View style={styles.row}>
-            <Button kind="secondary" label={made.copied ? 'Copied' : 'Copy link'} onPress={() => void copy()} testID="copy-share-link" />
+            <Button
+              kind="secondary"
+              label={made.copied ? 'Copied' : 'Copy link'}
+              onPress={() => void copy()}
+              testID="copy-share-link"
+            />
           </View>
           {made.copied === false ? (
             <Text variant="small" tone="warning">
@@ -167,11 +217,21 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
                 <Text weight="semibold">{link.version === null ? 'Latest version' : `v${link.version}`}</Text>
                 <Text variant="small" tone="muted">
                   {link.createdBy?.displayName ?? 'Former member'} · {formatWhen(link.createdAt)} ·{' '}
-                  {link.revokedAt ? `revoked ${formatDay(link.revokedAt)}` : link.expiresAt ? `${link.active ? 'expires' : 'expired'} ${formatDay(link.expiresAt)}` : 'no expiry'}
+                  {link.revokedAt
+                    ? `revoked ${formatDay(link.revokedAt)}`
+                    : link.expiresAt
+                      ? `${link.active ? 'expires' : 'expired'} ${formatDay(link.expiresAt)}`
+                      : 'no expiry'}
                 </Text>
               </View>
               {link.active ? (
-                <Button kind="quiet" label="Revoke" accessibilityLabel={`Revoke the link to ${link.version === null ? 'the latest version' : `v${link.version}`}`} onPress={() => revoke.mutate(link.id)} disabled={revoke.isPending} />
+                <Button
+                  kind="quiet"
+                  label="Revoke"
+                  accessibilityLabel={`Revoke the link to ${link.version === null ? 'the latest version' : `v${link.version}`}`}
+                  onPress={() => revoke.mutate(link.id)}
+                  disabled={revoke.isPending}
+                />
               ) : (
                 <Text variant="small" tone="muted">
                   Inactive
@@ -186,30 +246,55 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
 }
 
 function fileNameFor(title: string): string {
-  const slug = title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'notebook';
+  const slug =
+    title
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'notebook';
   return `${slug}.blazebook.json`;
 }
 
 function ExportPanel({ design }: { design: Notebook }) {
-  const [state, setState] = useState<{ busy: boolean; message: string | null; error: boolean }>({ busy: false, message: null, error: false });
+  const [state, setState] = useState<{ busy: boolean; message: string | null; error: boolean }>({
+    busy: false,
+    message: null,
+    error: false,
+  });
   const run = async () => {
     setState({ busy: true, message: null, error: false });
     try {
       const file = await fetchNotebookFile(design.id);
       const saved = await saveTextFile(`${JSON.stringify(file, null, 2)}\n`, fileNameFor(design.title));
-      setState({ busy: false, message: saved ? `Saved ${fileNameFor(design.title)} with ${file.versions.length} versions.` : null, error: false });
+      setState({
+        busy: false,
+        message: saved ? `Saved ${fileNameFor(design.title)} with ${file.versions.length} versions.` : null,
+        error: false,
+      });
     } catch (error) {
       setState({ busy: false, message: errorText(error), error: true });
     }
   };
   return (
     <Card title="Export" testID="export-card">
-      <Text tone="muted">Every version with its notes, as one JSON file of Blazebook’s own notebook format. Import it into any team from the design list.</Text>
+      <Text tone="muted">
+        Every version with its notes, as one JSON file of Blazebook’s own notebook format. Import it into any
+        team from the design list.
+      </Text>
       <View style={styles.row}>
-        <Button kind="secondary" label={state.busy ? 'Exporting…' : 'Download notebook file'} onPress={() => void run()} disabled={state.busy} testID="export-notebook" />
+        <Button
+          kind="secondary"
+          label={state.busy ? 'Exporting…' : 'Download notebook file'}
+          onPress={() => void run()}
+          disabled={state.busy}
+          testID="export-notebook"
+        />
       </View>
       {state.message ? (
-        <Text role={state.error ? 'alert' : 'status'} tone={state.error ? 'danger' : 'ok'} testID="export-status">
+        <Text
+          role={state.error ? 'alert' : 'status'}
+          tone={state.error ? 'danger' : 'ok'}
+          testID="export-status"
+        >
           {state.message}
         </Text>
       ) : null}
@@ -234,6 +319,14 @@ const styles = StyleSheet.create({
   made: { gap: space.xs, padding: space.md, backgroundColor: colors.okSoft, borderRadius: 8 },
   url: { fontSize: 14, wordBreak: 'break-all' } as object,
   links: { gap: space.xs },
-  link: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, paddingVertical: space.xs, borderTopWidth: 1, borderTopColor: colors.line },
+  link: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: space.md,
+    paddingVertical: space.xs,
+    borderTopWidth: 1,
+    borderTopColor: colors.line,
+  },
   linkText: { flexShrink: 1, minWidth: 0, gap: space.xxs },
 });

@@ -1,8 +1,7 @@
 import { memo, useState } from 'react';
 import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import type { WavelengthPoint } from '@/features/solver';
-import { Button, Card, colors, fonts, space, type } from '@/features/ui';
-import { copyText } from '../copy-text';
+import { Button, Card, colors, fonts, space, type, copyText } from '@/features/ui';
 import { rangeTableCsv } from '../csv';
 import { fmt, percent } from '../format';
 
