@@ -3,15 +3,25 @@ import { useEffect, useState } from 'react';
 import { Pressable, StyleSheet, View, type TextStyle } from 'react-native';
 import { tagsSchema, type DesignSort, type ListDesignsQuery, type Notebook } from '@/shared/notebooks';
 import { can } from '@/shared/teams';
-import { useTeamsQuery } from '@/features/teams';
-import { Button, Card, Heading, Screen, Text, TextField, colors, fonts, space, useLayout } from '@/features/ui';
+import { TeamSwitcher, useTeamsQuery } from '@/features/teams';
+import {
+  Button,
+  Card,
+  Heading,
+  Screen,
+  Text,
+  TextField,
+  colors,
+  fonts,
+  space,
+  useLayout,
+} from '@/features/ui';
 import { formatDay } from '../format';
 import { useDesignListQuery, useImportMutation, useUpdateDesignMutation } from '../queries';
 import { ChoiceChips } from './choice-chips';
 import { CreateNotebookCard } from './create-notebook-card';
 import { Badge } from './history-table';
 import { ImportButton } from './import-button';
-import { TeamTabs } from './team-tabs';
 
 const pageSize = 20;
 const sorts: { value: DesignSort; label: string }[] = [
@@ -19,7 +29,13 @@ const sorts: { value: DesignSort; label: string }[] = [
   { value: 'title', label: 'Title' },
   { value: 'owner', label: 'Owner' },
 ];
-const columnStyle: TextStyle[] = [{ flex: 3, minWidth: 0 }, { flex: 1.2, minWidth: 0 }, { width: 110 }, { width: 70 }, { width: 250 }];
+const columnStyle: TextStyle[] = [
+  { flex: 3, minWidth: 0 },
+  { flex: 1.2, minWidth: 0 },
+  { width: 110 },
+  { width: 70 },
+  { width: 250 },
+];
 
 /** `/notebooks`: the designs of the user's first shared team, else of their personal workspace. */
 export function NotebooksHomeScreen() {
@@ -51,7 +67,12 @@ function RowEditor({ design, onDone }: { design: Notebook; onDone: () => void })
   const [tags, setTags] = useState(design.tags.join(', '));
   const [error, setError] = useState<string | null>(null);
   const save = async () => {
-    const parsedTags = tagsSchema.safeParse(tags.split(',').map((t) => t.trim()).filter(Boolean));
+    const parsedTags = tagsSchema.safeParse(
+      tags
+        .split(',')
+        .map((t) => t.trim())
+        .filter(Boolean),
+    );
     if (!parsedTags.success) {
       setError(`Tags ${parsedTags.error.issues[0]?.message ?? 'are not valid'}`);
       return;
@@ -66,7 +87,13 @@ function RowEditor({ design, onDone }: { design: Notebook; onDone: () => void })
   return (
     <View style={styles.editor} testID={`edit-${design.id}`}>
       <TextField label="Title" value={title} onChangeText={setTitle} maxLength={120} testID="edit-title" />
-      <TextField label="Tags, separated by commas" value={tags} onChangeText={setTags} placeholder="uv, teaching" testID="edit-tags" />
+      <TextField
+        label="Tags, separated by commas"
+        value={tags}
+        onChangeText={setTags}
+        placeholder="uv, teaching"
+        testID="edit-tags"
+      />
       {error ? (
         <Text role="alert" tone="danger">
           {error}
@@ -127,7 +154,13 @@ export function NotebookListScreen() {
   const rowActions = (design: Notebook) =>
     owner ? (
       <View style={styles.rowActions}>
-        <Button kind="quiet" label="Rename / tag" accessibilityLabel={`Rename or tag ${design.title}`} onPress={() => setEditing(design.id)} testID={`rename-${design.id}`} />
+        <Button
+          kind="quiet"
+          label="Rename / tag"
+          accessibilityLabel={`Rename or tag ${design.title}`}
+          onPress={() => setEditing(design.id)}
+          testID={`rename-${design.id}`}
+        />
         <Button
           kind="quiet"
           label={design.archived ? 'Restore' : 'Archive'}
@@ -141,13 +174,19 @@ export function NotebookListScreen() {
 
   const titleCell = (design: Notebook) => (
     <View style={styles.titleCell}>
-      <Pressable role="link" onPress={() => router.push(`/notebooks/${design.id}` as Href)} testID={`open-${design.title}`}>
+      <Pressable
+        role="link"
+        onPress={() => router.push(`/notebooks/${design.id}` as Href)}
+        testID={`open-${design.title}`}
+      >
         <Text weight="semibold" style={styles.link}>
           {design.title}
         </Text>
       </Pressable>
       <View style={styles.marks}>
-        {design.baselineVersion !== null ? <Badge label={`Baseline v${design.baselineVersion}`} tone="accent" /> : null}
+        {design.baselineVersion !== null ? (
+          <Badge label={`Baseline v${design.baselineVersion}`} tone="accent" />
+        ) : null}
         {design.tags.map((t) => (
           <Badge key={t} label={t} tone="primary" />
         ))}
@@ -162,13 +201,15 @@ export function NotebookListScreen() {
 
   return (
     <Screen wide style={styles.page}>
-      {teams.data ? <TeamTabs teams={teams.data} currentTeamId={teamId} /> : null}
+      <TeamSwitcher currentTeamId={teamId} section="notebooks" testID="notebook-team-tabs" />
       <View style={styles.heading}>
         <Heading level={1} testID="list-heading">
           Designs{team ? ` of ${team.personal ? 'your personal workspace' : team.name}` : ''}
         </Heading>
         <Text tone="muted">
-          {owner ? 'Baselines come first: they are where colleagues start.' : 'Baselines come first. You can open, compare and clone every design here.'}
+          {owner
+            ? 'Baselines come first: they are where colleagues start.'
+            : 'Baselines come first. You can open, compare and clone every design here.'}
         </Text>
         {owner && !creating ? (
           <View style={styles.row}>
@@ -180,9 +221,21 @@ export function NotebookListScreen() {
       {owner && creating ? <CreateNotebookCard teamId={teamId} onCancel={() => setCreating(false)} /> : null}
 
       <Card>
-        <TextField label="Search titles" value={search} onChangeText={firstPage(setSearch)} placeholder="e.g. sodium" testID="search" />
+        <TextField
+          label="Search titles"
+          value={search}
+          onChangeText={firstPage(setSearch)}
+          placeholder="e.g. sodium"
+          testID="search"
+        />
         <View style={[styles.filters, wide && styles.filtersWide]}>
-          <ChoiceChips label="Sort by" options={sorts} value={sort} onChange={firstPage((s: DesignSort) => (setSort(s), setDir(undefined)))} testID="sort" />
+          <ChoiceChips
+            label="Sort by"
+            options={sorts}
+            value={sort}
+            onChange={firstPage((s: DesignSort) => (setSort(s), setDir(undefined)))}
+            testID="sort"
+          />
           <ChoiceChips
             label="Order"
             options={[
@@ -220,7 +273,14 @@ export function NotebookListScreen() {
           {wide ? (
             <View role="row" style={[styles.row, styles.tableRow, styles.headerRow]}>
               {['Title', 'Owner', 'Updated', 'Latest', ''].map((title, i) => (
-                <Text key={title || 'actions'} role="columnheader" variant="caption" tone="muted" weight="semibold" style={columnStyle[i]}>
+                <Text
+                  key={title || 'actions'}
+                  role="columnheader"
+                  variant="caption"
+                  tone="muted"
+                  weight="semibold"
+                  style={columnStyle[i]}
+                >
                   {title.toUpperCase()}
                 </Text>
               ))}
@@ -230,7 +290,12 @@ export function NotebookListScreen() {
             editing === design.id ? (
               <RowEditor key={design.id} design={design} onDone={() => setEditing(null)} />
             ) : wide ? (
-              <View key={design.id} role="row" style={[styles.row, styles.tableRow]} testID={`design-${design.title}`}>
+              <View
+                key={design.id}
+                role="row"
+                style={[styles.row, styles.tableRow]}
+                testID={`design-${design.title}`}
+              >
                 <View role="cell" style={columnStyle[0]}>
                   {titleCell(design)}
                 </View>
@@ -251,7 +316,8 @@ export function NotebookListScreen() {
               <View key={design.id} role="row" style={styles.block} testID={`design-${design.title}`}>
                 {titleCell(design)}
                 <Text role="cell" variant="small" tone="muted">
-                  {design.createdBy?.displayName ?? 'Former member'} · updated {formatDay(design.updatedAt)} · v{design.latestVersion}
+                  {design.createdBy?.displayName ?? 'Former member'} · updated {formatDay(design.updatedAt)} ·
+                  v{design.latestVersion}
                 </Text>
                 {rowActions(design)}
               </View>
@@ -259,7 +325,13 @@ export function NotebookListScreen() {
           )}
           {data && data.designs.length === 0 ? (
             <Text tone="muted" style={styles.empty} testID="no-designs">
-              {q || tag ? 'No design matches.' : archived === 'only' ? 'Nothing is archived.' : owner ? 'No designs yet: create the first above.' : 'No designs yet.'}
+              {q || tag
+                ? 'No design matches.'
+                : archived === 'only'
+                  ? 'Nothing is archived.'
+                  : owner
+                    ? 'No designs yet: create the first above.'
+                    : 'No designs yet.'}
             </Text>
           ) : null}
           {list.isError ? (
@@ -275,8 +347,20 @@ export function NotebookListScreen() {
               {first}–{last} of {data.total}
             </Text>
             <View style={styles.row}>
-              <Button kind="secondary" label="Previous" onPress={() => setPage((p) => Math.max(1, p - 1))} disabled={data.page <= 1} testID="page-previous" />
-              <Button kind="secondary" label="Next" onPress={() => setPage((p) => p + 1)} disabled={last >= data.total} testID="page-next" />
+              <Button
+                kind="secondary"
+                label="Previous"
+                onPress={() => setPage((p) => Math.max(1, p - 1))}
+                disabled={data.page <= 1}
+                testID="page-previous"
+              />
+              <Button
+                kind="secondary"
+                label="Next"
+                onPress={() => setPage((p) => p + 1)}
+                disabled={last >= data.total}
+                testID="page-next"
+              />
             </View>
           </View>
         ) : null}
@@ -284,7 +368,10 @@ export function NotebookListScreen() {
 
       {owner ? (
         <Card title="Import">
-          <Text tone="muted">A notebook file exported from Blazebook: every version and its notes. Problems are listed with their place in the file, and nothing is half-imported.</Text>
+          <Text tone="muted">
+            A notebook file exported from Blazebook: every version and its notes. Problems are listed with
+            their place in the file, and nothing is half-imported.
+          </Text>
           <ImportButton onImport={(file) => importFile.mutateAsync(file)} busy={importFile.isPending} />
         </Card>
       ) : null}
@@ -296,7 +383,13 @@ const styles = StyleSheet.create({
   page: { maxWidth: 1100 },
   heading: { gap: space.xs },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
-  tableRow: { flexWrap: 'nowrap', gap: space.md, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
+  tableRow: {
+    flexWrap: 'nowrap',
+    gap: space.md,
+    paddingVertical: space.sm,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
   headerRow: { borderBottomWidth: 2 },
   block: { gap: space.xxs, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
   titleCell: { gap: space.xxs, alignItems: 'flex-start' },
@@ -306,6 +399,13 @@ const styles = StyleSheet.create({
   filters: { gap: space.md },
   filtersWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl },
   editor: { gap: space.sm, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
-  paging: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', alignItems: 'center', gap: space.sm, paddingTop: space.sm },
+  paging: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    justifyContent: 'space-between',
+    alignItems: 'center',
+    gap: space.sm,
+    paddingTop: space.sm,
+  },
   empty: { paddingVertical: space.md },
 });

@@ -3,13 +3,27 @@ import { Pressable, ScrollView, StyleSheet, Text } from 'react-native';
 import { colors, fonts, minTouch, radius, space, type } from '@/features/ui';
 import { useTeamsQuery } from '../queries';
 
+type Props = {
+  currentTeamId?: string;
+  /** Which page of the chosen team a tab opens. */
+  section?: 'members' | 'notebooks';
+  testID?: string;
+};
+
 /** Every team the user is in, as a row of tabs; the current one is marked. */
-export function TeamSwitcher({ currentTeamId }: { currentTeamId?: string }) {
+export function TeamSwitcher({ currentTeamId, section = 'members', testID = 'team-switcher' }: Props) {
   const teams = useTeamsQuery();
   const router = useRouter();
   if (!teams.data || teams.data.length === 0) return null;
   return (
-    <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.row} role="tablist" aria-label="Your teams" testID="team-switcher">
+    <ScrollView
+      horizontal
+      showsHorizontalScrollIndicator={false}
+      contentContainerStyle={styles.row}
+      role="tablist"
+      aria-label="Your teams"
+      testID={testID}
+    >
       {teams.data.map((team) => {
         const current = team.id === currentTeamId;
         return (
@@ -17,8 +31,12 @@ export function TeamSwitcher({ currentTeamId }: { currentTeamId?: string }) {
             key={team.id}
             role="tab"
             aria-selected={current}
-            onPress={() => router.push(`/teams/${team.id}/members` as Href)}
-            style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.tab, current && styles.current, hovered && !current && styles.hovered]}
+            onPress={() => router.push(`/teams/${team.id}/${section}` as Href)}
+            style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [
+              styles.tab,
+              current && styles.current,
+              hovered && !current && styles.hovered,
+            ]}
           >
             <Text style={[styles.label, current && styles.labelCurrent]} numberOfLines={1}>
               {team.personal ? 'Personal workspace' : team.name}
