@@ -5,6 +5,7 @@ import { launchBrowser, screenshot, startServer, viewports, type RunningServer }
 // The demo accounts the server seeds in development (README, "Demo data").
 const password = 'grating-demo-2026';
 const owner = 'maren.owner@quillmere-lab.example.com';
+const reviewer = 'tobiah.reviewer@quillmere-lab.example.com';
 const viewer = 'juno.viewer@quillmere-lab.example.com';
 const title = 'Sodium doublet monochromator';
 
@@ -134,6 +135,21 @@ describe('design notebooks in Chromium', () => {
     await shoot(page, 'notebooks-compare');
   });
 
+  it('lets the reviewer approve v2 with a comment, shown with its decision', async () => {
+    const reviewerContext = await signedInContext(reviewer);
+    const reviewerPage = await reviewerContext.newPage();
+    reviewerPage.on('pageerror', (error) => errors.push(error.message));
+    await reviewerPage.goto(`${server.url}/notebooks/${notebookId}/v/2`);
+    await reviewerPage.getByTestId('review-empty').waitFor();
+    await reviewerPage.getByTestId('review-body').fill('The doublet is split; fine for the teaching lab.');
+    await reviewerPage.getByTestId('review-approve').click();
+    await reviewerPage.getByTestId('review-item').filter({ hasText: 'fine for the teaching lab' }).waitFor();
+    await reviewerPage.getByTestId('review-list').getByTestId('review-decision-approved').waitFor();
+    expect(await reviewerPage.getByTestId('review-body').inputValue()).toBe('');
+    await screenshot(reviewerPage, 'notebooks-review-wide');
+    await reviewerContext.close();
+  });
+
   it('lets the viewer read it only, and clone it into their workspace with where it came from', async () => {
     const viewerContext = await signedInContext(viewer);
     const viewerPage = await viewerContext.newPage();
@@ -141,6 +157,9 @@ describe('design notebooks in Chromium', () => {
     await viewerPage.goto(`${server.url}/notebooks/${notebookId}/v/2`);
     await viewerPage.getByTestId('read-only-note').waitFor();
     expect(await viewerPage.getByTestId('save-card').count()).toBe(0);
+    // The reviewer's approval is there to read; the viewer has no form to answer it.
+    await viewerPage.getByTestId('review-decision-approved').first().waitFor();
+    expect(await viewerPage.getByTestId('review-body').count()).toBe(0);
     await viewerPage.getByTestId('tab-sharing').click();
     expect(await viewerPage.getByTestId('share-card').count()).toBe(0);
     await viewerPage.getByTestId('clone-submit').click();
@@ -169,6 +188,7 @@ describe('design notebooks in Chromium', () => {
     await visitorPage.getByTestId('plots-card').waitFor();
     expect(await visitorPage.getByTestId('save-card').count()).toBe(0);
     expect(await visitorPage.getByText('Members').count()).toBe(0);
+    expect(await visitorPage.getByTestId('review-panel').count()).toBe(0);
     await shoot(visitorPage, 'notebooks-share');
     await visitor.close();
   });
