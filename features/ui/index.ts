@@ -7,6 +7,7 @@ export { TextField } from './components/text-field';
 export { Wordmark } from './components/wordmark';
 export { copyText } from './clipboard';
 export { fontAssets } from './fonts';
+export { saveTextFile } from './save-text-file';
 export { ThemeProvider, useLayout, useTheme } from './theme-context';
 export {
   breakpoints,

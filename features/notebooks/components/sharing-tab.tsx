@@ -4,7 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Notebook, Version } from '@/shared/notebooks';
 import { can } from '@/shared/teams';
 import { useTeamsQuery } from '@/features/teams';
-import { Button, Card, Screen, Text, TextField, colors, space, copyText } from '@/features/ui';
+import { Button, Card, Screen, Text, TextField, colors, copyText, saveTextFile, space } from '@/features/ui';
 import { formatDay, formatWhen } from '../format';
 import {
   fetchNotebookFile,
@@ -14,7 +14,7 @@ import {
   useRevokeShareLinkMutation,
   useShareLinksQuery,
 } from '../queries';
-import { absoluteUrl, saveTextFile } from '../save-file';
+import { absoluteUrl } from '../links';
 import { ChoiceChips } from './choice-chips';
 
 const errorText = (error: unknown) => (error instanceof Error ? error.message : 'That did not work.');

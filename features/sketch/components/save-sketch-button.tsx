@@ -1,12 +1,11 @@
 import { useState } from 'react';
-import { Button } from '@/features/ui';
+import { Button, saveTextFile } from '@/features/ui';
 import type { Design } from '@/shared/design';
-import { saveSvgFile } from '../save-svg';
 import { SKETCH_FILE_NAME, sketchSvgDocument } from '../svg-file';
 
 /** Builds the standalone SVG of `design`'s sketch and saves it (a download on the web). */
 export async function saveSketchSvg(design: Design, options: { settingNm?: number } = {}): Promise<boolean> {
-  return saveSvgFile(sketchSvgDocument(design, options), SKETCH_FILE_NAME);
+  return saveTextFile(sketchSvgDocument(design, options), SKETCH_FILE_NAME, 'image/svg+xml');
 }
 
 type Props = { design: Design; settingNm?: number | null; testID?: string };

@@ -1,5 +1,9 @@
 /** Web (and default): hand the text to the browser as a file download. */
-export async function saveTextFile(text: string, fileName: string, mimeType = 'application/json'): Promise<boolean> {
+export async function saveTextFile(
+  text: string,
+  fileName: string,
+  mimeType = 'application/json',
+): Promise<boolean> {
   const url = URL.createObjectURL(new Blob([text], { type: mimeType }));
   try {
     const link = document.createElement('a');
@@ -11,12 +15,7 @@ export async function saveTextFile(text: string, fileName: string, mimeType = 'a
     link.remove();
     return true;
   } finally {
-    // Revoking at once cancels the download in some browsers.
+    // Revoke after the click has been handled; revoking at once cancels the download in some browsers.
     setTimeout(() => URL.revokeObjectURL(url), 1000);
   }
-}
-
-/** The address a share link opens, absolute so it can be pasted anywhere. */
-export function absoluteUrl(path: string): string {
-  return typeof window === 'undefined' ? path : `${window.location.origin}${path}`;
 }
