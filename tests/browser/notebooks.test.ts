@@ -189,6 +189,8 @@ describe('design notebooks in Chromium', () => {
     expect(await visitorPage.getByTestId('save-card').count()).toBe(0);
     expect(await visitorPage.getByText('Members').count()).toBe(0);
     expect(await visitorPage.getByTestId('review-panel').count()).toBe(0);
+    // A read-only page offers no starting presets: nothing here can replace the shared design.
+    expect(await visitorPage.getByTestId('preset-picker').count()).toBe(0);
     await shoot(visitorPage, 'notebooks-share');
     await visitor.close();
   });

@@ -114,13 +114,15 @@ export function Workbench({
 
   const editor = (
     <>
-      <PresetPicker
-        presetId={bench.presetId}
-        onPick={pickPreset}
-        undo={
-          undo ? { title: undo.title, onUndo: () => (bench.restore(undo.previous), setUndo(null)) } : null
-        }
-      />
+      {showPresets && !readOnly ? (
+        <PresetPicker
+          presetId={bench.presetId}
+          onPick={pickPreset}
+          undo={
+            undo ? { title: undo.title, onUndo: () => (bench.restore(undo.previous), setUndo(null)) } : null
+          }
+        />
+      ) : null}
       <DesignEditor
         control={bench.form.control}
         setValue={bench.form.setValue}
