@@ -21,23 +21,30 @@ import { VersionPicker } from './version-picker';
 const BEFORE = { color: colors.inkMuted, dash: '6 4' };
 const AFTER = { color: colors.accent };
 
+/** Column titles of a compare table: the first names the row, the others sit over numbers. */
+function HeaderRow({ titles }: { titles: readonly string[] }) {
+  return (
+    <View role="row" style={[styles.row, styles.headerRow]}>
+      {titles.map((title, i) => (
+        <Text
+          key={title}
+          role="columnheader"
+          variant="caption"
+          tone="muted"
+          weight="semibold"
+          style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}
+        >
+          {title.toUpperCase()}
+        </Text>
+      ))}
+    </View>
+  );
+}
+
 function FiguresTable({ data }: { data: CompareResponse }) {
   return (
     <View role="table" aria-label="Derived figures" testID="compare-figures">
-      <View role="row" style={[styles.row, styles.headerRow]}>
-        {['Figure', `v${data.a.number}`, `v${data.b.number}`, 'Change'].map((title, i) => (
-          <Text
-            key={title}
-            role="columnheader"
-            variant="caption"
-            tone="muted"
-            weight="semibold"
-            style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}
-          >
-            {title.toUpperCase()}
-          </Text>
-        ))}
-      </View>
+      <HeaderRow titles={['Figure', `v${data.a.number}`, `v${data.b.number}`, 'Change']} />
       {data.figures.map((figure) => (
         <View key={figure.key} role="row" style={styles.row} testID={`figure-${figure.key}`}>
           <Text role="cell" variant="small" style={styles.wideCell}>
@@ -91,20 +98,7 @@ function ParametersTable({ data }: { data: CompareResponse }) {
         </Text>
       </Text>
       <View role="table" aria-label="Parameters" testID="compare-params">
-        <View role="row" style={[styles.row, styles.headerRow]}>
-          {['Parameter', `v${data.a.number}`, `v${data.b.number}`].map((title, i) => (
-            <Text
-              key={title}
-              role="columnheader"
-              variant="caption"
-              tone="muted"
-              weight="semibold"
-              style={i === 0 ? styles.wideCell : [styles.cell, styles.numHead]}
-            >
-              {title.toUpperCase()}
-            </Text>
-          ))}
-        </View>
+        <HeaderRow titles={['Parameter', `v${data.a.number}`, `v${data.b.number}`]} />
         {rows.map((path) => {
           const differs = changed.has(path) || changed.has(path.split('.')[0] ?? '') || a[path] !== b[path];
           return (
