@@ -88,7 +88,10 @@ async function seed(dataDir: string): Promise<{ saveDesignIds: string[] }> {
 
 async function startServer(dataDir: string): Promise<{ url: string; stop(): Promise<void> }> {
   let log = '';
-  const child: ChildProcess = spawn(path.join(rootDir, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
+  // BENCH_API_PROFILE=<dir> writes a V8 CPU profile of the server there when it stops.
+  const profileDir = process.env.BENCH_API_PROFILE;
+  const nodeArgs = profileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(profileDir)}`] : [];
+  const child: ChildProcess = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', 'server/index.ts'], {
     cwd: rootDir,
     // production: no dev routes, no seeding on start, no per-request dev logging.
     env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, NODE_ENV: 'production' },
@@ -121,7 +124,7 @@ async function startServer(dataDir: string): Promise<{ url: string; stop(): Prom
   };
 }
 
-type Row = { name: string; reqPerSec: number; p50: number; p99: number; ok: number; failed: number };
+type Row = { name: string; reqPerSec: number; p50: number; p99: number; ok: number; failed: number; bytesPerResponse: number; statuses: string };
 
 async function run(name: string, options: autocannon.Options, seconds: number): Promise<Row> {
   const result = await autocannon({ connections: CONNECTIONS, duration: seconds, ...options });
@@ -132,6 +135,11 @@ async function run(name: string, options: autocannon.Options, seconds: number): 
     p99: result.latency.p99,
     ok: result['2xx'],
     failed: result.non2xx + result.errors + result.timeouts,
+    bytesPerResponse: result.requests.total ? result.throughput.total / result.requests.total : 0,
+    statuses: Object.entries(result.statusCodeStats ?? {})
+      .filter(([code]) => !code.startsWith('2'))
+      .map(([code, { count }]) => `${count}×${code}`)
+      .join(' '),
   };
 }
 
@@ -153,7 +161,8 @@ try {
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
-  const headers = { cookie, origin, 'content-type': 'application/json' };
+  // What a browser sends: it always accepts compressed answers.
+  const headers = { cookie, origin, 'content-type': 'application/json', 'accept-encoding': process.env.BENCH_AE ?? 'gzip, deflate, br' };
   const teams = (await (await fetch(`${server.url}/api/teams`, { headers })).json()) as {
     teams: { id: string; name: string }[];
   };
@@ -169,60 +178,78 @@ try {
     url: `${server.url}/api/teams/${teamId}/designs?sort=updated&pageSize=20`,
     headers,
   };
-  // Each connection takes a design of its own and saves on top of the version it saved last.
+  // autocannon resets a connection's context before every request, so designs are leased: a save
+  // takes a free design and gives it back with its response. With as many designs as connections
+  // no two saves are ever in flight on one design, as with designers each saving their own.
   const latest = new Map(saveDesignIds.map((id) => [id, 1]));
-  let nextDesign = 0;
-  const saves = (): autocannon.Options => ({
-    url: server!.url,
-    headers,
-    requests: [
-      {
-        method: 'POST',
-        setupRequest: (req, ctx) => {
-          const context = ctx as Record<string, unknown>;
-          context.designId ??= saveDesignIds[nextDesign++ % saveDesignIds.length];
-          const id = context.designId as string;
-          const base = latest.get(id)!;
-          return {
-            ...req,
-            path: `/api/designs/${id}/versions`,
-            body: JSON.stringify({
-              baseVersion: base,
-              params: withSlits(10 + (base % 90)),
-              notes: 'Bench save.',
-              message: `Bench save on v${base}`,
-            }),
-          };
+  const resyncLatest = async () => {
+    // A save still in flight when a run ends is answered after autocannon stops listening.
+    for (const id of saveDesignIds) {
+      const answer = (await (await fetch(`${server!.url}/api/designs/${id}`, { headers })).json()) as {
+        design: { latestVersion: number };
+      };
+      latest.set(id, answer.design.latestVersion);
+    }
+  };
+  const saves = (): autocannon.Options => {
+    const free = [...saveDesignIds];
+    return {
+      url: server!.url,
+      headers,
+      requests: [
+        {
+          method: 'POST',
+          setupRequest: (req, ctx) => {
+            const id = free.pop();
+            if (!id) throw new Error('more saves in flight than designs to save');
+            (ctx as Record<string, unknown>).designId = id;
+            const base = latest.get(id)!;
+            return {
+              ...req,
+              path: `/api/designs/${id}/versions`,
+              body: JSON.stringify({
+                baseVersion: base,
+                params: withSlits(10 + (base % 90)),
+                notes: 'Bench save.',
+                message: `Bench save on v${base}`,
+              }),
+            };
+          },
+          onResponse: (status, body, ctx) => {
+            const id = (ctx as Record<string, unknown>).designId as string;
+            if (status === 201) latest.set(id, (JSON.parse(body) as { version: { number: number } }).version.number);
+            free.push(id);
+          },
         },
-        onResponse: (status, body, ctx) => {
-          const context = ctx as Record<string, unknown>;
-          // A save still in flight when a run ended leaves a stale base: the 409 names the latest.
-          if (status === 409)
-            latest.set(
-              context.designId as string,
-              (JSON.parse(body) as { error: { latest: { number: number } } }).error.latest.number,
-            );
-          if (status === 201)
-            latest.set(
-              context.designId as string,
-              (JSON.parse(body) as { version: { number: number } }).version.number,
-            );
-        },
-      },
-    ],
-  });
+      ],
+    };
+  };
 
   console.log(
     `Server at ${server.url}; ${list.total} designs in the lab team; ${CONNECTIONS} connections, ${MEASURE_S} s each after ${WARMUP_S} s of warm-up.\n`,
   );
+  // BENCH_API_ONLY=version,list,save runs some of the scenarios (e.g. to profile one).
+  const only = new Set((process.env.BENCH_API_ONLY ?? 'version,list,save').split(','));
   const rows: Row[] = [];
-  await run('warm-up', versionRead, WARMUP_S);
-  rows.push(await run('GET one version', versionRead, MEASURE_S));
-  await run('warm-up', listRead, WARMUP_S);
-  rows.push(await run(`GET design list (20 of ${list.total})`, listRead, MEASURE_S));
-  await run('warm-up', saves(), WARMUP_S);
-  nextDesign = 0;
-  rows.push(await run('POST save a version', saves(), MEASURE_S));
+  if (only.has('session')) {
+    // Not a target: the floor every signed-in request pays (HTTP, middleware, session).
+    const sessionRead: autocannon.Options = { url: `${server.url}/api/auth/session`, headers };
+    await run('warm-up', sessionRead, WARMUP_S);
+    rows.push(await run('GET session (floor)', sessionRead, MEASURE_S));
+  }
+  if (only.has('version')) {
+    await run('warm-up', versionRead, WARMUP_S);
+    rows.push(await run('GET one version', versionRead, MEASURE_S));
+  }
+  if (only.has('list')) {
+    await run('warm-up', listRead, WARMUP_S);
+    rows.push(await run(`GET design list (20 of ${list.total})`, listRead, MEASURE_S));
+  }
+  if (only.has('save')) {
+    await run('warm-up', saves(), WARMUP_S);
+    await resyncLatest();
+    rows.push(await run('POST save a version', saves(), MEASURE_S));
+  }
 
   const pad = (s: string, n: number) => s.padEnd(n);
   console.log(
@@ -230,7 +257,7 @@ try {
   );
   for (const row of rows) {
     console.log(
-      `${pad(row.name, 28)}${pad(row.reqPerSec.toFixed(0), 10)}${pad(String(row.p50), 9)}${pad(String(row.p99), 9)}${pad(String(row.ok), 9)}${row.failed}`,
+      `${pad(row.name, 28)}${pad(row.reqPerSec.toFixed(0), 10)}${pad(String(row.p50), 9)}${pad(String(row.p99), 9)}${pad(String(row.ok), 9)}${pad(row.bytesPerResponse.toFixed(0), 8)}${row.failed}${row.statuses ? ` (${row.statuses})` : ''}`,
     );
   }
   console.log('\nTargets: reads ≥ 2000 req/s with p99 ≤ 20 ms; saves p99 ≤ 50 ms.');

@@ -64,7 +64,10 @@ export function createApp(deps: AppDeps) {
       strictTransportSecurity: deps.https ?? false,
     }),
   );
-  app.use(compression());
+  // An answer smaller than TCP's initial congestion window (10 segments, about 14 KB; RFC 6928)
+  // arrives in one round trip compressed or not, so only larger ones (bundles, long lists,
+  // exports) are worth the server's time to compress.
+  app.use(compression({ threshold: '14kb' }));
 
   const apiRouter = express.Router();
   apiRouter.use(express.json({ limit: bodyLimit }));
@@ -82,8 +85,9 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(healthRouter(deps));
   apiRouter.use(solveRouter());
   apiRouter.use(auth.router);
-  apiRouter.use(createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl }).router);
-  apiRouter.use(createNotebooks({ db: deps.database.db, clock: deps.clock }).router);
+  const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
+  apiRouter.use(teams.router);
+  apiRouter.use(createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock }).router);
   apiRouter.use(createReviews({ db: deps.database.db, clock: deps.clock }).router);
   if (deps.nodeEnv !== 'production') apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock)));
   apiRouter.use(apiNotFound);

@@ -217,6 +217,7 @@ export const versionListResponseSchema = z.object({
   versions: z.array(versionHeaderSchema),
 });
 export const versionResponseSchema = z.object({ version: versionSchema });
+export type VersionResponse = z.infer<typeof versionResponseSchema>;
 
 /** `POST /api/designs/:id/versions`: saves version latest+1, only if `baseVersion` is the latest. */
 export const saveVersionRequestSchema = z.object({

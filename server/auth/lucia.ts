@@ -4,6 +4,8 @@ import type { Database } from '../../db/client';
 import { sessions, users } from '../../db/schema';
 
 export const sessionCookieName = 'blazebook_session';
+/** Sessions last 30 days; Lucia renews one used in its second half. */
+export const sessionLifetimeMs = 30 * 24 * 60 * 60_000;
 
 /**
  * The one Lucia instance per app. Lucia is deprecated upstream; nothing outside `server/auth/`
@@ -14,7 +16,7 @@ export const sessionCookieName = 'blazebook_session';
 export function createLucia(db: Database, options: { secure: boolean }) {
   const adapter = new DrizzlePostgreSQLAdapter(db, sessions, users);
   return new Lucia(adapter, {
-    sessionExpiresIn: new TimeSpan(30, 'd'),
+    sessionExpiresIn: new TimeSpan(sessionLifetimeMs / 1000, 's'),
     sessionCookie: {
       name: sessionCookieName,
       // Over plain http (localhost, tests) a Secure cookie would never come back.

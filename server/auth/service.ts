@@ -6,7 +6,8 @@ import { HttpError, badRequest } from '../http/errors';
 import type { Mailer } from '../mail/mailer';
 import { passwordResetMessage, verifyEmailMessage } from '../mail/templates';
 import { unauthenticated } from './errors';
-import type { AppLucia } from './lucia';
+import { createReadCache } from '../read-cache';
+import { sessionLifetimeMs, type AppLucia } from './lucia';
 import { hashPassword, isCommonPassword, verifyAgainstDummy, verifyPassword } from './password';
 import type { AuthRepository, UserRow } from './repository';
 import { createToken, hashToken } from './tokens';
@@ -34,7 +35,17 @@ export function toUser(row: Pick<UserRow, 'id' | 'email' | 'displayName' | 'emai
   return { id: row.id, email: row.email, displayName: row.displayName, emailVerified: row.emailVerifiedAt !== null };
 }
 
+/**
+ * How long a checked session is trusted without asking the database. Every sign-out, reset and
+ * verification in this process forgets the sessions it touches at once, so this only bounds a
+ * change made outside the server.
+ */
+export const sessionCacheTtlMs = 60_000;
+
 export function createAuthService({ repository, lucia, mailer, clock, publicUrl }: AuthServiceDeps) {
+  // Checking a session costs a database round trip on every API request; most are repeats.
+  const checkedSessions = createReadCache<SessionAuth & { expiresAt: number }>({ max: 10_000, ttlMs: sessionCacheTtlMs });
+  const forgetSessionsOf = (userId: string) => checkedSessions.forgetWhere((_id, entry) => entry.user.id === userId);
   const link = (path: string, token: string) => `${publicUrl().replace(/\/$/, '')}${path}?token=${token}`;
 
   async function startSession(userId: string): Promise<string> {
@@ -87,11 +98,13 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
 
     async signOut(sessionId: string): Promise<string> {
       await lucia.invalidateSession(sessionId);
+      checkedSessions.forget(sessionId);
       return lucia.createBlankSessionCookie().serialize();
     },
 
     async signOutEverywhere(userId: string): Promise<string> {
       await lucia.invalidateUserSessions(userId);
+      forgetSessionsOf(userId);
       return lucia.createBlankSessionCookie().serialize();
     },
 
@@ -122,6 +135,7 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
       // Following the link proves the address is theirs.
       await repository.markEmailVerified(used.userId, clock.now());
       await lucia.invalidateUserSessions(used.userId);
+      forgetSessionsOf(used.userId);
       const row = await repository.findUserById(used.userId);
       if (!row) throw badRequest(badLink);
       return { user: toUser(row), setCookie: await startSession(row.id) };
@@ -131,6 +145,8 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
       const used = await repository.consumeToken(await hashToken(token), 'verify-email');
       if (!used || used.expiresAt.getTime() <= clock.now().getTime()) throw badRequest(badLink, { token: 'has expired or was already used' });
       await repository.markEmailVerified(used.userId, clock.now());
+      // Their sessions carry `emailVerified`.
+      forgetSessionsOf(used.userId);
       const row = await repository.findUserById(used.userId);
       if (!row) throw badRequest(badLink);
       return toUser(row);
@@ -148,10 +164,22 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
     async readSession(cookieHeader: string | undefined): Promise<{ auth: SessionAuth | null; setCookie?: string }> {
       const id = lucia.readSessionCookie(cookieHeader ?? '');
       if (!id) return { auth: null };
-      const { session, user } = await lucia.validateSession(id);
-      if (!session) return { auth: null, setCookie: lucia.createBlankSessionCookie().serialize() };
-      const auth = { user: { id: user.id, email: user.email, displayName: user.displayName, emailVerified: user.emailVerified }, sessionId: session.id };
-      return session.fresh ? { auth, setCookie: lucia.createSessionCookie(session.id).serialize() } : { auth };
+      let renewed = false;
+      const checked = await checkedSessions.load(
+        id,
+        async () => {
+          const { session, user } = await lucia.validateSession(id);
+          if (!session) return null;
+          renewed = session.fresh;
+          const { email, displayName, emailVerified } = user;
+          return { user: { id: user.id, email, displayName, emailVerified }, sessionId: session.id, expiresAt: session.expiresAt.getTime() };
+        },
+        // Trusted until the second half of its life, where Lucia has to renew it.
+        (entry) => entry.expiresAt - sessionLifetimeMs / 2,
+      );
+      if (!checked) return { auth: null, setCookie: lucia.createBlankSessionCookie().serialize() };
+      const auth = { user: checked.user, sessionId: checked.sessionId };
+      return renewed ? { auth, setCookie: lucia.createSessionCookie(checked.sessionId).serialize() } : { auth };
     },
   };
 }

@@ -2,6 +2,7 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import { fieldErrors } from '../../shared/validation';
 import { badRequest } from './errors';
+import { sendJson } from './json';
 
 type Schemas = { body?: z.ZodType; params?: z.ZodType; query?: z.ZodType };
 type Parsed<S extends Schemas> = {
@@ -32,7 +33,7 @@ export function handle<S extends Schemas>(
         input[part] = result.data;
       }
       const value = await handler(input as Parsed<S>, req, res);
-      if (value !== undefined && !res.headersSent) res.json(value);
+      if (value !== undefined && !res.headersSent) sendJson(res, value);
     } catch (error) {
       next(error);
     }

@@ -1,5 +1,6 @@
 import type { Database } from '../../db/client';
 import type { Clock } from '../clock';
+import type { RoleDirectory } from '../teams/index';
 import { createNotebooksRepository } from './repository';
 import { notebooksRouter } from './router';
 import { createNotebooksService } from './service';
@@ -7,9 +8,10 @@ import { createNotebooksService } from './service';
 export type { NotebooksService } from './service';
 export { summarizeVersion } from './summary';
 
-export function createNotebooks(deps: { db: Database; clock: Clock }) {
+export function createNotebooks(deps: { db: Database; roles: RoleDirectory; clock: Clock }) {
   const service = createNotebooksService({
     repository: createNotebooksRepository(deps.db),
+    roles: deps.roles,
     clock: deps.clock,
   });
   return { service, router: notebooksRouter(service) };

@@ -27,7 +27,7 @@ export type VersionView = {
 };
 export type FullVersionView = VersionView & { params: unknown; notes: string };
 
-const designColumns = {
+const designRowColumns = {
   id: designs.id,
   teamId: designs.teamId,
   title: designs.title,
@@ -41,8 +41,9 @@ const designColumns = {
   clonedFromTitle: designs.clonedFromTitle,
   createdAt: designs.createdAt,
   updatedAt: designs.updatedAt,
-  creatorName: creator.displayName,
 };
+
+const designColumns = { ...designRowColumns, creatorName: creator.displayName };
 
 const versionHeaderColumns = {
   number: designVersions.number,
@@ -76,9 +77,11 @@ export type ListFilter = {
   offset: number;
 };
 
-function queries(db: Database) {
-  // The hot reads are prepared once per database: building a Drizzle query costs more than PGlite
-  // takes to run a primary-key lookup (see the team's STACK notes).
+/**
+ * The hot reads, prepared once per database: building a Drizzle query costs more than PGlite takes
+ * to run a primary-key lookup (see the team's STACK notes).
+ */
+function prepareHotReads(db: Database) {
   const designForUser = db
     .select({ ...designColumns, role: memberships.role })
     .from(designs)
@@ -128,20 +131,34 @@ function queries(db: Database) {
     )
     .prepare('notebook_role_of');
 
+  const teamOfDesign = db
+    .select({ teamId: designs.teamId })
+    .from(designs)
+    .where(eq(designs.id, sql.placeholder('designId')))
+    .prepare('notebook_team_of_design');
+
+  return { designForUser, versionForUser, versionByNumber, roleOf, teamOfDesign };
+}
+
+function queries(db: Database) {
+  // Built on first use: a transaction gets its own `queries` and rarely needs any of them.
+  let preparedReads: ReturnType<typeof prepareHotReads> | undefined;
+  const hot = () => (preparedReads ??= prepareHotReads(db));
+
   return {
     async designForUser(designId: string, userId: string): Promise<DesignView | null> {
-      const [row] = await designForUser.execute({ designId, userId });
+      const [row] = await hot().designForUser.execute({ designId, userId });
       return row ?? null;
     },
 
     /** One version, with the caller's role in its design's team, in one round trip. */
     async versionForUser(designId: string, n: number, userId: string) {
-      const [row] = await versionForUser.execute({ designId, n, userId });
+      const [row] = await hot().versionForUser.execute({ designId, n, userId });
       return row ?? null;
     },
 
     async version(designId: string, n: number): Promise<FullVersionView | null> {
-      const [row] = await versionByNumber.execute({ designId, n });
+      const [row] = await hot().versionByNumber.execute({ designId, n });
       return row ?? null;
     },
 
@@ -164,8 +181,14 @@ function queries(db: Database) {
         .orderBy(asc(designVersions.number));
     },
 
+    /** Designs never move between teams. */
+    async teamOfDesign(designId: string): Promise<string | null> {
+      const [row] = await hot().teamOfDesign.execute({ designId });
+      return row?.teamId ?? null;
+    },
+
     async roleOf(teamId: string, userId: string): Promise<Role | null> {
-      const [row] = await roleOf.execute({ teamId, userId });
+      const [row] = await hot().roleOf.execute({ teamId, userId });
       return row?.role ?? null;
     },
 
@@ -222,20 +245,24 @@ function queries(db: Database) {
       await db.insert(designVersions).values(versions);
     },
 
-    async latestVersionNumber(designId: string): Promise<number | null> {
+    /**
+     * Moves an unarchived design's latest version from `baseVersion` to `baseVersion + 1` in one
+     * statement, or returns null when the design is missing, archived or already past that base.
+     */
+    async advanceLatest(designId: string, baseVersion: number, at: Date): Promise<DesignRow & { creatorName: string | null } | null> {
       const [row] = await db
-        .select({ n: designs.latestVersion })
-        .from(designs)
-        .where(eq(designs.id, designId));
-      return row?.n ?? null;
+        .update(designs)
+        .set({ latestVersion: baseVersion + 1, updatedAt: at })
+        .where(and(eq(designs.id, designId), eq(designs.latestVersion, baseVersion), eq(designs.archived, false)))
+        .returning({
+          ...designRowColumns,
+          creatorName: sql<string | null>`(select ${users.displayName} from ${users} where ${users.id} = ${designs.createdBy})`,
+        });
+      return row ?? null;
     },
 
-    async appendVersion(version: VersionInsert) {
+    async insertVersion(version: VersionInsert) {
       await db.insert(designVersions).values(version);
-      await db
-        .update(designs)
-        .set({ latestVersion: version.number, updatedAt: version.createdAt })
-        .where(eq(designs.id, version.designId));
     },
 
     async updateDesign(

@@ -122,9 +122,9 @@ export function notebooksRouter(notebooks: NotebooksService) {
   router.get(
     '/designs/:id/versions/:n',
     signedIn,
-    handle({ params: versionParamsSchema }, async ({ params }, _req, res) => ({
-      version: await notebooks.version(requireUser(res), params.id, params.n),
-    })),
+    handle({ params: versionParamsSchema }, async ({ params }, _req, res) =>
+      notebooks.version(requireUser(res), params.id, params.n),
+    ),
   );
 
   router.get(

@@ -16,6 +16,7 @@ import {
   type Version,
   type VersionHeader,
   type VersionConflictBody,
+  type VersionResponse,
   listDesignsQuerySchema,
   createDesignRequestSchema,
   updateDesignRequestSchema,
@@ -28,11 +29,14 @@ import type { z } from 'zod';
 import { createToken, hashToken } from '../auth/index';
 import type { Clock } from '../clock';
 import { HttpError, badRequest, conflict, forbidden, notFound } from '../http/errors';
-import { createTeamAccess } from '../teams/index';
+import { deepFreeze } from '../http/json';
+import { createReadCache } from '../read-cache';
+import { createTeamAccess, type RoleDirectory } from '../teams/index';
 import { changedParameters, figureChanges } from './compare';
 import type {
   DesignView,
   FullVersionView,
+  ListFilter,
   NotebooksRepository,
   VersionInsert,
   VersionView,
@@ -61,7 +65,7 @@ export class VersionConflictError extends HttpError {
   }
 }
 
-function toNotebook(row: DesignView, role: Role): Notebook {
+function toNotebook(row: Omit<DesignView, 'role'>, role: Role): Notebook {
   return {
     id: row.id,
     teamId: row.teamId,
@@ -98,29 +102,29 @@ function toVersion(row: FullVersionView): Version {
 
 type Versionable = { params: Design; notes: string; message: string };
 
-export type NotebooksServiceDeps = { repository: NotebooksRepository; clock: Clock };
+export type NotebooksServiceDeps = { repository: NotebooksRepository; roles: RoleDirectory; clock: Clock };
 
-/** Versions are immutable, so a read can be answered from memory once its access is checked. */
-const versionCacheSize = 2000;
+/** A backstop for the caches below; each is exact without it (see there). */
+const cacheTtlMs = 60_000;
 
-export function createNotebooksService({ repository, clock }: NotebooksServiceDeps) {
-  const teamAccess = createTeamAccess(repository);
-  // Per app, in process. Safe to keep: a version never changes, a design never changes team, and
-  // only this service writes tags (a team's tag list is dropped on every write to the team).
-  // Roles are never cached: a member removed a second ago must get a 404 now.
-  const versionCache = new Map<string, { teamId: string; version: Version }>();
-  const tagCache = new Map<string, string[]>();
-  const remember = (designId: string, teamId: string, version: Version) => {
-    if (versionCache.size >= versionCacheSize) versionCache.delete(versionCache.keys().next().value!);
-    versionCache.set(`${designId}:${version.number}`, { teamId, version });
-  };
-  const teamTags = async (teamId: string) => {
-    let tags = tagCache.get(teamId);
-    if (!tags) {
-      tags = await repository.teamTags(teamId);
-      tagCache.set(teamId, tags);
-    }
-    return tags;
+export function createNotebooksService({ repository, roles, clock }: NotebooksServiceDeps) {
+  const teamAccess = createTeamAccess(roles);
+  // Per app, in process; roles come from the app's role directory, which the teams service keeps
+  // exact. A version never changes and a design never changes team, so those two caches never go
+  // stale. A team's list pages and tags change only through this service, which forgets them on
+  // every write to one of the team's designs.
+  // Cached answers are frozen: the HTTP layer then serialises each one once (see http/json.ts).
+  const versions = createReadCache<{ teamId: string; answer: VersionResponse }>({ max: 2000, ttlMs: Infinity });
+  const designTeams = createReadCache<string>({ max: 20_000, ttlMs: Infinity });
+  const listPages = createReadCache<DesignListResponse>({ max: 1000, ttlMs: cacheTtlMs });
+  const tagLists = createReadCache<string[]>({ max: 1000, ttlMs: cacheTtlMs });
+  const remember = (designId: string, teamId: string, version: Version) =>
+    versions.set(`${designId}:${version.number}`, { teamId, answer: deepFreeze({ version }) });
+  const teamTags = async (teamId: string) => (await tagLists.load(teamId, () => repository.teamTags(teamId))) ?? [];
+  /** After any write to one of the team's designs. */
+  const forgetTeamLists = (teamId: string) => {
+    listPages.forgetWhere((key) => key.startsWith(`${teamId} `));
+    tagLists.forget(teamId);
   };
 
   /** The design and the caller's role; outsiders and made-up ids get the same 404. */
@@ -164,6 +168,8 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
 
   async function withVersion(user: User, designId: string, n: number): Promise<NotebookWithVersionResponse> {
     const design = await notebook(user, designId);
+    const cached = versions.get(`${designId}:${n}`);
+    if (cached) return { design, version: cached.answer.version };
     const version = await repository.version(designId, n);
     if (!version) throw versionNotFound(n);
     return { design, version: toVersion(version) };
@@ -186,7 +192,6 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
     const rows = versions.map((v, index) =>
       versionRow(id, index + 1, v, user.id, v.parentNumber, v.createdAt ?? now),
     );
-    tagCache.delete(teamId);
     await repository.inTransaction(async (repo) => {
       await repo.insertDesign(
         {
@@ -206,6 +211,7 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
         rows,
       );
     });
+    forgetTeamLists(teamId);
     return withVersion(user, id, rows.length);
   }
 
@@ -230,27 +236,28 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       query: z.output<typeof listDesignsQuerySchema>,
     ): Promise<DesignListResponse> {
       const role = await teamAccess.require(teamId, user.id, 'designs.read');
-      const dir = query.dir ?? (query.sort === 'updated' ? 'desc' : 'asc');
-      const [rows, tags] = [
-        await repository.listDesigns({
-          teamId,
-          q: query.q || undefined,
-          tag: query.tag,
-          sort: query.sort,
-          dir,
-          archived: query.archived,
-          limit: query.pageSize,
-          offset: (query.page - 1) * query.pageSize,
-        }),
-        await teamTags(teamId),
-      ];
-      return {
-        designs: rows.map((row) => toNotebook({ ...row, role }, role)),
-        total: rows[0]?.total ?? 0,
-        page: query.page,
-        pageSize: query.pageSize,
-        tags,
+      const filter: ListFilter = {
+        teamId,
+        q: query.q || undefined,
+        tag: query.tag,
+        sort: query.sort,
+        dir: query.dir ?? (query.sort === 'updated' ? 'desc' : 'asc'),
+        archived: query.archived,
+        limit: query.pageSize,
+        offset: (query.page - 1) * query.pageSize,
       };
+      // The page differs between callers only by their role.
+      const page = await listPages.load(`${teamId} ${role} ${JSON.stringify(filter)}`, async () => {
+        const rows = await repository.listDesigns(filter);
+        return deepFreeze({
+          designs: rows.map((row) => toNotebook(row, role)),
+          total: rows[0]?.total ?? 0,
+          page: query.page,
+          pageSize: query.pageSize,
+          tags: await teamTags(teamId),
+        });
+      });
+      return page!;
     },
 
     async create(
@@ -276,7 +283,7 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
     ): Promise<Notebook> {
       const { design } = await designFor(user, designId, 'designs.edit');
       await repository.updateDesign(designId, { ...patch, updatedAt: clock.now() });
-      tagCache.delete(design.teamId);
+      forgetTeamLists(design.teamId);
       return notebook(user, designId);
     },
 
@@ -285,14 +292,14 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       return (await repository.versionHeaders(designId)).map(toHeader);
     },
 
-    /** The hot read: access and version in one prepared query. */
-    async version(user: User, designId: string, n: number): Promise<Version> {
-      const cached = versionCache.get(`${designId}:${n}`);
+    /** The hot read: from memory once its access is checked, else access and version in one query. */
+    async version(user: User, designId: string, n: number): Promise<VersionResponse> {
+      const cached = versions.get(`${designId}:${n}`);
       if (cached) {
-        const role = await repository.roleOf(cached.teamId, user.id);
+        const role = await roles.roleOf(cached.teamId, user.id);
         if (!role) throw designNotFound();
         if (!can(role, 'designs.read')) throw forbidden();
-        return cached.version;
+        return cached.answer;
       }
       const row = await repository.versionForUser(designId, n, user.id);
       if (!row) {
@@ -304,38 +311,42 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       if (!can(row.role, 'designs.read')) throw forbidden();
       const version = toVersion(row);
       remember(designId, row.teamId, version);
-      return version;
+      return { version };
     },
 
     /**
-     * Saves version latest+1 on top of `baseVersion`. Reading the latest number and inserting
-     * happen in one transaction, and (design, number) is unique, so two saves on one base cannot
-     * both win; the loser gets a 409 with the version that beat it.
+     * Saves version latest+1 on top of `baseVersion`. One conditional update moves the design's
+     * latest number only if it still is the base, in the same transaction as the insert, and
+     * (design, number) is unique, so two saves on one base cannot both win; the loser gets a 409
+     * with the version that beat it.
      */
     async save(
       user: User,
       designId: string,
       input: z.output<typeof saveVersionRequestSchema>,
     ): Promise<NotebookWithVersionResponse> {
-      const { design } = await designFor(user, designId, 'designs.edit');
-      if (design.archived) throw conflict('This design is archived. Restore it before saving a new version.');
-      const summaryRow = versionRow(designId, 0, input, user.id, input.baseVersion, clock.now());
-      const outcome = await repository.inTransaction(async (repo) => {
-        const latest = await repo.latestVersionNumber(designId);
-        if (latest === null) throw designNotFound();
-        if (input.baseVersion > latest)
-          throw badRequest('The base version does not exist.', { baseVersion: `must be at most ${latest}` });
-        if (input.baseVersion !== latest) return { kind: 'conflict' as const, latest };
-        await repo.appendVersion({ ...summaryRow, number: latest + 1 });
-        return { kind: 'saved' as const, n: latest + 1 };
+      const teamId = await designTeams.load(designId, () => repository.teamOfDesign(designId));
+      const role = teamId ? await roles.roleOf(teamId, user.id) : null;
+      if (!teamId || !role) throw designNotFound();
+      if (!can(role, 'designs.edit')) throw forbidden(`A ${role} of this team may not do that.`);
+      const row = versionRow(designId, input.baseVersion + 1, input, user.id, input.baseVersion, clock.now());
+      const saved = await repository.inTransaction(async (repo) => {
+        const design = await repo.advanceLatest(designId, input.baseVersion, row.createdAt!);
+        if (design) await repo.insertVersion(row);
+        return design;
       });
-      if (outcome.kind === 'conflict') {
-        const latest = await repository.version(designId, outcome.latest);
+      if (!saved) {
+        // Refused: say why, from the design as it is now.
+        const { design } = await designFor(user, designId, 'designs.edit');
+        if (design.archived) throw conflict('This design is archived. Restore it before saving a new version.');
+        if (input.baseVersion > design.latestVersion)
+          throw badRequest('The base version does not exist.', { baseVersion: `must be at most ${design.latestVersion}` });
+        const latest = await repository.version(designId, design.latestVersion);
         if (!latest) throw designNotFound();
         throw new VersionConflictError(toVersion(latest));
       }
-      // Answer from what was just written rather than reading it back: a save is the slow path.
-      const row = { ...summaryRow, number: outcome.n };
+      forgetTeamLists(teamId);
+      // Answer from what was just written rather than reading it back.
       const version: Version = {
         number: row.number,
         message: row.message,
@@ -346,9 +357,8 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
         params: input.params,
         notes: input.notes,
       };
-      remember(designId, design.teamId, version);
-      const saved: DesignView = { ...design, latestVersion: row.number, updatedAt: row.createdAt! };
-      return { design: toNotebook(saved, design.role!), version };
+      remember(designId, teamId, version);
+      return { design: toNotebook(saved, role), version };
     },
 
     async compare(
@@ -409,6 +419,7 @@ export function createNotebooksService({ repository, clock }: NotebooksServiceDe
       const { design } = await designFor(user, designId, 'designs.edit');
       if (version !== null && version > design.latestVersion) throw versionNotFound(version);
       await repository.updateDesign(designId, { baselineVersion: version });
+      forgetTeamLists(design.teamId);
       return notebook(user, designId);
     },
 

@@ -2,13 +2,18 @@ import type { Database } from '../../db/client';
 import type { Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
 import { createTeamsRepository } from './repository';
+import { createRoleDirectory } from './roles';
 import { teamsRouter } from './router';
 import { createTeamsService } from './service';
 
 export { createTeamAccess, type TeamAccess } from './access';
+export type { RoleDirectory } from './roles';
 export type { TeamsService } from './service';
 
+/** `roles` is the app's one role directory: every team-scoped feature checks access through it. */
 export function createTeams(deps: { db: Database; mailer: Mailer; clock: Clock; publicUrl: () => string }) {
-  const service = createTeamsService({ repository: createTeamsRepository(deps.db), ...deps });
-  return { service, router: teamsRouter(service) };
+  const repository = createTeamsRepository(deps.db);
+  const roles = createRoleDirectory(repository);
+  const service = createTeamsService({ repository, roles, ...deps });
+  return { service, roles, router: teamsRouter(service) };
 }

@@ -16,6 +16,7 @@ import type { Mailer } from '../mail/mailer';
 import { invitationMessage } from '../mail/templates';
 import { createTeamAccess, teamNotFound } from './access';
 import type { TeamsRepository } from './repository';
+import type { RoleDirectory } from './roles';
 
 export const invitationLifetimeMs = 7 * 24 * 60 * 60_000;
 
@@ -36,10 +37,17 @@ function toInvitation(row: Awaited<ReturnType<TeamsRepository['listPendingInvita
   return { ...row, createdAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString() };
 }
 
-export type TeamsServiceDeps = { repository: TeamsRepository; mailer: Mailer; clock: Clock; publicUrl: () => string };
+export type TeamsServiceDeps = {
+  repository: TeamsRepository;
+  /** Reads roles for every team-scoped feature; this service forgets the roles it changes. */
+  roles: RoleDirectory;
+  mailer: Mailer;
+  clock: Clock;
+  publicUrl: () => string;
+};
 
-export function createTeamsService({ repository, mailer, clock, publicUrl }: TeamsServiceDeps) {
-  const access = createTeamAccess(repository);
+export function createTeamsService({ repository, roles, mailer, clock, publicUrl }: TeamsServiceDeps) {
+  const access = createTeamAccess(roles);
 
   async function teamFor(teamId: string, user: User): Promise<Team> {
     const row = await repository.teamForUser(teamId, user.id);
@@ -76,6 +84,7 @@ export function createTeamsService({ repository, mailer, clock, publicUrl }: Tea
       const team = await repository.getTeam(teamId);
       if (team?.personal) throw conflict('A personal workspace cannot be deleted.');
       await repository.deleteTeam(teamId);
+      roles.forgetTeam(teamId);
     },
 
     async members(user: User, teamId: string): Promise<Member[]> {
@@ -86,13 +95,15 @@ export function createTeamsService({ repository, mailer, clock, publicUrl }: Tea
     /** Owners change roles; the last owner cannot be demoted, checked inside one transaction. */
     async changeRole(user: User, teamId: string, memberId: string, role: Role): Promise<Member> {
       await access.require(teamId, user.id, 'members.manage');
-      return repository.inTransaction(async (repo) => {
+      const changed = await repository.inTransaction(async (repo) => {
         const member = await repo.getMember(teamId, memberId);
         if (!member) throw notFound('No such member in this team.');
         if (member.role === 'owner' && role !== 'owner' && (await repo.countOwners(teamId)) <= 1) throw lastOwner();
         await repo.setRole(teamId, memberId, role);
         return toMember({ ...member, role });
       });
+      roles.forget(teamId, memberId);
+      return changed;
     },
 
     /** Owners remove anyone; every member may remove themselves (leave), except the last owner. */
@@ -104,6 +115,7 @@ export function createTeamsService({ repository, mailer, clock, publicUrl }: Tea
         if (member.role === 'owner' && (await repo.countOwners(teamId)) <= 1) throw lastOwner();
         await repo.removeMember(teamId, memberId);
       });
+      roles.forget(teamId, memberId);
     },
 
     async invitations(user: User, teamId: string): Promise<Invitation[]> {
