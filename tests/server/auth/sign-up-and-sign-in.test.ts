@@ -102,11 +102,14 @@ describe('sign-up, sign-in and sign-out', () => {
     await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'many@example.com', displayName: 'Many', password }).expect(201);
     const [a, b, c] = [browserAgent(ctx.app), browserAgent(ctx.app), browserAgent(ctx.app)];
     for (const agent of [a, b, c]) await agent.post('/api/auth/sign-in').send({ email: 'many@example.com', password }).expect(200);
+    expect((await a.get('/api/auth/session')).body.user).not.toBeNull();
 
     const out = await a.post('/api/auth/sign-out').expect(204);
     expect(cookieOf(out)).toMatch(/blazebook_session=;/);
     expect((await a.get('/api/auth/session')).body.user).toBeNull();
     expect((await b.get('/api/auth/session')).body.user).not.toBeNull();
+    // c's session was just checked too: the server now answers it from memory, and must not.
+    expect((await c.get('/api/auth/session')).body.user).not.toBeNull();
 
     await b.post('/api/auth/sign-out-everywhere').expect(204);
     expect((await b.get('/api/auth/session')).body.user).toBeNull();
@@ -117,6 +120,7 @@ describe('sign-up, sign-in and sign-out', () => {
   it('confirms the e-mail address through the mailed link, once', async () => {
     const agent = browserAgent(ctx.app);
     await agent.post('/api/auth/sign-up').send({ email: 'verify@example.com', displayName: 'Verify', password }).expect(201);
+    expect((await agent.get('/api/auth/session')).body.user.emailVerified).toBe(false);
     const link = linkIn(ctx.mailer, 'verify@example.com', '/verify-email');
     expect(link.startsWith(`${testOrigin}/verify-email?token=`)).toBe(true);
     const message = ctx.mailer.sent.find((m) => m.to === 'verify@example.com')!;
