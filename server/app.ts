@@ -1,4 +1,3 @@
-import compression from 'compression';
 import express from 'express';
 import helmet from 'helmet';
 import type { DatabaseHandle } from '../db/client';
@@ -64,10 +63,6 @@ export function createApp(deps: AppDeps) {
       strictTransportSecurity: deps.https ?? false,
     }),
   );
-  // An answer smaller than TCP's initial congestion window (10 segments, about 14 KB; RFC 6928)
-  // arrives in one round trip compressed or not, so only larger ones (bundles, long lists,
-  // exports) are worth the server's time to compress.
-  app.use(compression({ threshold: '14kb' }));
 
   const apiRouter = express.Router();
   apiRouter.use(express.json({ limit: bodyLimit }));

@@ -33,7 +33,7 @@ export function handle<S extends Schemas>(
         input[part] = result.data;
       }
       const value = await handler(input as Parsed<S>, req, res);
-      if (value !== undefined && !res.headersSent) sendJson(res, value);
+      if (value !== undefined && !res.headersSent) await sendJson(res, value);
     } catch (error) {
       next(error);
     }

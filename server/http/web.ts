@@ -1,6 +1,8 @@
+import compression from 'compression';
 import express, { Router } from 'express';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import { compressFromBytes } from './json';
 
 /**
  * Serves the exported web app. The export is a single page, so every GET that is not an API
@@ -8,6 +10,8 @@ import path from 'node:path';
  */
 export function webRouter(webRoot: string) {
   const router = Router();
+  // The bundles are megabytes. API answers compress themselves (http/json.ts).
+  router.use(compression({ threshold: compressFromBytes }));
   const indexHtml = path.join(webRoot, 'index.html');
   router.use(
     express.static(webRoot, {

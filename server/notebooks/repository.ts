@@ -27,7 +27,7 @@ export type VersionView = {
 };
 export type FullVersionView = VersionView & { params: unknown; notes: string };
 
-const designRowColumns = {
+const designColumns = {
   id: designs.id,
   teamId: designs.teamId,
   title: designs.title,
@@ -41,9 +41,8 @@ const designRowColumns = {
   clonedFromTitle: designs.clonedFromTitle,
   createdAt: designs.createdAt,
   updatedAt: designs.updatedAt,
+  creatorName: creator.displayName,
 };
-
-const designColumns = { ...designRowColumns, creatorName: creator.displayName };
 
 const versionHeaderColumns = {
   number: designVersions.number,
@@ -60,6 +59,43 @@ const fullVersionColumns = {
   params: designVersions.params,
   notes: designVersions.notes,
 };
+
+/** A `designs` row as raw SQL returns it: snake_case, timestamps as text. */
+type SavedDesignRow = {
+  id: string;
+  team_id: string;
+  title: string;
+  tags: string[];
+  created_by: string | null;
+  archived: boolean;
+  latest_version: number;
+  baseline_version: number | null;
+  cloned_from_design_id: string | null;
+  cloned_from_version: number | null;
+  cloned_from_title: string | null;
+  created_at: string;
+  updated_at: string;
+  creator_name: string | null;
+};
+
+function fromSavedRow(row: SavedDesignRow): DesignRow & { creatorName: string | null } {
+  return {
+    id: row.id,
+    teamId: row.team_id,
+    title: row.title,
+    tags: row.tags,
+    createdBy: row.created_by,
+    archived: row.archived,
+    latestVersion: row.latest_version,
+    baselineVersion: row.baseline_version,
+    clonedFromDesignId: row.cloned_from_design_id,
+    clonedFromVersion: row.cloned_from_version,
+    clonedFromTitle: row.cloned_from_title,
+    createdAt: new Date(row.created_at),
+    updatedAt: new Date(row.updated_at),
+    creatorName: row.creator_name,
+  };
+}
 
 /** `%` and `_` typed in the search box are letters, not wildcards. */
 function likePattern(text: string): string {
@@ -246,23 +282,31 @@ function queries(db: Database) {
     },
 
     /**
-     * Moves an unarchived design's latest version from `baseVersion` to `baseVersion + 1` in one
-     * statement, or returns null when the design is missing, archived or already past that base.
+     * Saves `version` as number `baseVersion + 1` only while `baseVersion` is the unarchived
+     * design's latest, and answers the design as it is after the save; null when the design is
+     * missing, archived or already past that base. One statement, so it is atomic on its own: the
+     * version is inserted only from the row the conditional update moved.
      */
-    async advanceLatest(designId: string, baseVersion: number, at: Date): Promise<DesignRow & { creatorName: string | null } | null> {
-      const [row] = await db
-        .update(designs)
-        .set({ latestVersion: baseVersion + 1, updatedAt: at })
-        .where(and(eq(designs.id, designId), eq(designs.latestVersion, baseVersion), eq(designs.archived, false)))
-        .returning({
-          ...designRowColumns,
-          creatorName: sql<string | null>`(select ${users.displayName} from ${users} where ${users.id} = ${designs.createdBy})`,
-        });
-      return row ?? null;
-    },
-
-    async insertVersion(version: VersionInsert) {
-      await db.insert(designVersions).values(version);
+    async saveIfLatest(version: VersionInsert, baseVersion: number): Promise<(DesignRow & { creatorName: string | null }) | null> {
+      const at = version.createdAt ?? new Date();
+      // Both PGlite and node-postgres answer raw SQL as `{ rows }`.
+      const result = (await db.execute(sql`
+        with moved as (
+          update ${designs} set latest_version = ${baseVersion + 1}, updated_at = ${at.toISOString()}::timestamptz
+          where id = ${version.designId} and latest_version = ${baseVersion} and archived = false
+          returning *
+        ), added as (
+          insert into ${designVersions}
+            (id, design_id, number, params, notes, message, author_id, parent_number, summary, created_at)
+          select ${version.id}, moved.id, ${baseVersion + 1}, ${JSON.stringify(version.params)}::jsonb,
+            ${version.notes ?? ''}, ${version.message}, ${version.authorId ?? null}, ${version.parentNumber ?? null},
+            ${JSON.stringify(version.summary)}::jsonb, ${at.toISOString()}::timestamptz
+          from moved
+        )
+        select moved.*, (select display_name from ${users} where ${users.id} = moved.created_by) as creator_name
+        from moved`)) as unknown as { rows: SavedDesignRow[] };
+      const [row] = result.rows;
+      return row ? fromSavedRow(row) : null;
     },
 
     async updateDesign(

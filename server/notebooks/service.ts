@@ -315,10 +315,10 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
     },
 
     /**
-     * Saves version latest+1 on top of `baseVersion`. One conditional update moves the design's
-     * latest number only if it still is the base, in the same transaction as the insert, and
-     * (design, number) is unique, so two saves on one base cannot both win; the loser gets a 409
-     * with the version that beat it.
+     * Saves version latest+1 on top of `baseVersion`. One statement moves the design's latest
+     * number only if it still is the base and inserts the version with it, and (design, number)
+     * is unique, so two saves on one base cannot both win; the loser gets a 409 with the version
+     * that beat it.
      */
     async save(
       user: User,
@@ -330,11 +330,7 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
       if (!teamId || !role) throw designNotFound();
       if (!can(role, 'designs.edit')) throw forbidden(`A ${role} of this team may not do that.`);
       const row = versionRow(designId, input.baseVersion + 1, input, user.id, input.baseVersion, clock.now());
-      const saved = await repository.inTransaction(async (repo) => {
-        const design = await repo.advanceLatest(designId, input.baseVersion, row.createdAt!);
-        if (design) await repo.insertVersion(row);
-        return design;
-      });
+      const saved = await repository.saveIfLatest(row, input.baseVersion);
       if (!saved) {
         // Refused: say why, from the design as it is now.
         const { design } = await designFor(user, designId, 'designs.edit');

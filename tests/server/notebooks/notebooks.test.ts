@@ -100,6 +100,19 @@ describe('saving versions', () => {
     expect(saved.version).toMatchObject({ number: 2, parentNumber: 1, message: 'Narrower exit slit' });
     expect(saved.design.latestVersion).toBe(2);
     expect(saved.design.updatedAt).toBe(fx.ctx.clock.now().toISOString());
+    // The answer is built from what was sent; read what was stored back from the database.
+    const file = (await fx.owner.agent.get(`/api/designs/${design.id}/export`).expect(200)).body;
+    expect(file.versions[1]).toMatchObject({
+      number: 2,
+      parentNumber: 1,
+      message: 'Narrower exit slit',
+      notes: 'Notes for Narrower exit slit',
+      createdAt: saved.version.createdAt,
+    });
+    expect(file.versions[1].params).toEqual(saved.version.params);
+    const history = (await fx.owner.agent.get(`/api/designs/${design.id}/versions`).expect(200)).body;
+    expect(history.versions[0]).toMatchObject({ number: 2, author: { id: fx.owner.user.id } });
+    expect(history.versions[0].summary).toEqual(saved.version.summary);
   });
 
   it('answers 409 with the latest version when the base is stale, and writes nothing', async () => {
