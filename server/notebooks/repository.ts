@@ -60,6 +60,9 @@ const fullVersionColumns = {
   notes: designVersions.notes,
 };
 
+export type SaveIfLatest = { version: VersionInsert; baseVersion: number };
+export type SavedDesign = DesignRow & { creatorName: string | null };
+
 /** A `designs` row as raw SQL returns it: snake_case, timestamps as text. */
 type SavedDesignRow = {
   id: string;
@@ -78,7 +81,7 @@ type SavedDesignRow = {
   creator_name: string | null;
 };
 
-function fromSavedRow(row: SavedDesignRow): DesignRow & { creatorName: string | null } {
+function fromSavedRow(row: SavedDesignRow): SavedDesign {
   return {
     id: row.id,
     teamId: row.team_id,
@@ -282,31 +285,38 @@ function queries(db: Database) {
     },
 
     /**
-     * Saves `version` as number `baseVersion + 1` only while `baseVersion` is the unarchived
-     * design's latest, and answers the design as it is after the save; null when the design is
-     * missing, archived or already past that base. One statement, so it is atomic on its own: the
-     * version is inserted only from the row the conditional update moved.
+     * Saves each version as number `baseVersion + 1` of its design, but only while `baseVersion`
+     * is the unarchived design's latest, and answers each design as it is after its save, or null
+     * where the design is missing, archived or already past that base. One statement, so it is
+     * atomic: a version is inserted only from a row the conditional update moved. At most one
+     * save per design (a second would see the first's base).
      */
-    async saveIfLatest(version: VersionInsert, baseVersion: number): Promise<(DesignRow & { creatorName: string | null }) | null> {
-      const at = version.createdAt ?? new Date();
+    async saveManyIfLatest(saves: SaveIfLatest[]): Promise<(SavedDesign | null)[]> {
+      const rows = saves.map(({ version: v, baseVersion }) => {
+        const at = (v.createdAt ?? new Date()).toISOString();
+        return sql`(${v.id}::text, ${v.designId}::text, ${baseVersion}::integer, ${JSON.stringify(v.params)}::jsonb,
+          ${v.notes ?? ''}::text, ${v.message}::text, ${v.authorId ?? null}::text, ${v.parentNumber ?? null}::integer,
+          ${JSON.stringify(v.summary)}::jsonb, ${at}::timestamptz)`;
+      });
       // Both PGlite and node-postgres answer raw SQL as `{ rows }`.
       const result = (await db.execute(sql`
-        with moved as (
-          update ${designs} set latest_version = ${baseVersion + 1}, updated_at = ${at.toISOString()}::timestamptz
-          where id = ${version.designId} and latest_version = ${baseVersion} and archived = false
-          returning *
+        with input (version_id, design_id, base, params, notes, message, author_id, parent_number, summary, at) as (
+          values ${sql.join(rows, sql`, `)}
+        ), moved as (
+          update ${designs} d set latest_version = i.base + 1, updated_at = i.at
+          from input i
+          where d.id = i.design_id and d.latest_version = i.base and d.archived = false
+          returning d.*
         ), added as (
           insert into ${designVersions}
             (id, design_id, number, params, notes, message, author_id, parent_number, summary, created_at)
-          select ${version.id}, moved.id, ${baseVersion + 1}, ${JSON.stringify(version.params)}::jsonb,
-            ${version.notes ?? ''}, ${version.message}, ${version.authorId ?? null}, ${version.parentNumber ?? null},
-            ${JSON.stringify(version.summary)}::jsonb, ${at.toISOString()}::timestamptz
-          from moved
+          select i.version_id, m.id, m.latest_version, i.params, i.notes, i.message, i.author_id, i.parent_number, i.summary, i.at
+          from moved m join input i on i.design_id = m.id
         )
-        select moved.*, (select display_name from ${users} where ${users.id} = moved.created_by) as creator_name
-        from moved`)) as unknown as { rows: SavedDesignRow[] };
-      const [row] = result.rows;
-      return row ? fromSavedRow(row) : null;
+        select m.*, (select u.display_name from ${users} u where u.id = m.created_by) as creator_name
+        from moved m`)) as unknown as { rows: SavedDesignRow[] };
+      const byId = new Map(result.rows.map((row) => [row.id, fromSavedRow(row)]));
+      return saves.map(({ version }) => byId.get(version.designId) ?? null);
     },
 
     async updateDesign(

@@ -31,6 +31,7 @@ import type { Clock } from '../clock';
 import { HttpError, badRequest, conflict, forbidden, notFound } from '../http/errors';
 import { deepFreeze } from '../http/json';
 import { createReadCache } from '../read-cache';
+import { createWriteBatcher } from '../write-batcher';
 import { createTeamAccess, type RoleDirectory } from '../teams/index';
 import { changedParameters, figureChanges } from './compare';
 import type {
@@ -38,6 +39,7 @@ import type {
   FullVersionView,
   ListFilter,
   NotebooksRepository,
+  SaveIfLatest,
   VersionInsert,
   VersionView,
 } from './repository';
@@ -118,6 +120,12 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
   const designTeams = createReadCache<string>({ max: 20_000, ttlMs: Infinity });
   const listPages = createReadCache<DesignListResponse>({ max: 1000, ttlMs: cacheTtlMs });
   const tagLists = createReadCache<string[]>({ max: 1000, ttlMs: cacheTtlMs });
+  // Saves that arrive together are written together (see write-batcher.ts).
+  const saves = createWriteBatcher({
+    run: (items: SaveIfLatest[]) => repository.saveManyIfLatest(items),
+    keyOf: (item) => item.version.designId,
+    maxBatch: 64,
+  });
   const remember = (designId: string, teamId: string, version: Version) =>
     versions.set(`${designId}:${version.number}`, { teamId, answer: deepFreeze({ version }) });
   const teamTags = async (teamId: string) => (await tagLists.load(teamId, () => repository.teamTags(teamId))) ?? [];
@@ -318,7 +326,7 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
      * Saves version latest+1 on top of `baseVersion`. One statement moves the design's latest
      * number only if it still is the base and inserts the version with it, and (design, number)
      * is unique, so two saves on one base cannot both win; the loser gets a 409 with the version
-     * that beat it.
+     * that beat it. Saves on different designs that arrive together share that statement.
      */
     async save(
       user: User,
@@ -330,7 +338,7 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
       if (!teamId || !role) throw designNotFound();
       if (!can(role, 'designs.edit')) throw forbidden(`A ${role} of this team may not do that.`);
       const row = versionRow(designId, input.baseVersion + 1, input, user.id, input.baseVersion, clock.now());
-      const saved = await repository.saveIfLatest(row, input.baseVersion);
+      const saved = await saves.submit({ version: row, baseVersion: input.baseVersion });
       if (!saved) {
         // Refused: say why, from the design as it is now.
         const { design } = await designFor(user, designId, 'designs.edit');

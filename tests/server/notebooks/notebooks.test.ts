@@ -159,6 +159,24 @@ describe('saving versions', () => {
     expect(results.map((r) => r.status).sort()).toEqual([201, 409, 409, 409, 409]);
   });
 
+  it('saves concurrent changes to different designs, each as its own next version', async () => {
+    // Saves that arrive together are written in one statement: each must still land on its own design.
+    const designs = await Promise.all([1, 2, 3, 4, 5, 6].map((i) => createNotebook(fx, `Together ${i}`)));
+    const results = await Promise.all(
+      designs.map(({ design }, i) =>
+        saveVersion(fx, design.id, 1, designWith({ slits: { exitWidthUm: 100 + i } }), `together ${i}`),
+      ),
+    );
+    expect(results.map((r) => r.status)).toEqual([201, 201, 201, 201, 201, 201]);
+    for (const [i, { design }] of designs.entries()) {
+      const saved = notebookWithVersionResponseSchema.parse(results[i]!.body);
+      expect(saved.design).toMatchObject({ id: design.id, title: `Together ${i + 1}`, latestVersion: 2 });
+      const file = (await fx.owner.agent.get(`/api/designs/${design.id}/export`).expect(200)).body;
+      expect(file.versions.map((v: { message: string }) => v.message)).toEqual(['First cut', `together ${i}`]);
+      expect(file.versions[1].params.slits.exitWidthUm).toBe(100 + i);
+    }
+  });
+
   it('refuses a base version that does not exist yet', async () => {
     const { design } = await createNotebook(fx, 'Future base');
     const res = await saveVersion(fx, design.id, 7, exampleDesign).expect(400);
