@@ -159,24 +159,13 @@ function prepareHotReads(db: Database) {
     )
     .prepare('notebook_version_by_number');
 
-  const roleOf = db
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(
-      and(
-        eq(memberships.teamId, sql.placeholder('teamId')),
-        eq(memberships.userId, sql.placeholder('userId')),
-      ),
-    )
-    .prepare('notebook_role_of');
-
   const teamOfDesign = db
     .select({ teamId: designs.teamId })
     .from(designs)
     .where(eq(designs.id, sql.placeholder('designId')))
     .prepare('notebook_team_of_design');
 
-  return { designForUser, versionForUser, versionByNumber, roleOf, teamOfDesign };
+  return { designForUser, versionForUser, versionByNumber, teamOfDesign };
 }
 
 function queries(db: Database) {
@@ -224,11 +213,6 @@ function queries(db: Database) {
     async teamOfDesign(designId: string): Promise<string | null> {
       const [row] = await hot().teamOfDesign.execute({ designId });
       return row?.teamId ?? null;
-    },
-
-    async roleOf(teamId: string, userId: string): Promise<Role | null> {
-      const [row] = await hot().roleOf.execute({ teamId, userId });
-      return row?.role ?? null;
     },
 
     async personalTeamOf(userId: string): Promise<string | null> {
