@@ -190,7 +190,9 @@ try {
   // no two saves are ever in flight on one design, as with designers each saving their own.
   const latest = new Map(saveDesignIds.map((id) => [id, 1]));
   const resyncLatest = async () => {
-    // A save still in flight when a run ends is answered after autocannon stops listening.
+    // A save still in flight when a run ends is answered after autocannon stops listening: let
+    // the server finish those, then read where each design stands.
+    await new Promise((resolve) => setTimeout(resolve, 1000));
     for (const id of saveDesignIds) {
       const answer = (await (await fetch(`${server!.url}/api/designs/${id}`, { headers })).json()) as {
         design: { latestVersion: number };
@@ -225,6 +227,9 @@ try {
           onResponse: (status, body, ctx) => {
             const id = (ctx as Record<string, unknown>).designId as string;
             if (status === 201) latest.set(id, (JSON.parse(body) as { version: { number: number } }).version.number);
+            // Should not happen with leased designs; if it does, it is counted, and the next save rebases.
+            if (status === 409)
+              latest.set(id, (JSON.parse(body) as { error: { latest: { number: number } } }).error.latest.number);
             free.push(id);
           },
         },
