@@ -30,6 +30,8 @@ describe('password reset by e-mail link', () => {
   it('sets the new password, ends the old sessions and signs this browser in', async () => {
     const oldSession = browserAgent(ctx.app);
     await oldSession.post('/api/auth/sign-in').send({ email: 'reset@example.com', password: oldPassword }).expect(200);
+    // Used a moment ago, so the server remembers it as valid: the reset must still end it.
+    expect((await oldSession.get('/api/auth/session')).body.user).not.toBeNull();
     const token = await requestLink();
 
     const browser = browserAgent(ctx.app);

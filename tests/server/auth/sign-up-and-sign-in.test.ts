@@ -101,12 +101,17 @@ describe('sign-up, sign-in and sign-out', () => {
   it('signs out this browser only, and sign-out-everywhere ends every session', async () => {
     await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'many@example.com', displayName: 'Many', password }).expect(201);
     const [a, b, c] = [browserAgent(ctx.app), browserAgent(ctx.app), browserAgent(ctx.app)];
-    for (const agent of [a, b, c]) await agent.post('/api/auth/sign-in').send({ email: 'many@example.com', password }).expect(200);
+    const signIns: request.Response[] = [];
+    for (const agent of [a, b, c]) signIns.push(await agent.post('/api/auth/sign-in').send({ email: 'many@example.com', password }).expect(200));
+    const stolen = cookieOf(signIns[0]!).split(';')[0]!;
     expect((await a.get('/api/auth/session')).body.user).not.toBeNull();
 
+    await request(ctx.app).get('/api/teams').set('cookie', stolen).expect(200);
     const out = await a.post('/api/auth/sign-out').expect(204);
     expect(cookieOf(out)).toMatch(/blazebook_session=;/);
     expect((await a.get('/api/auth/session')).body.user).toBeNull();
+    // The browser forgets its cookie; a copy of it must be worthless too.
+    await request(ctx.app).get('/api/teams').set('cookie', stolen).expect(401);
     expect((await b.get('/api/auth/session')).body.user).not.toBeNull();
     // c's session was just checked too: the server now answers it from memory, and must not.
     expect((await c.get('/api/auth/session')).body.user).not.toBeNull();
