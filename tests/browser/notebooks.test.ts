@@ -145,6 +145,12 @@ describe('design notebooks in Chromium', () => {
     await reviewerPage.getByTestId('review-approve').click();
     await reviewerPage.getByTestId('review-item').filter({ hasText: 'fine for the teaching lab' }).waitFor();
     await reviewerPage.getByTestId('review-list').getByTestId('review-decision-approved').waitFor();
+    // The box empties once the comment is sent; wait for it rather than race the render.
+    await reviewerPage.waitForFunction(
+      () => (document.querySelector('[data-testid="review-body"]') as HTMLTextAreaElement | null)?.value === '',
+      undefined,
+      { timeout: 5_000 },
+    );
     expect(await reviewerPage.getByTestId('review-body').inputValue()).toBe('');
     await screenshot(reviewerPage, 'notebooks-review-wide');
     await reviewerContext.close();

@@ -71,8 +71,8 @@ export function ReviewPanel({ designId, version, role }: Props) {
       return;
     }
     try {
-      await create.mutateAsync({ body: checked.data, decision });
-      setBody('');
+      // Emptied together with the list's update, so the comment never shows in both places.
+      await create.mutateAsync({ body: checked.data, decision }, { onSuccess: () => setBody('') });
     } catch (failure) {
       setError(
         failure instanceof ApiError
