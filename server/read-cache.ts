@@ -22,16 +22,22 @@ export type ReadCache<V> = {
   readonly size: number;
 };
 
+/**
+ * The default time limit. Forgetting on write keeps every cache exact; this only bounds how long
+ * a change made outside the server (a maintenance script) could go unseen.
+ */
+export const backstopTtlMs = 60_000;
+
 export type ReadCacheOptions = {
   /** Entries kept at most; the oldest stored goes first. */
   max: number;
-  /** Longest time an entry is trusted, in ms. */
-  ttlMs: number;
+  /** Longest time an entry is trusted, in ms: `backstopTtlMs` unless given (Infinity for immutable rows). */
+  ttlMs?: number;
   /** Epoch ms. Date.now by default, so tests that fake Date move the cache's time too. */
   now?: () => number;
 };
 
-export function createReadCache<V>({ max, ttlMs, now = Date.now }: ReadCacheOptions): ReadCache<V> {
+export function createReadCache<V>({ max, ttlMs = backstopTtlMs, now = Date.now }: ReadCacheOptions): ReadCache<V> {
   const entries = new Map<string, { value: V; until: number }>();
   // Bumped by every forget: a load that saw an older generation may carry a stale answer.
   let generation = 0;

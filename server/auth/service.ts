@@ -35,16 +35,10 @@ export function toUser(row: Pick<UserRow, 'id' | 'email' | 'displayName' | 'emai
   return { id: row.id, email: row.email, displayName: row.displayName, emailVerified: row.emailVerifiedAt !== null };
 }
 
-/**
- * How long a checked session is trusted without asking the database. Every sign-out, reset and
- * verification in this process forgets the sessions it touches at once, so this only bounds a
- * change made outside the server.
- */
-export const sessionCacheTtlMs = 60_000;
-
 export function createAuthService({ repository, lucia, mailer, clock, publicUrl }: AuthServiceDeps) {
-  // Checking a session costs a database round trip on every API request; most are repeats.
-  const checkedSessions = createReadCache<SessionAuth & { expiresAt: number }>({ max: 10_000, ttlMs: sessionCacheTtlMs });
+  // Checking a session costs a database round trip on every API request; most are repeats. Every
+  // sign-out, reset and verification below forgets the sessions it touches.
+  const checkedSessions = createReadCache<SessionAuth & { expiresAt: number }>({ max: 10_000 });
   const forgetSessionsOf = (userId: string) => checkedSessions.forgetWhere((_id, entry) => entry.user.id === userId);
   const link = (path: string, token: string) => `${publicUrl().replace(/\/$/, '')}${path}?token=${token}`;
 

@@ -359,8 +359,8 @@ export function createNotebooksRepository(db: Database) {
   return {
     ...base,
     /**
-     * Runs `work` in one transaction. PGlite has one connection and Drizzle's transaction takes its
-     * lock, so a read-latest-then-insert inside cannot interleave with another save.
+     * Runs `work` in one transaction (a design with its versions goes in whole or not at all).
+     * PGlite has one connection and Drizzle's transaction takes its lock.
      */
     inTransaction<T>(work: (repo: NotebookQueries) => Promise<T>): Promise<T> {
       return db.transaction((tx) => work(queries(tx as unknown as Database)));

@@ -106,9 +106,6 @@ type Versionable = { params: Design; notes: string; message: string };
 
 export type NotebooksServiceDeps = { repository: NotebooksRepository; roles: RoleDirectory; clock: Clock };
 
-/** A backstop for the caches below; each is exact without it (see there). */
-const cacheTtlMs = 60_000;
-
 export function createNotebooksService({ repository, roles, clock }: NotebooksServiceDeps) {
   const teamAccess = createTeamAccess(roles);
   // Per app, in process; roles come from the app's role directory, which the teams service keeps
@@ -118,8 +115,8 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
   // Cached answers are frozen: the HTTP layer then serialises each one once (see http/json.ts).
   const versions = createReadCache<{ teamId: string; answer: VersionResponse }>({ max: 2000, ttlMs: Infinity });
   const designTeams = createReadCache<string>({ max: 20_000, ttlMs: Infinity });
-  const listPages = createReadCache<DesignListResponse>({ max: 1000, ttlMs: cacheTtlMs });
-  const tagLists = createReadCache<string[]>({ max: 1000, ttlMs: cacheTtlMs });
+  const listPages = createReadCache<DesignListResponse>({ max: 1000 });
+  const tagLists = createReadCache<string[]>({ max: 1000 });
   // Saves that arrive together are written together (see write-batcher.ts).
   const saves = createWriteBatcher({
     run: (items: SaveIfLatest[]) => repository.saveManyIfLatest(items),

@@ -2,9 +2,6 @@ import type { Role } from '../../shared/teams';
 import { createReadCache } from '../read-cache';
 import type { TeamsRepository } from './repository';
 
-/** How long a member's role is trusted without asking the database (a backstop; see below). */
-export const roleCacheTtlMs = 60_000;
-
 /**
  * Every team-scoped request asks for the caller's role; this answers repeats from memory. Roles
  * change only through the teams service, which forgets the ones it changes as soon as the change
@@ -12,7 +9,7 @@ export const roleCacheTtlMs = 60_000;
  * misses are never kept, so someone who just joined is let in at once.
  */
 export function createRoleDirectory(repository: Pick<TeamsRepository, 'roleOf'>) {
-  const roles = createReadCache<Role>({ max: 20_000, ttlMs: roleCacheTtlMs });
+  const roles = createReadCache<Role>({ max: 20_000 });
   const key = (teamId: string, userId: string) => `${teamId} ${userId}`;
   return {
     roleOf(teamId: string, userId: string): Promise<Role | null> {
