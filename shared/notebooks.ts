@@ -45,16 +45,23 @@ export const notesSchema = z
   .string({ error: 'must be text' })
   .max(maxNotesLength, { error: `must be at most ${maxNotesLength} characters` });
 
+/** Version numbers live in PostgreSQL `integer` columns: larger ones are refused, not overflowed. */
+export const maxVersionNumber = 2_147_483_647;
+// zod's int check also refuses numbers past 2^53, so its message states the range too.
+const wholeVersionNumber = `must be a whole number from 1 to ${maxVersionNumber}`;
+
 export const versionNumberSchema = z
   .number({ error: 'must be a version number' })
-  .int({ error: 'must be a whole number' })
-  .min(1, { error: 'must be at least 1' });
+  .int({ error: wholeVersionNumber })
+  .min(1, { error: 'must be at least 1' })
+  .max(maxVersionNumber, { error: `must be at most ${maxVersionNumber}` });
 
 /** Version numbers in paths and query strings arrive as text. */
 const versionNumberText = z.coerce
   .number({ error: 'must be a version number' })
-  .int({ error: 'must be a whole number' })
-  .min(1, { error: 'must be at least 1' });
+  .int({ error: wholeVersionNumber })
+  .min(1, { error: 'must be at least 1' })
+  .max(maxVersionNumber, { error: `must be at most ${maxVersionNumber}` });
 
 export const personSchema = z.object({ id: z.string(), displayName: z.string() });
 export type Person = z.infer<typeof personSchema>;
@@ -140,6 +147,7 @@ export const designSortSchema = z.enum(designSorts, { error: 'must be title, upd
 export type DesignSort = z.infer<typeof designSortSchema>;
 
 export const maxPageSize = 100;
+export const maxPage = 1_000_000;
 
 /**
  * `GET /api/teams/:teamId/designs?q=&tag=&sort=&dir=&page=&pageSize=&archived=`. Designs with a
@@ -154,8 +162,10 @@ export const listDesignsQuerySchema = z.object({
   dir: z.enum(['asc', 'desc'], { error: 'must be asc or desc' }).optional(),
   page: z.coerce
     .number({ error: 'must be a number' })
-    .int({ error: 'must be a whole number' })
+    .int({ error: `must be a whole number from 1 to ${maxPage}` })
     .min(1, { error: 'must be at least 1' })
+    // Far past any real list, well inside the database's OFFSET range.
+    .max(maxPage, { error: `must be at most ${maxPage}` })
     .default(1),
   pageSize: z.coerce
     .number({ error: 'must be a number' })

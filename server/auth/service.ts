@@ -13,6 +13,8 @@ import type { AuthRepository, UserRow } from './repository';
 import { createToken, hashToken } from './tokens';
 
 const minute = 60_000;
+/** Lucia's ids are lower-case base32; anything else is not a session of ours. */
+const sessionIdPattern = /^[a-z0-9]{1,128}$/;
 export const resetTokenLifetimeMs = 30 * minute;
 export const verifyTokenLifetimeMs = 48 * 60 * minute;
 
@@ -58,6 +60,22 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
       createdAt: clock.now(),
     });
     await mailer.send(verifyEmailMessage(user.email, user.displayName, link('/verify-email', token)));
+  }
+
+  /**
+   * The session id in a cookie header, 'malformed' for a value no session of ours could have
+   * (NUL, bad percent-encoding, odd characters — it would otherwise reach the database), or null.
+   */
+  function sessionIdFrom(cookieHeader: string | undefined): string | 'malformed' | null {
+    if (!cookieHeader) return null;
+    let id: string | null;
+    try {
+      id = lucia.readSessionCookie(cookieHeader);
+    } catch {
+      return 'malformed';
+    }
+    if (id === null || id === '') return null;
+    return sessionIdPattern.test(id) ? id : 'malformed';
   }
 
   return {
@@ -156,8 +174,9 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
      * second half of its life (sliding expiry) or clears a cookie whose session is gone.
      */
     async readSession(cookieHeader: string | undefined): Promise<{ auth: SessionAuth | null; setCookie?: string }> {
-      const id = lucia.readSessionCookie(cookieHeader ?? '');
-      if (!id) return { auth: null };
+      const id = sessionIdFrom(cookieHeader);
+      if (id === null) return { auth: null };
+      if (id === 'malformed') return { auth: null, setCookie: lucia.createBlankSessionCookie().serialize() };
       let renewed = false;
       const checked = await checkedSessions.load(
         id,

@@ -1,4 +1,4 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { ErrorBody } from '../../shared/api-error';
 import { fieldErrors } from '../../shared/validation';
@@ -30,11 +30,40 @@ function bodyParserError(error: unknown): HttpError | null {
 }
 
 /**
+ * Other client errors raised by Express's own layers (http-errors with a 4xx `status`): a path
+ * whose percent-encoding does not decode, a compressed body that does not decompress. They are
+ * the client's fault, so they get the error shape and a message that says what was wrong.
+ */
+function clientErrorFromStatus(error: unknown, req: Request): HttpError | null {
+  if (typeof error !== 'object' || error === null) return null;
+  const status =
+    (error as { status?: unknown; statusCode?: unknown }).status ??
+    (error as { statusCode?: unknown }).statusCode;
+  if (typeof status !== 'number' || status < 400 || status > 499) return null;
+  if (error instanceof URIError) {
+    return new HttpError(
+      400,
+      'malformed_path',
+      'The address has malformed percent-encoding (such as %ff or a lone %).',
+    );
+  }
+  const encoding = req.get('content-encoding');
+  if (status === 400 && encoding && encoding !== 'identity') {
+    return new HttpError(
+      400,
+      'malformed_body',
+      `The request body says Content-Encoding: ${encoding.slice(0, 40)}, but it does not decompress.`,
+    );
+  }
+  return new HttpError(status, 'invalid_request', 'The request could not be read.');
+}
+
+/**
  * The one place that turns failures into the API's error shape. Unknown errors are logged here
  * and reach the client as a bare 500: no stack, no message from inside the server.
  */
 export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler {
-  return (error, _req, res, next) => {
+  return (error, req, res, next) => {
     if (res.headersSent) {
       next(error);
       return;
@@ -44,7 +73,7 @@ export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler
         ? error
         : error instanceof ZodError
           ? new HttpError(400, 'invalid_request', 'The request has invalid fields.', fieldErrors(error))
-          : bodyParserError(error);
+          : (bodyParserError(error) ?? clientErrorFromStatus(error, req));
     if (known) {
       res.status(known.status).json(body(known.code, known.message, known.fields));
       return;

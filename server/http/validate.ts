@@ -1,5 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
+import { unstorableText } from '../../shared/storable-text';
 import { fieldErrors } from '../../shared/validation';
 import { badRequest } from './errors';
 import { sendJson } from './json';
@@ -14,7 +15,8 @@ const partNames = { body: 'body', params: 'path', query: 'query' } as const;
 /**
  * Parses the request parts once with their shared zod schemas and hands the typed values to the
  * handler, so no handler reads an unchecked `req.body`. A failure is a 400 whose `fields` name
- * every bad path.
+ * every bad path. Text that the database could not store as sent (NUL, lone surrogates) is refused
+ * here first, for every part of every route, so no schema can forget it.
  */
 export function handle<S extends Schemas>(
   schemas: S,
@@ -26,6 +28,10 @@ export function handle<S extends Schemas>(
       for (const part of ['params', 'query', 'body'] as const) {
         const schema = schemas[part];
         if (!schema) continue;
+        const unstorable = unstorableText(req[part]);
+        if (Object.keys(unstorable).length > 0) {
+          throw badRequest(`The request ${partNames[part]} has text that cannot be stored.`, unstorable);
+        }
         const result = schema.safeParse(req[part] ?? {});
         if (!result.success) {
           throw badRequest(`The request ${partNames[part]} has invalid fields.`, fieldErrors(result.error));

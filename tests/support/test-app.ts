@@ -13,7 +13,7 @@ type TestAppOptions = {
   log?: (error: unknown) => void;
   /** Send through the outbox table, as `npm start` does without SMTP_URL, instead of memory. */
   outbox?: boolean;
-} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https'>>;
+} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'webRoot'>>;
 
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
 export async function createTestApp(options: TestAppOptions = {}) {
@@ -28,6 +28,7 @@ export async function createTestApp(options: TestAppOptions = {}) {
     version: 'test',
     nodeEnv: options.nodeEnv ?? 'test',
     https: options.https,
+    webRoot: options.webRoot,
     publicUrl: () => testOrigin,
     trustedOrigin: testOrigin,
     rateLimits: options.rateLimits,
