@@ -1,4 +1,4 @@
-import express from 'express';
+import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { DatabaseHandle } from '../db/client';
 import { createAuth, originCheck, type RateLimits } from './auth/index';
@@ -45,6 +45,25 @@ export const originExempt = ['POST /api/solve'] as const;
 
 export const bodyLimit = '1mb';
 
+/**
+ * Powerful browser features the app never uses, switched off for its pages and anything injected
+ * into them. Only features Chromium knows are listed: an unknown one is a console error.
+ */
+export const permissionsPolicyValue = 'camera=(), microphone=(), geolocation=(), payment=(), usb=(), display-capture=()';
+const permissionsPolicy: RequestHandler = (_req, res, next) => {
+  res.setHeader('Permissions-Policy', permissionsPolicyValue);
+  next();
+};
+
+/**
+ * API answers are one person's data (or a share link's): no browser or proxy keeps them. ETags
+ * still spare the body when a client asks again with If-None-Match.
+ */
+const apiCacheControl: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'private, no-store');
+  next();
+};
+
 /** Builds the HTTP app without listening, so tests drive it with supertest. */
 export function createApp(deps: AppDeps) {
   const app = express();
@@ -63,8 +82,10 @@ export function createApp(deps: AppDeps) {
       strictTransportSecurity: deps.https ?? false,
     }),
   );
+  app.use(permissionsPolicy);
 
   const apiRouter = express.Router();
+  apiRouter.use(apiCacheControl);
   apiRouter.use(express.json({ limit: bodyLimit }));
   apiRouter.use(originCheck({ trustedOrigin: deps.trustedOrigin, exempt: originExempt }));
   const publicUrl = deps.publicUrl ?? (() => 'http://localhost:8080');
@@ -84,7 +105,9 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(teams.router);
   apiRouter.use(createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock }).router);
   apiRouter.use(createReviews({ db: deps.database.db, clock: deps.clock }).router);
-  if (deps.nodeEnv !== 'production') apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock)));
+  if (deps.nodeEnv !== 'production') {
+    apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock), { trustedOrigin: deps.trustedOrigin }));
+  }
   apiRouter.use(apiNotFound);
   app.use('/api', apiRouter);
 

@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import { forbidden } from '../http/errors';
+import { isLoopbackHost } from '../http/loopback';
 
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -22,7 +23,9 @@ function originOf(value: string): string | null {
  * CSRF defence: a state-changing request must say where it comes from, and that must be us.
  * Browsers send `Origin` on every cross-site and same-site POST/PUT/PATCH/DELETE; a missing one
  * is refused too. Without a configured origin the request's own host is the reference (a forged
- * request from another site carries our Host but the other site's Origin).
+ * request from another site carries our Host but the other site's Origin) — and that host must be
+ * localhost, 127.0.0.1 or [::1]: a DNS-rebinding page sends its own name as both Origin and Host,
+ * so matching the two alone would let it through. Any other name needs PUBLIC_URL.
  */
 export function originCheck({ trustedOrigin, exempt = [] }: OriginCheckOptions): RequestHandler {
   const trusted = trustedOrigin ? originOf(trustedOrigin) : null;
@@ -34,7 +37,12 @@ export function originCheck({ trustedOrigin, exempt = [] }: OriginCheckOptions):
     }
     const origin = req.get('origin');
     const actual = origin ? originOf(origin) : null;
-    const ok = actual !== null && (trusted ? actual === trusted : new URL(actual).host === req.get('host'));
+    const sameHost = actual !== null && !trusted && new URL(actual).host === req.get('host');
+    if (sameHost && !isLoopbackHost(req.get('host'))) {
+      next(forbidden(`Blazebook is open here as ${req.get('host')}, not localhost: set PUBLIC_URL to this address so its pages may make changes.`.slice(0, 300)));
+      return;
+    }
+    const ok = actual !== null && (trusted ? actual === trusted : sameHost);
     next(ok ? undefined : forbidden('This request did not come from Blazebook’s own pages.'));
   };
 }

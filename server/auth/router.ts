@@ -19,7 +19,6 @@ export function authRouter(auth: AuthService, limits: ReturnType<typeof createRa
   const router = Router();
 
   router.get('/auth/session', (_req, res) => {
-    res.set('cache-control', 'no-store');
     const body: SessionResponse = { user: currentUser(res) };
     res.json(body);
   });

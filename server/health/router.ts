@@ -14,7 +14,7 @@ export function healthRouter({ database, clock, version }: Pick<AppDeps, 'databa
       database: { ok, latencyMs: Math.round((performance.now() - started) * 100) / 100 },
       time: clock.now().toISOString(),
     };
-    res.status(ok ? 200 : 503).set('cache-control', 'no-store').json(body);
+    res.status(ok ? 200 : 503).json(body);
   });
   return router;
 }

@@ -196,7 +196,6 @@ export function notebooksRouter(notebooks: NotebooksService) {
   router.get(
     '/share/:token',
     handle({ params: shareTokenParamsSchema }, async ({ params }, _req, res) => {
-      res.set('cache-control', 'no-store');
       res.set('referrer-policy', 'no-referrer');
       return notebooks.shared(params.token);
     }),

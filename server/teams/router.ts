@@ -105,10 +105,7 @@ export function teamsRouter(teams: TeamsService) {
   // The link's token is the credential here: anyone holding it may see what it offers.
   router.get(
     '/invitations/:token',
-    handle({ params: invitationTokenParamsSchema }, async ({ params }, _req, res) => {
-      res.set('cache-control', 'no-store');
-      return teams.previewInvitation(params.token);
-    }),
+    handle({ params: invitationTokenParamsSchema }, ({ params }) => teams.previewInvitation(params.token)),
   );
   router.post(
     '/invitations/:token/accept',

@@ -17,7 +17,7 @@ describe('GET /api/health', () => {
     expect(body.version).toBe('test');
     expect(body.database.ok).toBe(true);
     expect(body.time).toBe('2026-03-14T09:00:00.000Z');
-    expect(res.headers['cache-control']).toBe('no-store');
+    expect(res.headers['cache-control']).toBe('private, no-store');
   });
 
   it('reports degraded with 503 once the database is gone', async () => {

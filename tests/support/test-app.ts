@@ -1,3 +1,4 @@
+import express from 'express';
 import request from 'supertest';
 import type { DatabaseHandle } from '../../db/client';
 import { createApp, type AppDeps } from '../../server/app';
@@ -13,6 +14,8 @@ type TestAppOptions = {
   log?: (error: unknown) => void;
   /** Send through the outbox table, as `npm start` does without SMTP_URL, instead of memory. */
   outbox?: boolean;
+  /** null: no PUBLIC_URL, as `npm start` runs by default (the Origin check then relies on Host). */
+  trustedOrigin?: string | null;
 } & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'webRoot'>>;
 
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
@@ -30,7 +33,7 @@ export async function createTestApp(options: TestAppOptions = {}) {
     https: options.https,
     webRoot: options.webRoot,
     publicUrl: () => testOrigin,
-    trustedOrigin: testOrigin,
+    trustedOrigin: options.trustedOrigin === null ? undefined : (options.trustedOrigin ?? testOrigin),
     rateLimits: options.rateLimits,
     log: options.log ?? ((error) => errors.push(error)),
   });
@@ -38,6 +41,21 @@ export async function createTestApp(options: TestAppOptions = {}) {
 }
 
 export type TestApp = Awaited<ReturnType<typeof createTestApp>>;
+
+/**
+ * The app as reached from another machine: Express reads the client's address from the socket,
+ * which supertest always opens over loopback, so the socket's address is replaced before the app
+ * sees the request.
+ */
+export function fromAddress(app: TestApp['app'], remoteAddress: string) {
+  const outer = express();
+  outer.use((req, _res, next) => {
+    Object.defineProperty(req.socket, 'remoteAddress', { value: remoteAddress, configurable: true });
+    next();
+  });
+  outer.use(app);
+  return outer;
+}
 
 /** A cookie-keeping client that sends our Origin, like the web app in a browser. */
 export function browserAgent(app: TestApp['app']) {

@@ -34,7 +34,7 @@ describe('share links', () => {
     expect(path).toBe(`/share/${token}`);
     expect(link).toMatchObject({ version: 1, expiresAt: null, revokedAt: null, active: true });
     const res = await anonymous().get(`/api/share/${token}`).expect(200);
-    expect(res.headers['cache-control']).toBe('no-store');
+    expect(res.headers['cache-control']).toBe('private, no-store');
     const shared = sharedVersionResponseSchema.parse(res.body);
     expect(shared).toMatchObject({
       title: 'Shared scanner',
