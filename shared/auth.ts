@@ -12,10 +12,26 @@ export const emailSchema = z
   .toLowerCase()
   .pipe(z.email({ error: 'must be an e-mail address such as name@example.com' }).max(254, { error: 'is too long' }));
 
+/** The reason under the password field when it is the account's own address (sign-up and reset). */
+export const passwordIsEmailReason = 'must not be your e-mail address';
+
+/**
+ * True when the password is the account's e-mail address, ignoring case and surrounding spaces:
+ * the address is the one thing about an account that is not secret.
+ */
+export function passwordIsEmail(password: string, email: string): boolean {
+  return password.trim().toLowerCase() === email.trim().toLowerCase();
+}
+
+// Length alone lets through passwords with nothing to guess; NIST SP 800-63B §5.1.1.2 (from memory)
+// asks to refuse repetitive ones. Surrounding spaces add no strength, so they are ignored.
 export const passwordSchema = z
   .string({ error: 'is required' })
   .min(minPasswordLength, { error: `must be at least ${minPasswordLength} characters` })
-  .max(maxPasswordLength, { error: `must be at most ${maxPasswordLength} characters` });
+  .max(maxPasswordLength, { error: `must be at most ${maxPasswordLength} characters` })
+  .refine((password) => password.trim() !== '', { error: 'must not be only spaces', abort: true })
+  // By code point, so a repeated emoji counts as one character.
+  .refine((password) => new Set(password.trim()).size > 1, { error: 'must not be one character repeated' });
 
 export const displayNameSchema = z
   .string({ error: 'is required' })
@@ -23,11 +39,15 @@ export const displayNameSchema = z
   .min(1, { error: 'is required' })
   .max(80, { error: 'must be at most 80 characters' });
 
-export const signUpRequestSchema = z.object({
-  email: emailSchema,
-  displayName: displayNameSchema,
-  password: passwordSchema,
-});
+export const signUpRequestSchema = z
+  .object({
+    email: emailSchema,
+    displayName: displayNameSchema,
+    password: passwordSchema,
+  })
+  .superRefine(({ email, password }, ctx) => {
+    if (passwordIsEmail(password, email)) ctx.addIssue({ code: 'custom', path: ['password'], message: passwordIsEmailReason });
+  });
 export type SignUpRequest = z.input<typeof signUpRequestSchema>;
 
 export const signInRequestSchema = z.object({

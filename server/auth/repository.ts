@@ -46,6 +46,15 @@ export function createAuthRepository(db: Database) {
       await db.insert(authTokens).values(token);
     },
 
+    /** Reads a token without using it up, for checks that must not spend the link when they fail. */
+    async findToken(tokenHash: string, purpose: TokenPurpose) {
+      const [row] = await db
+        .select()
+        .from(authTokens)
+        .where(and(eq(authTokens.tokenHash, tokenHash), eq(authTokens.purpose, purpose)));
+      return row ?? null;
+    },
+
     /** Deletes and returns the token in one statement, so two requests cannot both use it. */
     async consumeToken(tokenHash: string, purpose: TokenPurpose) {
       const [row] = await db

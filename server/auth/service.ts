@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { generateIdFromEntropySize } from 'lucia';
-import type { SignInRequest, SignUpRequest, User } from '../../shared/auth';
+import { passwordIsEmail, passwordIsEmailReason, type SignInRequest, type SignUpRequest, type User } from '../../shared/auth';
 import type { Clock } from '../clock';
 import { HttpError, badRequest } from '../http/errors';
 import type { Mailer } from '../mail/mailer';
@@ -141,8 +141,18 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
       if (isCommonPassword(password)) {
         throw badRequest('Choose another password.', { password: 'is one of the most used passwords; choose another' });
       }
-      const used = await repository.consumeToken(await hashToken(token), 'reset-password');
-      if (!used || used.expiresAt.getTime() <= clock.now().getTime()) throw badRequest(badLink, { token: 'has expired or was already used' });
+      const tokenHash = await hashToken(token);
+      const live = (found: { expiresAt: Date } | null) => found !== null && found.expiresAt.getTime() > clock.now().getTime();
+      // The address check needs the account behind the token; it reads the token without using it
+      // up, so a refused password leaves the link working for a second try.
+      const pending = await repository.findToken(tokenHash, 'reset-password');
+      if (!pending || !live(pending)) throw badRequest(badLink, { token: 'has expired or was already used' });
+      const owner = await repository.findUserById(pending.userId);
+      if (owner && passwordIsEmail(password, owner.email)) {
+        throw badRequest('Choose another password.', { password: passwordIsEmailReason });
+      }
+      const used = await repository.consumeToken(tokenHash, 'reset-password');
+      if (!used || !live(used)) throw badRequest(badLink, { token: 'has expired or was already used' });
       await repository.setPasswordHash(used.userId, await hashPassword(password));
       // Following the link proves the address is theirs.
       await repository.markEmailVerified(used.userId, clock.now());

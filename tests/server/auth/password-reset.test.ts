@@ -76,6 +76,25 @@ describe('password reset by e-mail link', () => {
     expect(rows.every((row) => /^[0-9a-f]{64}$/.test(row.tokenHash))).toBe(true);
   });
 
+  it.each([
+    { password: ' '.repeat(10), why: 'must not be only spaces' },
+    { password: 'zzzzzzzzzzzz', why: 'must not be one character repeated' },
+    { password: 'reset@example.com', why: 'must not be your e-mail address' },
+    { password: ' Reset@Example.COM  ', why: 'must not be your e-mail address' },
+  ] satisfies { password: string; why: string }[])(
+    'refuses the new password “$password” ($why) and leaves the link usable',
+    async ({ password, why }) => {
+      const token = await requestLink();
+      const res = await browserAgent(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password }).expect(400);
+      expect(res.body.error.fields).toEqual({ password: why });
+      await browserAgent(ctx.app).post('/api/auth/sign-in').send({ email: 'reset@example.com', password }).expect(401);
+
+      const good = `${why} is fixed`;
+      await browserAgent(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password: good }).expect(200);
+      await browserAgent(ctx.app).post('/api/auth/sign-in').send({ email: 'reset@example.com', password: good }).expect(200);
+    },
+  );
+
   it('refuses a common password as the new one', async () => {
     const token = await requestLink();
     const res = await browserAgent(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password: 'qwertyuiop' }).expect(400);

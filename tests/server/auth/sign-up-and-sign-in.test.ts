@@ -16,7 +16,8 @@ function cookieOf(res: request.Response): string {
 describe('sign-up, sign-in and sign-out', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    // Limits are tested in request-guards; here the many sign-ups must not run into them.
+    ctx = await createTestApp({ rateLimits: { signUpPerIp: 100 } });
   });
   afterAll(() => ctx.close());
 
@@ -81,6 +82,21 @@ describe('sign-up, sign-in and sign-out', () => {
       .expect(400);
     expect(res.body.error.fields.password).toBe(why);
   });
+
+  it.each([
+    { email: 'spaces@example.com', password: ' '.repeat(10), why: 'must not be only spaces' },
+    { email: 'many-spaces@example.com', password: ' '.repeat(40), why: 'must not be only spaces' },
+    { email: 'repeated@example.com', password: 'aaaaaaaaaa', why: 'must not be one character repeated' },
+    { email: 'own.address@example.com', password: 'own.address@example.com', why: 'must not be your e-mail address' },
+    { email: 'Own.Case@Example.com', password: '  OWN.CASE@example.COM ', why: 'must not be your e-mail address' },
+  ] satisfies { email: string; password: string; why: string }[])(
+    'refuses the password “$password” for $email ($why), and creates no account',
+    async ({ email, password: bad, why }) => {
+      const res = await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email, displayName: 'Weak', password: bad }).expect(400);
+      expect(res.body.error.fields).toEqual({ password: why });
+      await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email, displayName: 'Weak', password }).expect(201);
+    },
+  );
 
   it('names every bad field of a sign-up', async () => {
     const res = await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'not-an-address', displayName: '' }).expect(400);
