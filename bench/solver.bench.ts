@@ -1,11 +1,12 @@
 /**
  * Solver hot-path benchmark: full `evaluateDesign` over 1,000 wavelengths against a bare loop of
- * the same closed forms (the floor: same trigonometry, no result objects, no warnings).
+ * the same closed forms (the floor: same trigonometry, no result objects, no warnings), and the
+ * largest request the solve API accepts.
  * Prints figures only; run with `npm run bench:solver`.
  */
 
 import { evaluateDesign } from '../features/solver/evaluate';
-import { exampleDesign } from '../shared/design';
+import { exampleDesign, MAX_SOLVE_WAVELENGTHS, solveRequestSchema, type Design } from '../shared/design';
 
 const POINTS = 1000;
 const WARMUP_RUNS = 300;
@@ -78,8 +79,38 @@ time(floor, WARMUP_RUNS);
 const fullUs = median(time(full, TIMED_RUNS));
 const floorUs = median(time(floor, TIMED_RUNS));
 
+// The largest request POST /api/solve accepts: order −1000 (the minus signs make the longest
+// JSON), as many wavelengths as allowed, all reachable, and a source from 0.001 nm to 10 mm, so
+// every wavelength has about a million overlapping orders and lists 20. Timed as the server runs
+// it on its thread: schema check, evaluation, JSON text (gzip runs off the thread).
+const worstDesign: Design = {
+  ...exampleDesign,
+  grating: { ...exampleDesign.grating, order: -1000 },
+  layout: { ...exampleDesign.layout, deviationAngleDeg: 120 },
+  source: { minNm: 0.001, maxNm: 10_000_000 },
+};
+const worstBody = {
+  design: worstDesign,
+  // 1200 g/mm in order 1000 with 2K = 120° reaches 2d cos²K / 1000 ≈ 0.42 nm.
+  at: Array.from(
+    { length: MAX_SOLVE_WAVELENGTHS },
+    (_, i) => 0.001 + ((0.41 - 0.001) * (i + 0.1)) / MAX_SOLVE_WAVELENGTHS,
+  ),
+};
+const WORST_RUNS = 50;
+let worstBytes = 0;
+const worst = () => {
+  const { design, at } = solveRequestSchema.parse(worstBody);
+  worstBytes = Buffer.byteLength(JSON.stringify(evaluateDesign(design, { wavelengthsNm: at })));
+};
+time(worst, 5);
+const worstUs = median(time(worst, WORST_RUNS));
+
 console.log(`solver: evaluateDesign over ${POINTS} wavelengths (example design, ${TIMED_RUNS} runs after ${WARMUP_RUNS} warm-up)`);
 console.log(`  median full evaluation : ${fullUs.toFixed(1)} µs`);
 console.log(`  median bare loop       : ${floorUs.toFixed(1)} µs`);
 console.log(`  ratio full / bare      : ${(fullUs / floorUs).toFixed(2)}`);
+console.log(
+  `  worst capped request   : ${(worstUs / 1000).toFixed(1)} ms median of ${WORST_RUNS} (parse + evaluate + JSON, ${MAX_SOLVE_WAVELENGTHS} wavelengths × 20 listed orders, ${(worstBytes / 1e6).toFixed(2)} MB)`,
+);
 if (sink === 0) console.log('(unreachable: keeps the work observable)');

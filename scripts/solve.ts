@@ -5,14 +5,24 @@
  *
  * Prints the evaluation JSON on stdout. Exit 2 with a message on stderr for bad flags, unreadable
  * or invalid JSON, or a design the schema rejects (one `path: message` line per bad field).
+ * Limits (the HTTP API's, see USAGE): at most 1,000 wavelengths, 20 listed overlapping orders each.
  */
 
 import { readFileSync } from 'node:fs';
-import { evaluateDesign } from '../features/solver/evaluate';
-import { designSchema, solveRequestSchema } from '../shared/design';
+import { DEFAULT_POINTS, evaluateDesign } from '../features/solver/evaluate';
+import { MAX_LISTED_OVERLAPS } from '../features/solver/orders';
+import { defaultRateLimits } from '../server/auth/rate-limit';
+import { designSchema, MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS, solveRequestSchema } from '../shared/design';
 import { fieldErrors, formatFieldErrors } from '../shared/validation';
 
-const USAGE = 'usage: npm run --silent solve -- <design.json | -> [--at 400,500,600] [--points N]';
+// The CLI keeps the HTTP API's limits (one schema for both), so a script that works here also
+// works against POST /api/solve.
+const USAGE = `usage: npm run --silent solve -- <design.json | -> [--at 400,500,600] [--points N]
+  --at      wavelengths in nm, at most ${MAX_SOLVE_WAVELENGTHS}
+  --points  evenly spaced wavelengths over the design range, ${MIN_SOLVE_POINTS} to ${MAX_SOLVE_WAVELENGTHS} (default ${DEFAULT_POINTS})
+Each wavelength lists at most ${MAX_LISTED_OVERLAPS} overlapping orders (those nearest the working order);
+overlapCount is the full number and overlapsTruncated is true when the list was cut.
+The same limits as POST /api/solve, which also allows ${defaultRateLimits.solvePerIp} calls per ${defaultRateLimits.solveWindowMs / 1000} s per address.`;
 
 class UsageError extends Error {}
 

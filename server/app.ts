@@ -32,7 +32,7 @@ export type AppDeps = {
   publicUrl?: () => string;
   /** PUBLIC_URL's origin, when configured: the only Origin state-changing requests may carry. */
   trustedOrigin?: string;
-  /** Sign-in, sign-up and reset limits; tests inject small ones. */
+  /** Sign-in, sign-up, reset and solve limits; tests inject small ones. */
   rateLimits?: Partial<RateLimits>;
 };
 
@@ -99,7 +99,7 @@ export function createApp(deps: AppDeps) {
   });
   apiRouter.use(auth.sessions);
   apiRouter.use(healthRouter(deps));
-  apiRouter.use(solveRouter());
+  apiRouter.use(solveRouter(deps.rateLimits));
   apiRouter.use(auth.router);
   const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
   apiRouter.use(teams.router);

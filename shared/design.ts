@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
 
 /**
  * The stored format of a design (in a notebook) and the scripting interface of the solver.
@@ -135,9 +136,15 @@ export const designSchema = section({
 
 export type Design = z.infer<typeof designSchema>;
 
-export const MAX_SOLVE_WAVELENGTHS = 5000;
+export { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
 
-/** Body of a solve call (HTTP and scripts): a design and optionally where to evaluate it. */
+const POINTS_MESSAGE = `must be a whole number from ${MIN_SOLVE_POINTS} to ${MAX_SOLVE_WAVELENGTHS}`;
+
+/**
+ * Body of a solve call (HTTP and scripts): a design and optionally where to evaluate it. The
+ * caps bound one call's work and answer (see shared/solve-limits.ts); zod checks the length of
+ * `at` before its items, so an oversized list is refused without checking each one.
+ */
 export const solveRequestSchema = z.object({
   design: designSchema,
   at: z
@@ -145,9 +152,9 @@ export const solveRequestSchema = z.object({
     .max(MAX_SOLVE_WAVELENGTHS, { error: `must list at most ${MAX_SOLVE_WAVELENGTHS} wavelengths` })
     .optional(),
   points: number()
-    .int({ error: 'must be a whole number from 2 to 5000' })
-    .min(2, { error: 'must be a whole number from 2 to 5000' })
-    .max(MAX_SOLVE_WAVELENGTHS, { error: 'must be a whole number from 2 to 5000' })
+    .int({ error: POINTS_MESSAGE })
+    .min(MIN_SOLVE_POINTS, { error: POINTS_MESSAGE })
+    .max(MAX_SOLVE_WAVELENGTHS, { error: POINTS_MESSAGE })
     .optional(),
 });
 

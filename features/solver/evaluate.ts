@@ -1,10 +1,12 @@
 /**
  * Whole-design evaluation. Everything that depends only on the design is computed once in
  * `prepareDesign`; `evaluatePoint` is the hot path (one `asin`, three `cos`, one `sin`, no mathjs,
- * one result object plus its slit function per wavelength, overlap lists only where they exist).
+ * one result object plus its slit function per wavelength, overlap lists only where they exist and
+ * never longer than `MAX_LISTED_OVERLAPS`).
  */
 
 import type { Design } from '../../shared/design';
+import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from '../../shared/solve-limits';
 import { comaFreeCameraAngleRad, astigmaticFocalDifferenceMm } from './aberrations';
 import { blazeWavelengthInMountNm } from './blaze';
 import { detectorCoverage, type DetectorCoverage } from './detector';
@@ -36,14 +38,14 @@ import { collectWarnings } from './warnings';
 
 /** Wavelengths sampled over `range` when the caller gives neither a list nor a count. */
 export const DEFAULT_POINTS = 101;
-/** Bounds on an evenly spaced sweep (the same as the solve request's). */
-export const MIN_POINTS = 2;
-export const MAX_POINTS = 5000;
+/** Bounds on an evenly spaced sweep: the solve request's, so the client and the API agree. */
+export const MIN_POINTS = MIN_SOLVE_POINTS;
+export const MAX_POINTS = MAX_SOLVE_WAVELENGTHS;
 
 export interface EvaluateOptions {
   /** Evaluate exactly these wavelengths (in this order) instead of a sweep over `range`. */
   wavelengthsNm?: readonly number[];
-  /** Number of evenly spaced wavelengths over `range`, ends included (2…5000, default 101). */
+  /** Number of evenly spaced wavelengths over `range`, ends included (2…1000, default 101). */
   points?: number;
 }
 
@@ -122,6 +124,8 @@ function unreachablePoint(plan: PreparedDesign, wavelengthNm: number, reason: st
     freeSpectralRangeNm: finite ? wavelengthNm / plan.absOrder : 0,
     blazeEfficiency: null,
     overlaps: NO_OVERLAPS,
+    overlapCount: 0,
+    overlapsTruncated: false,
     scanSensitivityNmPerArcsec: null,
   };
 }
@@ -176,12 +180,14 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
     blaze = s * s;
   }
 
-  // orders.overlappingOrders, skipped when no other order can land in the source range.
+  // orders.overlapCount; the list (orders.overlappingOrders, at most MAX_LISTED_OVERLAPS) is
+  // built only when some other order lands in the source range.
   const product = absOrder * wavelengthNm;
-  const nLo = Math.ceil(product / plan.overlapMaxNm);
+  const nLo = Math.max(1, Math.ceil(product / plan.overlapMaxNm));
   const nHi = Math.floor(product / plan.overlapMinNm);
+  const overlapTotal = nHi < nLo ? 0 : nHi - nLo + 1 - (nLo <= absOrder && absOrder <= nHi ? 1 : 0);
   const overlaps =
-    nHi < nLo || (nHi === absOrder && nLo === absOrder) || nHi < 1
+    overlapTotal === 0
       ? EMPTY_OVERLAPS
       : overlappingOrders(plan.order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
 
@@ -208,6 +214,8 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
     freeSpectralRangeNm: wavelengthNm / absOrder, // resolving-power.freeSpectralRangeNm
     blazeEfficiency: blaze,
     overlaps,
+    overlapCount: overlapTotal,
+    overlapsTruncated: overlapTotal > overlaps.length,
     scanSensitivityNmPerArcsec: plan.scanNmPerArcsecAtZero * Math.cos(phi), // scan.scanSensitivityNmPerArcsec
   };
 }

@@ -34,7 +34,15 @@ export interface WavelengthPoint {
   freeSpectralRangeNm: number;
   /** Scalar sinc² estimate relative to its peak; null without a blaze wavelength or when unreachable. */
   blazeEfficiency: number | null;
+  /**
+   * Other orders whose source light leaves at this angle, by increasing |n|. At most
+   * `MAX_LISTED_OVERLAPS` (20): when more overlap, the ones nearest the working order.
+   */
   overlaps: readonly Overlap[];
+  /** Every overlapping order, listed or not. */
+  overlapCount: number;
+  /** True when `overlaps` lists fewer than `overlapCount` (the list was cut, never silently). */
+  overlapsTruncated: boolean;
   scanSensitivityNmPerArcsec: number | null;
 }
 

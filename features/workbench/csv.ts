@@ -1,4 +1,5 @@
 import type { WavelengthPoint } from '@/features/solver';
+import { overlapsText } from './format';
 
 /** Column names carry units, like the design's fields, so a spreadsheet needs no legend. */
 export const rangeTableColumns = [
@@ -21,7 +22,7 @@ function cell(value: number | null, digits = 6): string {
  */
 export function rangeTableCsv(points: readonly WavelengthPoint[]): string {
   const rows = points.map((p) => {
-    const overlaps = p.overlaps.map((o) => `m=${o.order} ${cell(o.wavelengthNm, 5)} nm`).join('; ');
+    const overlaps = overlapsText(p, (o) => `m=${o.order} ${cell(o.wavelengthNm, 5)} nm`, '; ');
     return [
       cell(p.wavelengthNm),
       cell(p.gratingRotationDeg),

@@ -9,6 +9,9 @@ export type RateLimits = {
   signUpPerIp: number;
   resetPerIp: number;
   resetPerEmail: number;
+  /** `POST /api/solve` calls per IP per `solveWindowMs`. */
+  solvePerIp: number;
+  solveWindowMs: number;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -19,6 +22,11 @@ export const defaultRateLimits: RateLimits = {
   signUpPerIp: 20,
   resetPerIp: 20,
   resetPerEmail: 5,
+  // A person at the workbench never calls the API (the solver runs in the page) and a lab script
+  // sweeping designs rarely needs two calls a second. The largest request takes under 0.1 s of the
+  // thread (`npm run bench:solver`), so one address holds it for at most ~10 s a minute.
+  solvePerIp: 120,
+  solveWindowMs: 60_000,
 };
 
 function emailKey(req: Request): string {
@@ -26,7 +34,13 @@ function emailKey(req: Request): string {
   return `email:${typeof email === 'string' ? email.trim().toLowerCase() : ''}`;
 }
 
-function limiter(limit: number, windowMs: number, by: 'ip' | 'email', skipSuccessfulRequests = false): RequestHandler {
+function limiter(
+  limit: number,
+  windowMs: number,
+  by: 'ip' | 'email',
+  skipSuccessfulRequests = false,
+  message?: string,
+): RequestHandler {
   return rateLimit({
     windowMs,
     limit,
@@ -34,7 +48,7 @@ function limiter(limit: number, windowMs: number, by: 'ip' | 'email', skipSucces
     legacyHeaders: false,
     skipSuccessfulRequests,
     keyGenerator: by === 'ip' ? (req) => `ip:${ipKeyGenerator(req.ip ?? '')}` : emailKey,
-    handler: (_req, _res, next) => next(tooManyRequests()),
+    handler: (_req, _res, next) => next(tooManyRequests(message)),
   });
 }
 
@@ -53,4 +67,17 @@ export function createRateLimiters(limits: RateLimits) {
     /** Following a reset link carries a token, not an e-mail: per IP only. */
     resetConfirm: [limiter(limits.resetPerIp, limits.windowMs, 'ip')],
   };
+}
+
+/** `POST /api/solve` per IP: its own counters, so solving never uses up a person's sign-in allowance. */
+export function createSolveRateLimiter(
+  limits: Pick<RateLimits, 'solvePerIp' | 'solveWindowMs'>,
+): RequestHandler {
+  return limiter(
+    limits.solvePerIp,
+    limits.solveWindowMs,
+    'ip',
+    false,
+    'Too many solve requests from this address. Wait a minute and try again.',
+  );
 }

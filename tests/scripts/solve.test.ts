@@ -10,7 +10,12 @@ const SCRIPT = join(process.cwd(), 'scripts/solve.ts');
 const dir = mkdtempSync(join(tmpdir(), 'blazebook-solve-'));
 
 function solve(args: string[], stdin?: string) {
-  const r = spawnSync(TSX, [SCRIPT, ...args], { input: stdin, encoding: 'utf8', timeout: 30_000 });
+  const r = spawnSync(TSX, [SCRIPT, ...args], {
+    input: stdin,
+    encoding: 'utf8',
+    timeout: 30_000,
+    maxBuffer: 64 * 1024 * 1024,
+  });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
@@ -78,6 +83,30 @@ describe('solve CLI', { timeout: 30_000 }, () => {
     const r = solve([designFile('flags.json', exampleDesign), ...args]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/usage: npm run --silent solve/);
+  });
+
+  it('keeps the API limits: more than 1000 wavelengths or points exits 2 naming the flag', () => {
+    const file = designFile('limits.json', exampleDesign);
+    const at = Array.from({ length: 1001 }, (_, i) => 300 + i * 0.5).join(',');
+    const tooMany = solve([file, '--at', at]);
+    expect(tooMany.code).toBe(2);
+    expect(tooMany.stderr).toContain('--at: must list at most 1000 wavelengths');
+    const tooFine = solve([file, '--points', '1001']);
+    expect(tooFine.code).toBe(2);
+    expect(tooFine.stderr).toContain('--points: must be a whole number from 2 to 1000');
+    const atCap = solve([file, '--points', '1000']);
+    expect(atCap.code).toBe(0);
+    expect(JSON.parse(atCap.stdout).points).toHaveLength(1000);
+  });
+
+  it('states the limits in its help', () => {
+    const r = solve(['--help']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--at +wavelengths in nm, at most 1000/);
+    expect(r.stderr).toMatch(/2 to 1000/);
+    expect(r.stderr).toMatch(/at most 20 overlapping orders/);
+    expect(r.stderr).toMatch(/overlapsTruncated/);
+    expect(r.stderr).toMatch(/120 calls per 60 s/);
   });
 
   it('exits 2 with the usage when no design is given', () => {

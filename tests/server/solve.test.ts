@@ -1,8 +1,25 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../shared/api-error';
-import { exampleDesign } from '../../shared/design';
+import { exampleDesign, MAX_SOLVE_WAVELENGTHS, type Design } from '../../shared/design';
 import { createTestApp } from '../support/test-app';
+
+/**
+ * Order 1000 with a source from 0.001 nm to 10 mm (the schema's widest): about a million other
+ * orders land on each wavelength. 1200 g/mm in order 1000 reaches only up to 2d cos²K / 1000 ≈ 1.56 nm.
+ */
+const hostileDesign: Design = {
+  ...exampleDesign,
+  grating: { ...exampleDesign.grating, order: 1000 },
+  source: { minNm: 0.001, maxNm: 10_000_000 },
+};
+
+/** `count` wavelengths evenly over `[fromNm, toNm]`, with long decimals (the longest JSON). */
+function wavelengthsNm(count: number, fromNm: number, toNm: number): number[] {
+  return Array.from({ length: count }, (_, i) => fromNm + ((toNm - fromNm) * (i + 0.1)) / count);
+}
+
+const TWO_MB = 2 * 1024 * 1024;
 
 describe('POST /api/solve', () => {
   let ctx: Awaited<ReturnType<typeof createTestApp>>;
@@ -66,4 +83,91 @@ describe('POST /api/solve', () => {
     const res = await request(ctx.app).post('/api/solve').send({ at: [500] }).expect(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['design']);
   });
+
+  it('refuses more than 1000 wavelengths in `at` with 400 naming the field', async () => {
+    // The body that once held the thread for seconds and answered 18 MB.
+    const res = await request(ctx.app)
+      .post('/api/solve')
+      .send({ design: hostileDesign, at: wavelengthsNm(5000, 0.001, 1.5) })
+      .expect(400);
+    const { error } = errorBodySchema.parse(res.body);
+    expect(error.code).toBe('invalid_request');
+    expect(error.fields).toEqual({ at: 'must list at most 1000 wavelengths' });
+  });
+
+  it('refuses more than 1000 points with 400 naming the field', async () => {
+    const res = await request(ctx.app).post('/api/solve').send({ design: exampleDesign, points: 1001 }).expect(400);
+    expect(errorBodySchema.parse(res.body).error.fields).toEqual({ points: 'must be a whole number from 2 to 1000' });
+  });
+
+  it('answers a request at the caps with the widest source in under 2 MB, every cut list marked', async () => {
+    const res = await request(ctx.app)
+      .post('/api/solve')
+      .set('accept-encoding', 'identity')
+      .send({ design: hostileDesign, at: wavelengthsNm(MAX_SOLVE_WAVELENGTHS, 0.001, 1.5) })
+      .expect(200);
+    expect(Number(res.headers['content-length'])).toBeLessThan(TWO_MB);
+    const points = res.body.points as {
+      wavelengthNm: number;
+      reachable: boolean;
+      overlaps: { order: number; wavelengthNm: number }[];
+      overlapCount: number;
+      overlapsTruncated: boolean;
+    }[];
+    expect(points).toHaveLength(MAX_SOLVE_WAVELENGTHS);
+    for (const p of points) {
+      expect(p.reachable).toBe(true);
+      expect(p.overlaps).toHaveLength(20);
+      expect(p.overlapsTruncated).toBe(true);
+      // n runs from 1 to floor(1000 λ / 0.001 nm), less the working order itself.
+      expect(p.overlapCount).toBe(Math.floor((1000 * p.wavelengthNm) / 0.001) - 1);
+      // The 20 nearest the working order: 990…999 and 1001…1010.
+      expect(p.overlaps.map((o) => o.order)).toEqual([...range(990, 999), ...range(1001, 1010)]);
+    }
+  });
+
+  it('lists a short overlap list whole, marked as not cut', async () => {
+    const res = await request(ctx.app).post('/api/solve').send({ design: exampleDesign, at: [600] }).expect(200);
+    expect(res.body.points[0]).toMatchObject({
+      overlaps: [
+        { order: 2, wavelengthNm: 300 },
+        { order: 3, wavelengthNm: 200 },
+      ],
+      overlapCount: 2,
+      overlapsTruncated: false,
+    });
+  });
 });
+
+describe('POST /api/solve rate limit', () => {
+  it('answers the 121st call in a minute from one address with 429 and the usual error shape', async () => {
+    const ctx = await createTestApp();
+    try {
+      for (let i = 0; i < 120; i++) {
+        await request(ctx.app).post('/api/solve').send({ design: exampleDesign, at: [500] }).expect(200);
+      }
+      const res = await request(ctx.app).post('/api/solve').send({ design: exampleDesign, at: [500] }).expect(429);
+      const { error } = errorBodySchema.parse(res.body);
+      expect(error.code).toBe('rate_limited');
+      expect(error.message).toMatch(/solve/);
+      // Only solving is limited: the rest of the API still answers.
+      await request(ctx.app).get('/api/health').expect(200);
+    } finally {
+      await ctx.close();
+    }
+  });
+
+  it('takes its limit and window from AppDeps.rateLimits', async () => {
+    const ctx = await createTestApp({ rateLimits: { solvePerIp: 2, solveWindowMs: 60_000 } });
+    try {
+      for (let i = 0; i < 2; i++) await request(ctx.app).post('/api/solve').send({ design: exampleDesign, points: 2 }).expect(200);
+      await request(ctx.app).post('/api/solve').send({ design: exampleDesign, points: 2 }).expect(429);
+    } finally {
+      await ctx.close();
+    }
+  });
+});
+
+function range(from: number, to: number): number[] {
+  return Array.from({ length: to - from + 1 }, (_, i) => from + i);
+}

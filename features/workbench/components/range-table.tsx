@@ -3,7 +3,7 @@ import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import type { WavelengthPoint } from '@/features/solver';
 import { Button, Card, colors, fonts, space, type, copyText } from '@/features/ui';
 import { rangeTableCsv } from '../csv';
-import { fmt, percent } from '../format';
+import { fmt, overlapsText, percent } from '../format';
 
 const columns = [
   { title: 'λ\nnm', width: 56, cell: (p: WavelengthPoint) => fmt(p.wavelengthNm, 5) },
@@ -16,9 +16,7 @@ const columns = [
     title: 'other\norders',
     width: 84,
     cell: (p: WavelengthPoint) =>
-      p.overlaps.length === 0
-        ? '—'
-        : p.overlaps.map((o) => `${o.order}: ${fmt(o.wavelengthNm, 3)}`).join(', '),
+      p.overlapCount === 0 ? '—' : overlapsText(p, (o) => `${o.order}: ${fmt(o.wavelengthNm, 3)}`, ', '),
   },
 ] as const;
 

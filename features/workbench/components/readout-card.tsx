@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Evaluation, WavelengthPoint } from '@/features/solver';
 import { Card, Text, TextField, space } from '@/features/ui';
-import { fmt, percent } from '../format';
+import { fmt, overlapsText, percent } from '../format';
 import type { SelectedReadout } from '../hooks/use-workbench';
 import { markEditStart } from '../perf-marks';
 import { FigureList, type Figure } from './figure-list';
@@ -48,9 +48,9 @@ function pointFigures(p: WavelengthPoint): Figure[] {
     {
       label: 'Other orders at this angle',
       value:
-        p.overlaps.length === 0
+        p.overlapCount === 0
           ? 'none'
-          : p.overlaps.map((o) => `m=${o.order}: ${fmt(o.wavelengthNm)} nm`).join(', '),
+          : overlapsText(p, (o) => `m=${o.order}: ${fmt(o.wavelengthNm)} nm`, ', '),
     },
     { label: 'Scan sensitivity', value: fmt(p.scanSensitivityNmPerArcsec, 3), unit: 'nm per arc-second' },
   ];

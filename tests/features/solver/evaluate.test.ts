@@ -8,6 +8,8 @@ import {
   evaluateDesign,
   evaluatePoint,
   linearDispersionMmPerNm,
+  MAX_POINTS,
+  overlapCount,
   overlappingOrders,
   prepareDesign,
   reciprocalDispersionNmPerMm,
@@ -15,7 +17,7 @@ import {
   slitFunction,
   solveGrating,
 } from '@/features/solver';
-import { designSchema, type Design } from '@/shared/design';
+import { designSchema, MAX_SOLVE_WAVELENGTHS, type Design } from '@/shared/design';
 import { deg, expectClose } from './close-to';
 import { makeDesign, spacing } from './fixtures';
 
@@ -76,6 +78,11 @@ describe('evaluateDesign', () => {
     expectClose(e.points[50]!.wavelengthNm, 600, 1e-12);
   });
 
+  it("sweeps at most MAX_POINTS wavelengths, the solve request's cap", () => {
+    expect(MAX_POINTS).toBe(MAX_SOLVE_WAVELENGTHS);
+    expect(evaluateDesign(makeDesign(), { points: 1_000_000 }).points).toHaveLength(MAX_SOLVE_WAVELENGTHS);
+  });
+
   it('evaluates exactly the wavelengths asked for, in order', () => {
     const e = evaluateDesign(makeDesign(), { wavelengthsNm: [700, 310, 450] });
     expect(e.points.map((p) => p.wavelengthNm)).toEqual([700, 310, 450]);
@@ -99,6 +106,7 @@ describe('evaluateDesign', () => {
       expect(p.slitFunction).toEqual(slitFunction(rld, 0.1 * mag, 0.1));
       expectClose(p.blazeEfficiency, blazeEfficiency(lambda, 1, 500, deg(15)), 1e-12);
       expect(p.overlaps).toEqual(overlappingOrders(1, lambda, 200, 1100));
+      expect(p.overlapCount).toBe(overlapCount(1, lambda, 200, 1100));
       expectClose(p.scanSensitivityNmPerArcsec, scanSensitivityNmPerArcsec(1, spacing(1200), deg(15), s.rotationRad), 1e-14);
     }
   });
