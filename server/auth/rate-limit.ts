@@ -4,8 +4,12 @@ import { tooManyRequests } from './errors';
 
 export type RateLimits = {
   windowMs: number;
+  /** Every sign-in attempt from one address, right or wrong. */
   signInPerIp: number;
-  signInPerEmail: number;
+  /** Failed sign-ins for one e-mail from one address: guessing one account's password. */
+  signInFailuresPerEmailPerIp: number;
+  /** Failed sign-ins from one address, whatever the e-mail: guessing across accounts. */
+  signInFailuresPerIp: number;
   signUpPerIp: number;
   resetPerIp: number;
   resetPerEmail: number;
@@ -18,7 +22,8 @@ export type RateLimits = {
 export const defaultRateLimits: RateLimits = {
   windowMs: 15 * 60_000,
   signInPerIp: 100,
-  signInPerEmail: 10,
+  signInFailuresPerEmailPerIp: 10,
+  signInFailuresPerIp: 30,
   signUpPerIp: 20,
   resetPerIp: 20,
   resetPerEmail: 5,
@@ -29,15 +34,25 @@ export const defaultRateLimits: RateLimits = {
   solveWindowMs: 60_000,
 };
 
-function emailKey(req: Request): string {
+type KeyBy = 'ip' | 'email' | 'email-and-ip';
+
+const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
+
+function emailOf(req: Request): string {
   const email: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  return `email:${typeof email === 'string' ? email.trim().toLowerCase() : ''}`;
+  return typeof email === 'string' ? email.trim().toLowerCase() : '';
 }
+
+const keys: Record<KeyBy, (req: Request) => string> = {
+  ip: (req) => `ip:${ipOf(req)}`,
+  email: (req) => `email:${emailOf(req)}`,
+  'email-and-ip': (req) => `email+ip:${ipOf(req)}:${emailOf(req)}`,
+};
 
 function limiter(
   limit: number,
   windowMs: number,
-  by: 'ip' | 'email',
+  by: KeyBy,
   skipSuccessfulRequests = false,
   message?: string,
 ): RequestHandler {
@@ -47,20 +62,23 @@ function limiter(
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     skipSuccessfulRequests,
-    keyGenerator: by === 'ip' ? (req) => `ip:${ipKeyGenerator(req.ip ?? '')}` : emailKey,
+    keyGenerator: keys[by],
     handler: (_req, _res, next) => next(tooManyRequests(message)),
   });
 }
 
 /**
- * In-memory counters, one set per app: enough for one server process. Sign-in counts only
- * failures per e-mail, so a person who signs in often is never locked out by their successes.
+ * In-memory counters, one set per app: enough for one server process. Sign-in failures are
+ * counted per e-mail *and address*, and per address: someone guessing from elsewhere uses up their
+ * own allowance, never the account owner's, so nobody can lock a colleague out by failing on
+ * purpose. Successes are not counted, so a person who signs in often is never limited by them.
  */
 export function createRateLimiters(limits: RateLimits) {
   return {
     signIn: [
       limiter(limits.signInPerIp, limits.windowMs, 'ip'),
-      limiter(limits.signInPerEmail, limits.windowMs, 'email', true),
+      limiter(limits.signInFailuresPerIp, limits.windowMs, 'ip', true),
+      limiter(limits.signInFailuresPerEmailPerIp, limits.windowMs, 'email-and-ip', true),
     ],
     signUp: [limiter(limits.signUpPerIp, limits.windowMs, 'ip')],
     reset: [limiter(limits.resetPerIp, limits.windowMs, 'ip'), limiter(limits.resetPerEmail, limits.windowMs, 'email')],

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { browserAgent, createTestApp, testOrigin, type TestApp } from '../../support/test-app';
+import { browserAgent, createTestApp, fromAddress, testOrigin, type TestApp } from '../../support/test-app';
 
 const password = 'a long enough password';
 
@@ -46,10 +46,46 @@ describe('Origin check on state-changing requests (CSRF)', () => {
   });
 });
 
+describe('failed sign-ins cannot lock the owner out from elsewhere', () => {
+  let ctx: TestApp;
+  const owner = 'owner-lockout@example.com';
+  const attacker = '203.0.113.66';
+  const ownerAddress = '198.51.100.7';
+  const signIn = (address: string, email: string, pass: string) =>
+    request(fromAddress(ctx.app, address)).post('/api/auth/sign-in').set('origin', testOrigin).send({ email, password: pass });
+
+  beforeAll(async () => {
+    ctx = await createTestApp({ rateLimits: { signInFailuresPerEmailPerIp: 3, signInFailuresPerIp: 5, signInPerIp: 8 } });
+    await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: owner, displayName: 'Owner', password }).expect(201);
+  });
+  afterAll(() => ctx.close());
+
+  it('lets the owner sign in from their own address after an attacker failed on their e-mail from another', async () => {
+    for (let i = 0; i < 3; i += 1) await signIn(attacker, owner, `guess ${i} for owner`).expect(401);
+    const blocked = await signIn(attacker, owner, 'one more guess here').expect(429);
+    expect(blocked.body.error.code).toBe('rate_limited');
+    // The right password, from the owner's address: not locked.
+    await signIn(ownerAddress, owner, password).expect(200);
+  });
+
+  it('stops the attacker after five failures from one address, whichever e-mails they try', async () => {
+    const elsewhere = '203.0.113.77';
+    for (let i = 0; i < 5; i += 1) await signIn(elsewhere, `victim${i}@example.com`, 'wrong password!').expect(401);
+    await signIn(elsewhere, 'victim9@example.com', 'wrong password!').expect(429);
+    await signIn(ownerAddress, owner, password).expect(200);
+  });
+
+  it('keeps the overall limit per address: the 9th attempt from one address is refused, even with successes', async () => {
+    const busy = '192.0.2.10';
+    for (let i = 0; i < 8; i += 1) await signIn(busy, owner, password).expect(200);
+    await signIn(busy, owner, password).expect(429);
+  });
+});
+
 describe('rate limits on sign-in and password reset', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp({ rateLimits: { signInPerEmail: 3, signInPerIp: 5, resetPerEmail: 2, resetPerIp: 10 } });
+    ctx = await createTestApp({ rateLimits: { signInFailuresPerEmailPerIp: 3, signInPerIp: 5, resetPerEmail: 2, resetPerIp: 10 } });
     await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'target@example.com', displayName: 'Target', password }).expect(201);
   });
   afterAll(() => ctx.close());
@@ -63,7 +99,7 @@ describe('rate limits on sign-in and password reset', () => {
   });
 
   it('answers the 6th sign-in from one IP with 429 whatever the e-mail', async () => {
-    const perIp = await createTestApp({ rateLimits: { signInPerIp: 5, signInPerEmail: 100 } });
+    const perIp = await createTestApp({ rateLimits: { signInPerIp: 5, signInFailuresPerEmailPerIp: 100, signInFailuresPerIp: 100 } });
     for (let i = 1; i <= 5; i += 1) {
       await browserAgent(perIp.app).post('/api/auth/sign-in').send({ email: `other${i}@example.com`, password: 'whatever it is' }).expect(401);
     }
