@@ -10,8 +10,8 @@ export type Person = { agent: Agent; user: { id: string; email: string; displayN
  * A lab team with an owner, a reviewer and a viewer, plus someone outside it. Members are added
  * straight through the teams repository: invitations have their own tests.
  */
-export async function createNotebookFixture() {
-  const ctx: TestApp = await createTestApp();
+export async function createNotebookFixture(options: Parameters<typeof createTestApp>[0] = {}) {
+  const ctx: TestApp = await createTestApp(options);
   const owner = await signUp(ctx.app, 'Owner');
   const reviewer = await signUp(ctx.app, 'Reviewer');
   const viewer = await signUp(ctx.app, 'Viewer');

@@ -1,0 +1,203 @@
+import * as fc from 'fast-check';
+import { createServer, type Server } from 'node:http';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { errorBodySchema } from '../../shared/api-error';
+import { exampleDesign } from '../../shared/design';
+import { listRoutes } from '../support/routes';
+import { testOrigin } from '../support/test-app';
+import { createNotebookFixture, type NotebookFixture } from './notebooks/fixture';
+
+/**
+ * Random and poisoned JSON thrown at every route that reads a body: whatever arrives, the answer
+ * is never a 500, and every refusal has the one error shape. Half the cases are a valid body with
+ * one value replaced (so they get past the outer checks and reach the deep ones and the database),
+ * half are arbitrary JSON. Runs per route are fixed; the whole file is bounded by its timeouts.
+ */
+
+const runsPerRoute = 1000;
+
+/** Every string PostgreSQL could choke on shows up: NUL, lone surrogates, any UTF-16 code unit. */
+const anyCodeUnits = fc.array(fc.integer({ min: 0, max: 0xffff }), { maxLength: 24 }).map((units) => String.fromCharCode(...units));
+
+function nested(depth: number): unknown {
+  let value: unknown = 'bottom';
+  for (let i = 0; i < depth; i += 1) value = i % 2 ? [value] : { deeper: value };
+  return value;
+}
+
+const hostileLeaf: fc.Arbitrary<unknown> = fc.oneof(
+  anyCodeUnits,
+  fc.constantFrom(
+    '\u0000',
+    'a\u0000b',
+    '\uD800',
+    'x\uDC00y',
+    '\uD800\uD800',
+    '',
+    '   ',
+    'x'.repeat(10_000),
+    2 ** 31,
+    2 ** 31 - 1,
+    -(2 ** 31) - 1,
+    2 ** 53,
+    Number.MAX_SAFE_INTEGER + 2,
+    1e308,
+    -1e308,
+    5e-324,
+    0,
+    -1,
+    1.5,
+    true,
+    false,
+    null,
+    [],
+    {},
+    '2026-02-30T25:61:00Z',
+    '99999-01-01T00:00:00Z',
+    '__proto__',
+    { __proto__: { polluted: true } },
+  ),
+  fc.constantFrom(nested(20), nested(70), nested(300)),
+  fc.jsonValue({ maxDepth: 3 }),
+);
+
+type Path = (string | number)[];
+
+/** Paths to every value inside a JSON value, the value itself included. */
+function pathsIn(value: unknown, prefix: Path = []): Path[] {
+  const here = [prefix];
+  if (Array.isArray(value)) return here.concat(value.flatMap((v, i) => pathsIn(v, [...prefix, i])));
+  if (value && typeof value === 'object') return here.concat(Object.entries(value).flatMap(([k, v]) => pathsIn(v, [...prefix, k])));
+  return here;
+}
+
+function replaceAt(base: unknown, path: Path, replacement: unknown): unknown {
+  if (path.length === 0) return replacement;
+  const copy = structuredClone(base) as Record<string | number, unknown>;
+  let node = copy;
+  for (const key of path.slice(0, -1)) node = node[key] as Record<string | number, unknown>;
+  node[path[path.length - 1]!] = replacement;
+  return copy;
+}
+
+/** A valid body with one value replaced, a key added, or arbitrary JSON. */
+function bodies(base: unknown): fc.Arbitrary<unknown> {
+  const paths = pathsIn(base);
+  return fc.oneof(
+    { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...paths), hostileLeaf).map(([path, leaf]) => replaceAt(base, path, leaf)) },
+    { weight: 1, arbitrary: fc.tuple(anyCodeUnits, hostileLeaf).map(([key, leaf]) => (base && typeof base === 'object' && !Array.isArray(base) ? { ...base, [key]: leaf } : leaf)) },
+    { weight: 2, arbitrary: fc.jsonValue({ maxDepth: 4 }) },
+  );
+}
+
+type Target = { params?: Record<string, string>; body: unknown; as: 'owner' | 'reviewer' | 'anonymous' };
+
+let fx: NotebookFixture;
+let server: Server;
+const cookies: Record<'owner' | 'reviewer', string> = { owner: '', reviewer: '' };
+let targets: Record<string, Target>;
+
+/** Routes that read no body; the fuzzing of their paths is in hostile-input.test.ts. */
+const bodyless = new Set([
+  'POST /api/auth/sign-out',
+  'POST /api/auth/sign-out-everywhere',
+  'POST /api/auth/verify-email/resend',
+  'POST /api/invitations/:token/accept',
+]);
+
+beforeAll(async () => {
+  fx = await createNotebookFixture({
+    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9 },
+  });
+  server = createServer(fx.ctx.app).listen(0, '127.0.0.1');
+  for (const who of ['owner', 'reviewer'] as const) {
+    const res = await fx[who].agent.post('/api/auth/sign-in').send({ email: fx[who].user.email, password: fx[who].password });
+    cookies[who] = (res.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!;
+  }
+  const made = await fx.owner.agent.post(`/api/teams/${fx.teamId}/designs`).send({ title: 'Fuzzed', params: exampleDesign, message: 'Start' }).expect(201);
+  const id: string = made.body.design.id;
+  const team = fx.teamId;
+  const design = { id };
+  targets = {
+    'POST /api/solve': { as: 'anonymous', body: { design: exampleDesign, at: [400, 500] } },
+    'POST /api/auth/sign-up': { as: 'anonymous', body: { email: 'fuzz@example.com', displayName: 'Fuzz', password: 'a long enough password' } },
+    'POST /api/auth/sign-in': { as: 'anonymous', body: { email: fx.viewer.user.email, password: fx.viewer.password } },
+    'POST /api/auth/password-reset': { as: 'anonymous', body: { email: fx.viewer.user.email } },
+    'POST /api/auth/password-reset/confirm': { as: 'anonymous', body: { token: 'x'.repeat(40), password: 'a long enough password' } },
+    'POST /api/auth/verify-email': { as: 'anonymous', body: { token: 'x'.repeat(40) } },
+    'POST /api/teams': { as: 'owner', body: { name: 'Fuzz lab' } },
+    'PATCH /api/teams/:teamId': { as: 'owner', params: { teamId: team }, body: { name: 'Spectroscopy lab' } },
+    'PATCH /api/teams/:teamId/members/:userId': { as: 'owner', params: { teamId: team, userId: fx.viewer.user.id }, body: { role: 'viewer' } },
+    'POST /api/teams/:teamId/invitations': { as: 'owner', params: { teamId: team }, body: { email: 'invitee@example.com', role: 'viewer' } },
+    'POST /api/teams/:teamId/designs': { as: 'owner', params: { teamId: team }, body: { title: 'T', tags: ['uv'], params: exampleDesign, notes: 'n', message: 'm' } },
+    'POST /api/teams/:teamId/designs/import': {
+      as: 'owner',
+      params: { teamId: team },
+      body: {
+        kind: 'blazebook-notebook',
+        formatVersion: 1,
+        title: 'Imported',
+        tags: ['x'],
+        baselineVersion: 1,
+        versions: [{ number: 1, message: 'Start', notes: 'n', params: exampleDesign, createdAt: '2026-01-05T10:00:00Z' }],
+      },
+    },
+    'PATCH /api/designs/:id': { as: 'owner', params: design, body: { title: 'Fuzzed', tags: ['a'], archived: false } },
+    'POST /api/designs/:id/versions': { as: 'owner', params: design, body: { baseVersion: 1, params: exampleDesign, notes: 'n', message: 'm' } },
+    'POST /api/designs/:id/clone': { as: 'owner', params: design, body: { version: 1, title: 'Clone' } },
+    'PUT /api/designs/:id/baseline': { as: 'owner', params: design, body: { version: 1 } },
+    'POST /api/designs/:id/share-links': { as: 'owner', params: design, body: { version: 1, expiresAt: '2027-01-01T00:00:00Z' } },
+    'POST /api/designs/:id/versions/:n/reviews': { as: 'reviewer', params: { ...design, n: '1' }, body: { body: 'Looks fine', decision: 'approved' } },
+  };
+}, 120_000);
+
+afterAll(async () => {
+  await new Promise((resolve) => server?.close(resolve));
+  await fx?.ctx.close();
+});
+
+describe('random and poisoned JSON bodies', () => {
+  it('covers every route that reads a body', () => {
+    const writes = listRoutes(fx.ctx.app).filter((r) => /^(POST|PUT|PATCH) /.test(r) && !bodyless.has(r));
+    expect(writes.sort()).toEqual(Object.keys(targets).sort());
+  });
+});
+
+describe.each([
+  'POST /api/solve',
+  'POST /api/auth/sign-up',
+  'POST /api/auth/sign-in',
+  'POST /api/auth/password-reset',
+  'POST /api/auth/password-reset/confirm',
+  'POST /api/auth/verify-email',
+  'POST /api/teams',
+  'PATCH /api/teams/:teamId',
+  'PATCH /api/teams/:teamId/members/:userId',
+  'POST /api/teams/:teamId/invitations',
+  'POST /api/teams/:teamId/designs',
+  'POST /api/teams/:teamId/designs/import',
+  'PATCH /api/designs/:id',
+  'POST /api/designs/:id/versions',
+  'POST /api/designs/:id/clone',
+  'PUT /api/designs/:id/baseline',
+  'POST /api/designs/:id/share-links',
+  'POST /api/designs/:id/versions/:n/reviews',
+])('%s', (route) => {
+  it(`answers ${runsPerRoute} hostile bodies without a 500, refusals in the error shape`, async () => {
+    const target = targets[route]!;
+    const [method, pattern] = route.split(' ') as [string, string];
+    const url = pattern.replace(/:([a-zA-Z]+)/g, (_m, name: string) => encodeURIComponent(target.params?.[name] ?? 'x'));
+    await fc.assert(
+      fc.asyncProperty(bodies(target.body), async (body) => {
+        let req = request(server)[method.toLowerCase() as 'post'](url).set('origin', testOrigin).set('content-type', 'application/json');
+        if (target.as !== 'anonymous') req = req.set('cookie', cookies[target.as]);
+        const res = await req.send(JSON.stringify(body) ?? 'null');
+        expect(res.status, `${res.status} ${res.text.slice(0, 300)}`).toBeLessThan(500);
+        if (res.status >= 400) expect(errorBodySchema.safeParse(res.body).success, res.text.slice(0, 300)).toBe(true);
+      }),
+      { numRuns: runsPerRoute },
+    );
+    expect(fx.ctx.errors).toEqual([]);
+  }, 180_000);
+});
