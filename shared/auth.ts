@@ -75,6 +75,10 @@ export const userSchema = z.object({
 });
 export type User = z.infer<typeof userSchema>;
 
+/** Why an unconfirmed account cannot accept an invitation yet; the API and the invitation page say it alike. */
+export const confirmEmailFirstMessage = (email: string) =>
+  `Confirm your e-mail address first: open the link we sent to ${email}, then come back to this invitation.`;
+
 /** `GET /api/auth/session`: who is signed in, or `null`. */
 export const sessionResponseSchema = z.object({ user: userSchema.nullable() });
 export type SessionResponse = z.infer<typeof sessionResponseSchema>;

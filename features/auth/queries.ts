@@ -1,4 +1,4 @@
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient, type UseQueryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
 import {
   acceptedResponseSchema,
@@ -7,6 +7,7 @@ import {
   type PasswordResetConfirm,
   type PasswordResetRequest,
   type SignInRequest,
+  type SessionResponse,
   type SignUpRequest,
 } from '@/shared/auth';
 import { api, staleTime } from '@/features/api';
@@ -16,11 +17,15 @@ export const authKeys = {
   session: () => [...authKeys.all, 'session'] as const,
 };
 
-export function useSessionQuery() {
+/** When to read the session again besides going stale; for screens waiting on something done elsewhere. */
+type SessionRefetch = Pick<UseQueryOptions<SessionResponse>, 'refetchOnMount' | 'refetchOnWindowFocus'>;
+
+export function useSessionQuery(refetch: SessionRefetch = {}) {
   return useQuery({
     queryKey: authKeys.session(),
     queryFn: ({ signal }) => api('/auth/session', sessionResponseSchema, { signal }),
     staleTime: staleTime.live,
+    ...refetch,
   });
 }
 
@@ -69,6 +74,13 @@ export function useResetPasswordMutation() {
   return useMutation({
     mutationFn: (body: PasswordResetConfirm) => api('/auth/password-reset/confirm', signedInResponseSchema, { method: 'POST', body }),
     onSuccess: ({ user }) => changed(user),
+  });
+}
+
+/** Mails a new confirmation link to the signed-in account (nothing when it is confirmed already). */
+export function useResendVerificationMutation() {
+  return useMutation({
+    mutationFn: () => api('/auth/verify-email/resend', acceptedResponseSchema, { method: 'POST' }),
   });
 }
 

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import type { User } from '../../shared/auth';
+import { confirmEmailFirstMessage, type User } from '../../shared/auth';
 import {
   roleLabels,
   type Invitation,
@@ -171,7 +171,7 @@ export function createTeamsService({ repository, roles, mailer, clock, publicUrl
       };
     },
 
-    /** The link was mailed to one address: only the account with that address may use it. */
+    /** The link was mailed to one address: only the account with that address, confirmed, may use it. */
     async acceptInvitation(user: User, token: string): Promise<Team> {
       const tokenHash = await hashToken(token);
       const teamId = await repository.inTransaction(async (repo) => {
@@ -182,6 +182,9 @@ export function createTeamsService({ repository, roles, mailer, clock, publicUrl
         if (invitation.email !== user.email.toLowerCase()) {
           throw forbidden(`This invitation was sent to ${invitation.email}. Sign in with that address to accept it.`);
         }
+        // Anyone can sign up with any address, so a matching address proves nothing until it is
+        // confirmed; otherwise a forwarded link plus a squatted account would join the team.
+        if (!user.emailVerified) throw new HttpError(403, 'email_unverified', confirmEmailFirstMessage(user.email));
         if (await repo.roleOf(invitation.teamId, user.id)) throw conflict('You are already in this team.');
         await repo.addMember(invitation.teamId, user.id, invitation.role, now);
         await repo.markInvitationAccepted(invitation.id, user.id, now);

@@ -53,6 +53,14 @@ describe('accounts and teams in Chromium', () => {
       'E-mail must be an e-mail address such as name@example.com',
       'Password must be at least 10 characters',
     ]);
+
+    // Once submitted, the form checks again as the person types.
+    await page.getByTestId('password').fill(' '.repeat(12));
+    await expect.poll(() => page.getByRole('alert').allTextContents()).toContain('Password must not be only spaces');
+    await page.getByTestId('display-name').fill(owner.name);
+    await page.getByTestId('email').fill(owner.email);
+    await page.getByTestId('password').fill(owner.email.toUpperCase());
+    await expect.poll(() => page.getByRole('alert').allTextContents()).toEqual(['Password must not be your e-mail address']);
   });
 
   it('signs up, signs out and signs in again, coming back to the teams page', async () => {
@@ -122,6 +130,28 @@ describe('accounts and teams in Chromium', () => {
     await guest.getByTestId('password').fill(colleague.password);
     await guest.getByTestId('sign-up-submit').click();
 
+    // Back on the invitation, which asks for the address to be confirmed before it can be accepted.
+    const confirmFirst = guest.getByTestId('invitation-confirm-first');
+    await confirmFirst.waitFor();
+    expect(await confirmFirst.textContent()).toBe(
+      `Confirm your e-mail address first: open the link we sent to ${colleague.email}, then come back to this invitation.`,
+    );
+    expect(await guest.getByTestId('accept-invitation').count()).toBe(0);
+    await guest.getByTestId('resend-confirmation').click();
+    await guest.getByTestId('confirmation-resent').waitFor();
+    await screenshot(guest, 'accounts-invitation-confirm-first-phone');
+
+    // The newest confirmation mail (the resent one) is first in the outbox.
+    await guest.goto(`${server.url}/outbox`);
+    const confirmation = guest
+      .getByTestId('outbox-message')
+      .filter({ hasText: 'Confirm your e-mail address for Blazebook' })
+      .filter({ hasText: `To ${colleague.email}` })
+      .first();
+    await confirmation.getByTestId('outbox-open-link').click();
+    await expect.poll(() => guest.getByTestId('verify-result').textContent()).toBe(`Thank you: ${colleague.email} is confirmed.`);
+
+    await guest.goto(`${server.url}${invitationPath}`);
     await guest.getByTestId('accept-invitation').click();
     await guest.getByRole('heading', { name: 'Grating bench', level: 1 }).waitFor();
     expect(await guest.getByTestId('my-role').textContent()).toBe('You are reviewer of this team.');

@@ -169,7 +169,7 @@ describe('access matrix: every API route × every kind of caller', () => {
   let fx: Fixture;
 
   beforeAll(async () => {
-    const ctx = await createTestApp({ rateLimits: { signInPerIp: 10_000, signInPerEmail: 10_000, signUpPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000 } });
+    const ctx = await createTestApp({ rateLimits: { signInPerIp: 10_000, signInFailuresPerEmailPerIp: 10_000, signInFailuresPerIp: 10_000, signUpPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000 } });
     const owner = await signUp(ctx.app, 'Owner', 'matrix-owner@example.com');
     const made = await owner.agent.post('/api/teams').send({ name: 'Team A' }).expect(201);
     const teamId: string = made.body.team.id;
@@ -184,15 +184,22 @@ describe('access matrix: every API route × every kind of caller', () => {
       const res = await (await asOwner()).post(`/api/teams/${team}/invitations`).send({ email, role }).expect(201);
       return { id: res.body.invitation.id as string, token: tokenFrom(linkIn(ctx.mailer, email, '/invitations/')) };
     };
-    const join = async (team: string, role: Role, name: string, email = freshEmail()) => {
+    // Only a confirmed address may accept an invitation: follow the link from the sign-up mail.
+    const signUpConfirmed = async (name: string, email: string) => {
       const person = await signUp(ctx.app, name, email);
+      const token = tokenFrom(linkIn(ctx.mailer, email, '/verify-email'));
+      await browserAgent(ctx.app).post('/api/auth/verify-email').send({ token }).expect(200);
+      return person;
+    };
+    const join = async (team: string, role: Role, name: string, email = freshEmail()) => {
+      const person = await signUpConfirmed(name, email);
       const { token } = await invite(team, email, role);
       await person.agent.post(`/api/invitations/${token}/accept`).expect(200);
       return person.user;
     };
     const reviewer = await join(teamId, 'reviewer', 'Reviewer', 'matrix-reviewer@example.com');
     const viewer = await join(teamId, 'viewer', 'Viewer', 'matrix-viewer@example.com');
-    const outsider = (await signUp(ctx.app, 'Outsider', 'matrix-outsider@example.com')).user;
+    const outsider = (await signUpConfirmed('Outsider', 'matrix-outsider@example.com')).user;
     const users = { owner: owner.user, reviewer, viewer, outsider };
 
     fx = {

@@ -1,7 +1,9 @@
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
+import { confirmEmailFirstMessage } from '@/shared/auth';
 import { roleLabels } from '@/shared/teams';
-import { AuthCard, FormError, TextLink, useSessionQuery, useSignOutMutation } from '@/features/auth';
+import { ApiError } from '@/features/api';
+import { AuthCard, FormError, TextLink, useResendVerificationMutation, useSessionQuery, useSignOutMutation } from '@/features/auth';
 import { Button, Text, space } from '@/features/ui';
 import { useAcceptInvitationMutation, useInvitationPreviewQuery } from '../queries';
 
@@ -10,8 +12,14 @@ export function InvitationScreen() {
   const { token = '' } = useLocalSearchParams<{ token: string }>();
   const router = useRouter();
   const preview = useInvitationPreviewQuery(token);
-  const session = useSessionQuery();
+  // An invitee who has not confirmed the address does so from the e-mail, often in another tab or
+  // on another device: read the session afresh on coming back here, so the Accept button appears.
+  const session = useSessionQuery({
+    refetchOnMount: 'always',
+    refetchOnWindowFocus: (query) => query.state.data?.user?.emailVerified === false,
+  });
   const accept = useAcceptInvitationMutation(token);
+  const resend = useResendVerificationMutation();
   const signOut = useSignOutMutation();
   const here = `/invitations/${token}`;
 
@@ -36,8 +44,13 @@ export function InvitationScreen() {
   const query = `next=${encodeURIComponent(here)}&email=${encodeURIComponent(invite.email)}`;
 
   const onAccept = async () => {
-    const { team } = await accept.mutateAsync();
-    router.replace(`/teams/${team.id}/members` as Href);
+    try {
+      const { team } = await accept.mutateAsync();
+      router.replace(`/teams/${team.id}/members` as Href);
+    } catch (error) {
+      // The address lost its confirmation elsewhere, or this page's session is old: show why.
+      if (error instanceof ApiError && error.code === 'email_unverified') void session.refetch();
+    }
   };
 
   return (
@@ -45,10 +58,29 @@ export function InvitationScreen() {
       title={`Join ${invite.teamName}`}
       lead={`${invite.invitedBy ?? 'An owner'} invited ${invite.email} to this team as ${roleLabels[invite.role].toLowerCase()}.`}
     >
-      {user && forYou ? (
+      {user && forYou && !user.emailVerified ? (
+        <>
+          <Text testID="invitation-confirm-first">{confirmEmailFirstMessage(user.email)}</Text>
+          {resend.isSuccess ? (
+            <Text tone="ok" testID="confirmation-resent">
+              A new link is on its way; the one sent before no longer works.
+            </Text>
+          ) : null}
+          <FormError message={resend.isError ? resend.error.message : null} />
+          <View style={styles.row}>
+            <Button
+              kind="secondary"
+              label={resend.isPending ? 'Sending…' : 'Send the link again'}
+              onPress={() => resend.mutate()}
+              disabled={resend.isPending}
+              testID="resend-confirmation"
+            />
+          </View>
+        </>
+      ) : user && forYou ? (
         <>
           <FormError message={accept.isError ? accept.error.message : null} />
-          <Button label={accept.isPending ? 'Joining…' : 'Accept the invitation'} onPress={() => void onAccept().catch(() => undefined)} disabled={accept.isPending} testID="accept-invitation" />
+          <Button label={accept.isPending ? 'Joining…' : 'Accept the invitation'} onPress={() => void onAccept()} disabled={accept.isPending} testID="accept-invitation" />
         </>
       ) : user ? (
         <>

@@ -4,6 +4,12 @@ import { browserAgent, createTestApp, linkIn, signUp, testOrigin, tokenFrom, typ
 
 const day = 24 * 60 * 60_000;
 
+/** Follows the confirmation link of the latest message to `email`, as its owner would. */
+async function confirmEmail(ctx: TestApp, email: string) {
+  const token = tokenFrom(linkIn(ctx.mailer, email, '/verify-email'));
+  await browserAgent(ctx.app).post('/api/auth/verify-email').send({ token }).expect(200);
+}
+
 describe('teams, members and invitations', () => {
   let ctx: TestApp;
   let owner: Awaited<ReturnType<typeof signUp>>;
@@ -41,6 +47,7 @@ describe('teams, members and invitations', () => {
 
     await browserAgent(ctx.app).post(`/api/invitations/${token}/accept`).expect(401);
     const newcomer = await signUp(ctx.app, 'Newcomer', 'newcomer@example.com');
+    await confirmEmail(ctx, 'newcomer@example.com');
     const accepted = await newcomer.agent.post(`/api/invitations/${token}/accept`).expect(200);
     expect(accepted.body.team).toMatchObject({ id: teamId, role: 'reviewer' });
 
@@ -54,11 +61,28 @@ describe('teams, members and invitations', () => {
 
   it('invites an existing account, which says so and accepts once', async () => {
     const existing = await signUp(ctx.app, 'Existing', 'existing@example.com');
+    await confirmEmail(ctx, 'existing@example.com');
     const token = await invite('Existing@Example.com', 'viewer');
     expect((await browserAgent(ctx.app).get(`/api/invitations/${token}`).expect(200)).body.accountExists).toBe(true);
     await existing.agent.post(`/api/invitations/${token}/accept`).expect(200);
     await existing.agent.post(`/api/invitations/${token}/accept`).expect(404);
     await browserAgent(ctx.app).get(`/api/invitations/${token}`).expect(404);
+  });
+
+  it('refuses an account whose address is not confirmed yet, and accepts once it is', async () => {
+    const token = await invite('unconfirmed@example.com', 'reviewer');
+    const person = await signUp(ctx.app, 'Unconfirmed', 'unconfirmed@example.com');
+    const refused = await person.agent.post(`/api/invitations/${token}/accept`).expect(403);
+    expect(refused.body.error.code).toBe('email_unverified');
+    expect(refused.body.error.message).toBe(
+      'Confirm your e-mail address first: open the link we sent to unconfirmed@example.com, then come back to this invitation.',
+    );
+    // Refusing it did not use the invitation up.
+    await browserAgent(ctx.app).get(`/api/invitations/${token}`).expect(200);
+
+    await confirmEmail(ctx, 'unconfirmed@example.com');
+    const accepted = await person.agent.post(`/api/invitations/${token}/accept`).expect(200);
+    expect(accepted.body.team).toMatchObject({ id: teamId, role: 'reviewer' });
   });
 
   it('lets only the addressee accept, so a forwarded link is useless', async () => {
@@ -118,6 +142,7 @@ describe('the last owner rule', () => {
     await first.agent.delete(`/api/teams/${teamId}/members/${first.user.id}`).expect(409);
 
     const second = await signUp(ctx.app, 'Second Owner', 'second@example.com');
+    await confirmEmail(ctx, 'second@example.com');
     await first.agent.post(`/api/teams/${teamId}/invitations`).send({ email: 'second@example.com', role: 'viewer' }).expect(201);
     await second.agent.post(`/api/invitations/${tokenFrom(linkIn(ctx.mailer, 'second@example.com', '/invitations/'))}/accept`).expect(200);
     await first.agent.patch(`/api/teams/${teamId}/members/${second.user.id}`).send({ role: 'owner' }).expect(200);
