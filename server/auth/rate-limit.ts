@@ -84,6 +84,8 @@ export function createRateLimiters(limits: RateLimits) {
     reset: [limiter(limits.resetPerIp, limits.windowMs, 'ip'), limiter(limits.resetPerEmail, limits.windowMs, 'email')],
     /** Following a reset link carries a token, not an e-mail: per IP only. */
     resetConfirm: [limiter(limits.resetPerIp, limits.windowMs, 'ip')],
+    /** Each resend is an e-mail we send: as few as reset requests. */
+    resendConfirmation: [limiter(limits.resetPerIp, limits.windowMs, 'ip')],
   };
 }
 

@@ -90,6 +90,7 @@ export function authRouter(auth: AuthService, limits: ReturnType<typeof createRa
   router.post(
     '/auth/verify-email/resend',
     signedIn,
+    ...limits.resendConfirmation,
     handle({}, async (_input, _req, res) => {
       await auth.resendVerification(requireUser(res).id);
       res.status(202);

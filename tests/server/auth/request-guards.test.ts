@@ -107,6 +107,14 @@ describe('rate limits on sign-in and password reset', () => {
     await perIp.close();
   });
 
+  it('answers the 11th confirmation resend from one address with 429 (each one sends an e-mail)', async () => {
+    const agent = browserAgent(ctx.app);
+    await agent.post('/api/auth/sign-up').send({ email: 'resender@example.com', displayName: 'Resender', password }).expect(201);
+    for (let i = 0; i < 10; i += 1) await agent.post('/api/auth/verify-email/resend').expect(202);
+    const res = await agent.post('/api/auth/verify-email/resend').expect(429);
+    expect(res.body.error.code).toBe('rate_limited');
+  });
+
   it('answers the 3rd reset request for one e-mail with 429, known or not', async () => {
     for (const email of ['ghost@example.com', 'target@example.com']) {
       await browserAgent(ctx.app).post('/api/auth/password-reset').send({ email }).expect(202);
