@@ -1,8 +1,14 @@
+import MarkdownIt, { type Token } from 'markdown-it';
+
 /**
- * A deliberately small Markdown reader for version notes: headings, paragraphs, bullet and
- * numbered lists, fenced code, and inline emphasis, strong and code. It returns a tree of plain
- * strings, never HTML, so notes can only ever become React Native `Text`: a `<script>` in a note
- * is shown as the characters it is.
+ * Version notes are read by markdown-it (CommonMark preset): a CommonMark parser that stays
+ * linear on the pathological inputs of the CommonMark reference parsers (runs of `*`, `[`,
+ * backticks, unclosed links, deep quotes and lists), so a pasted note cannot freeze the page the
+ * way the hand-written reader did. micromark (mdast-util-from-markdown 2.0.2) was measured first
+ * and is not: `"*a"` × 40,000 took 36 s and 4,000 nested lists 23 s (`npm run bench:markdown`
+ * gives markdown-it's figures). The tokens become a tree of plain strings, never HTML, so notes
+ * can only ever become React Native `Text`: with `html: false` a `<script>` is read as the
+ * characters it is, and a link keeps its text and shows its address as text, never as an anchor.
  */
 
 export type Inline =
@@ -15,145 +21,209 @@ export type Block =
   | { kind: 'heading'; level: 1 | 2 | 3; children: Inline[] }
   | { kind: 'paragraph'; children: Inline[] }
   | { kind: 'list'; ordered: boolean; start: number; items: Inline[][] }
-  | { kind: 'code'; text: string };
+  | { kind: 'code'; text: string }
+  | { kind: 'rule' };
 
-const heading = /^(#{1,6})\s+(.*?)\s*#*\s*$/;
-const bullet = /^\s{0,3}[-*+]\s+(.*)$/;
-const numbered = /^\s{0,3}(\d{1,9})[.)]\s+(.*)$/;
-const fence = /^\s{0,3}(```|~~~)/;
+type ListBlock = Extract<Block, { kind: 'list' }>;
 
-/** Splits notes into blocks; a blank line ends a paragraph or a list. */
+const reader = new MarkdownIt('commonmark', {
+  html: false,
+  // Every line re-checks each open quote and list, so the parser caps how deep they nest to stay
+  // linear; content below the cap is dropped. Its CommonMark preset's 20 (two levels per list)
+  // would already lose the text of a tenth nested list; 100 (its default preset's value) keeps
+  // 49 nested lists or 99 nested quotes.
+  maxNesting: 100,
+});
+
+/** Reads notes into blocks. Quotes are flattened into the blocks they hold; nested lists follow their item. */
 export function parseMarkdown(source: string): Block[] {
-  const lines = source.replace(/\r\n?/g, '\n').split('\n');
-  const blocks: Block[] = [];
-  let paragraph: string[] = [];
-  let list: { ordered: boolean; start: number; items: string[] } | null = null;
-
-  const flushParagraph = () => {
-    if (paragraph.length > 0) blocks.push({ kind: 'paragraph', children: parseInline(paragraph.join(' ')) });
-    paragraph = [];
-  };
-  const flushList = () => {
-    if (list) blocks.push({ kind: 'list', ordered: list.ordered, start: list.start, items: list.items.map(parseInline) });
-    list = null;
-  };
-
-  for (let i = 0; i < lines.length; i++) {
-    const line = lines[i] as string;
-    const fenceMatch = fence.exec(line);
-    if (fenceMatch) {
-      flushParagraph();
-      flushList();
-      const marker = fenceMatch[1] as string;
-      const body: string[] = [];
-      i++;
-      while (i < lines.length && !(lines[i] as string).trimStart().startsWith(marker)) {
-        body.push(lines[i] as string);
-        i++;
-      }
-      blocks.push({ kind: 'code', text: body.join('\n') });
-      continue;
-    }
-    if (line.trim() === '') {
-      flushParagraph();
-      flushList();
-      continue;
-    }
-    const headingMatch = heading.exec(line);
-    if (headingMatch) {
-      flushParagraph();
-      flushList();
-      const level = Math.min(3, (headingMatch[1] as string).length) as 1 | 2 | 3;
-      blocks.push({ kind: 'heading', level, children: parseInline(headingMatch[2] as string) });
-      continue;
-    }
-    const bulletMatch = bullet.exec(line);
-    const numberedMatch = bulletMatch ? null : numbered.exec(line);
-    if (bulletMatch || numberedMatch) {
-      flushParagraph();
-      const ordered = numberedMatch !== null;
-      const text = (bulletMatch ? bulletMatch[1] : numberedMatch?.[2]) as string;
-      if (!list || list.ordered !== ordered) {
-        flushList();
-        list = { ordered, start: numberedMatch ? Number(numberedMatch[1]) : 1, items: [] };
-      }
-      list.items.push(text);
-      continue;
-    }
-    if (list && /^\s{2,}\S/.test(line)) {
-      // An indented line continues the list item above it.
-      list.items[list.items.length - 1] += ` ${line.trim()}`;
-      continue;
-    }
-    flushList();
-    paragraph.push(line.trim());
-  }
-  flushParagraph();
-  flushList();
-  return blocks;
+  return toBlocks(reader.parse(source, {}));
 }
 
-/** Inline spans: `code` first (nothing inside it is read), then **strong** / __strong__, then *em* / _em_. */
+/** The inline spans of a one-line snippet (no block syntax is read). */
 export function parseInline(text: string): Inline[] {
-  const out: Inline[] = [];
-  let plain = '';
-  const pushPlain = () => {
-    if (plain) out.push({ kind: 'text', text: plain });
-    plain = '';
-  };
-  let i = 0;
-  while (i < text.length) {
-    const ch = text[i] as string;
-    if (ch === '\\' && i + 1 < text.length && /[\\`*_#]/.test(text[i + 1] as string)) {
-      plain += text[i + 1];
-      i += 2;
-      continue;
-    }
-    if (ch === '`') {
-      const end = text.indexOf('`', i + 1);
-      if (end > i + 1) {
-        pushPlain();
-        out.push({ kind: 'code', text: text.slice(i + 1, end) });
-        i = end + 1;
-        continue;
-      }
-    }
-    if ((ch === '*' || ch === '_') && text[i + 1] === ch) {
-      const marker = ch + ch;
-      const end = text.indexOf(marker, i + 2);
-      if (end > i + 2) {
-        pushPlain();
-        out.push({ kind: 'strong', children: parseInline(text.slice(i + 2, end)) });
-        i = end + 2;
-        continue;
-      }
-    }
-    if (ch === '*' || ch === '_') {
-      const end = findClosing(text, ch, i + 1);
-      // Underscores inside words (file_name_v2) are not emphasis.
-      const wordy = ch === '_' && /\w/.test(text[i - 1] ?? '');
-      if (end > i + 1 && !wordy && text[i + 1] !== ' ') {
-        pushPlain();
-        out.push({ kind: 'em', children: parseInline(text.slice(i + 1, end)) });
-        i = end + 1;
-        continue;
-      }
-    }
-    plain += ch;
-    i++;
-  }
-  pushPlain();
-  return out;
-}
-
-function findClosing(text: string, marker: string, from: number): number {
-  for (let j = from; j < text.length; j++) {
-    if (text[j] === marker && text[j + 1] !== marker && text[j - 1] !== ' ' && text[j - 1] !== marker) return j;
-  }
-  return -1;
+  return toInline(reader.parseInline(text, {})[0]?.children ?? []);
 }
 
 /** The plain text of inline spans (for accessibility labels and tests). */
 export function inlineText(spans: readonly Inline[]): string {
   return spans.map((span) => (span.kind === 'text' || span.kind === 'code' ? span.text : inlineText(span.children))).join('');
+}
+
+type ListFrame = { ordered: boolean; next: number; block: ListBlock | null };
+type ItemFrame = { list: ListFrame; number: number; spans: Inline[] | null; blocksAtOpen: number };
+type Container = { kind: 'quote' } | { kind: 'list'; frame: ListFrame } | { kind: 'item'; frame: ItemFrame };
+
+/**
+ * Walks the flat token stream once with an explicit stack (no recursion, so depth costs nothing).
+ * Our blocks are flat, so a list item holds only its own paragraphs' text: anything else inside it
+ * (a nested list, code) is emitted after it, and the list resumes as a new list block numbered on.
+ */
+function toBlocks(tokens: readonly Token[]): Block[] {
+  const blocks: Block[] = [];
+  const containers: Container[] = [];
+
+  const placeInItem = (item: ItemFrame, spans: Inline[]) => {
+    const list = item.list;
+    if (item.spans === null) {
+      if (!list.block || blocks[blocks.length - 1] !== list.block) {
+        list.block = { kind: 'list', ordered: list.ordered, start: item.number, items: [] };
+        blocks.push(list.block);
+      }
+      item.spans = spans;
+      list.block.items.push(spans);
+      return;
+    }
+    const stillLast = blocks[blocks.length - 1] === list.block && list.block?.items[list.block.items.length - 1] === item.spans;
+    if (stillLast) {
+      // A loose item's second paragraph continues its text, as the old reader joined lines.
+      appendText(item.spans, ' ');
+      for (const span of spans) appendSpan(item.spans, span);
+    } else {
+      blocks.push({ kind: 'paragraph', children: spans });
+    }
+  };
+
+  for (let i = 0; i < tokens.length; i++) {
+    const token = tokens[i]!;
+    const top = containers[containers.length - 1];
+    switch (token.type) {
+      case 'blockquote_open':
+        containers.push({ kind: 'quote' });
+        break;
+      case 'bullet_list_open':
+      case 'ordered_list_open': {
+        const ordered = token.type === 'ordered_list_open';
+        const start = ordered ? Number(token.attrGet('start') ?? 1) : 1;
+        containers.push({ kind: 'list', frame: { ordered, next: start, block: null } });
+        break;
+      }
+      case 'list_item_open':
+        if (top?.kind === 'list') {
+          const item = { list: top.frame, number: top.frame.next++, spans: null, blocksAtOpen: blocks.length };
+          containers.push({ kind: 'item', frame: item });
+        }
+        break;
+      case 'list_item_close':
+        if (top?.kind === 'item') {
+          // An empty item ("-" alone) is still a bullet; an item that only held a nested list is not.
+          if (top.frame.spans === null && blocks.length === top.frame.blocksAtOpen) placeInItem(top.frame, []);
+          containers.pop();
+        }
+        break;
+      case 'blockquote_close':
+      case 'bullet_list_close':
+      case 'ordered_list_close':
+        containers.pop();
+        break;
+      case 'heading_open': {
+        const level = Math.min(3, Number(token.tag.slice(1)) || 1) as 1 | 2 | 3;
+        blocks.push({ kind: 'heading', level, children: toInline(tokens[i + 1]?.children ?? []) });
+        i += 2;
+        break;
+      }
+      case 'paragraph_open': {
+        const spans = toInline(tokens[i + 1]?.children ?? []);
+        if (top?.kind === 'item') placeInItem(top.frame, spans);
+        else blocks.push({ kind: 'paragraph', children: spans });
+        i += 2;
+        break;
+      }
+      case 'fence':
+      case 'code_block':
+        // The parser keeps the newline that ends the last code line; the view adds its own.
+        blocks.push({ kind: 'code', text: token.content.replace(/\n$/, '') });
+        break;
+      case 'hr':
+        blocks.push({ kind: 'rule' });
+        break;
+      case 'html_block':
+        // Not produced while `html` is off; kept as its characters should that ever change.
+        blocks.push({ kind: 'paragraph', children: [{ kind: 'text', text: token.content.replace(/\n$/, '') }] });
+        break;
+    }
+  }
+  return blocks;
+}
+
+type Mark =
+  | { kind: 'em' | 'strong' | 'flat'; children: Inline[] }
+  | { kind: 'link'; children: Inline[]; href: string; autolink: boolean };
+
+/**
+ * Emphasis is paired after the parser's nesting guard has run, so 20,000 `*` around a word still
+ * nest thousands deep; the view draws one `Text` per level, so spans stop nesting here. Deeper
+ * than this looks no different (bold italic is bold italic).
+ */
+const MAX_SPAN_DEPTH = 8;
+
+/** Inline tokens are flat too (open/close pairs), so the tree is built with a stack of open marks. */
+function toInline(tokens: readonly Token[]): Inline[] {
+  const root: Inline[] = [];
+  const marks: Mark[] = [];
+  let styled = 0;
+  const current = () => marks[marks.length - 1]?.children ?? root;
+
+  for (const token of tokens) {
+    switch (token.type) {
+      case 'em_open':
+      case 'strong_open': {
+        const kind: 'em' | 'strong' = token.type === 'em_open' ? 'em' : 'strong';
+        if (styled >= MAX_SPAN_DEPTH) {
+          // Below the cap the text keeps the style it already has: the mark adds no span.
+          marks.push({ kind: 'flat', children: current() });
+          break;
+        }
+        const span = { kind, children: [] as Inline[] };
+        current().push(span);
+        marks.push({ kind, children: span.children });
+        styled++;
+        break;
+      }
+      case 'link_open':
+        // A link is drawn as its text: the children go straight into the enclosing span.
+        marks.push({ kind: 'link', children: current(), href: String(token.attrGet('href') ?? ''), autolink: token.markup === 'autolink' });
+        break;
+      case 'em_close':
+      case 'strong_close':
+        if (marks.pop()?.kind !== 'flat') styled--;
+        break;
+      case 'link_close': {
+        const link = marks.pop();
+        // The address is shown as text so it can be read and copied; an autolink already shows it.
+        if (link?.kind === 'link' && !link.autolink && link.href) appendText(current(), ` (${link.href})`);
+        break;
+      }
+      case 'code_inline':
+        current().push({ kind: 'code', text: token.content });
+        break;
+      case 'softbreak':
+        appendText(current(), ' ');
+        break;
+      case 'hardbreak':
+        appendText(current(), '\n');
+        break;
+      case 'image':
+        // Its alt text, which the parser keeps as the image's children.
+        appendText(current(), (token.children ?? []).map((child) => child.content).join(''));
+        break;
+      default:
+        // text, and html_inline should `html` ever be turned on: the characters as written.
+        if (token.content) appendText(current(), token.content);
+    }
+  }
+  return root;
+}
+
+function appendSpan(spans: Inline[], span: Inline): void {
+  if (span.kind === 'text') appendText(spans, span.text);
+  else spans.push(span);
+}
+
+/** Adjacent text is merged so a paragraph split across lines reads as one string. */
+function appendText(spans: Inline[], text: string): void {
+  if (!text) return;
+  const last = spans[spans.length - 1];
+  if (last?.kind === 'text') spans[spans.length - 1] = { kind: 'text', text: last.text + text };
+  else spans.push({ kind: 'text', text });
 }

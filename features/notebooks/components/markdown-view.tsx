@@ -31,7 +31,7 @@ function renderInline(spans: readonly Inline[], keyPrefix: string): ReactNode[] 
   });
 }
 
-/** Version notes, read by our own small Markdown reader and drawn with `Text` only: no HTML ever. */
+/** Version notes, read by markdown-it (see `markdown.ts`) and drawn with `Text` only: no HTML ever. */
 export function MarkdownView({ source, testID }: { source: string; testID?: string }) {
   const blocks = useMemo(() => parseMarkdown(source), [source]);
   if (blocks.length === 0) {
@@ -75,6 +75,8 @@ export function MarkdownView({ source, testID }: { source: string; testID?: stri
                 ))}
               </View>
             );
+          case 'rule':
+            return <View key={key} role="separator" style={styles.rule} />;
         }
       })}
     </View>
@@ -95,4 +97,5 @@ const styles = StyleSheet.create({
   item: { flexDirection: 'row', gap: space.sm },
   marker: { minWidth: 20, textAlign: 'right' },
   itemText: { flex: 1, minWidth: 0 },
+  rule: { height: StyleSheet.hairlineWidth, backgroundColor: colors.line },
 });
