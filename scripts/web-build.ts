@@ -12,6 +12,8 @@ const sourceEntries = [
   'package.json',
   'package-lock.json',
   'tsconfig.json',
+  'metro.config.js',
+  'index.js',
 ];
 const skip = new Set(['node_modules', '.git', 'dist', 'data']);
 
