@@ -7,7 +7,12 @@ const rootDir = fileURLToPath(new URL('..', import.meta.url));
 
 const envSchema = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(8080),
-  HOST: z.string().default('0.0.0.0'),
+  /**
+   * Loopback unless said otherwise, in production too: a development server should not be open to
+   * the café's Wi-Fi, and a production one normally sits behind a reverse proxy on the same host.
+   * `0.0.0.0` (or `::`) opens it to the network.
+   */
+  HOST: z.string().min(1).default('127.0.0.1'),
   DATA_DIR: z.string().min(1).default(`${rootDir}data`),
   WEB_ROOT: z.string().min(1).default(`${rootDir}dist`),
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -20,11 +25,16 @@ const envSchema = z.object({
 export type Config = z.infer<typeof envSchema> & { version: string };
 
 /** Reads the environment once at start-up; a bad value stops the server with the variable's name. */
-export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
   const parsed = envSchema.safeParse(env);
   if (!parsed.success) {
     throw new Error(`Bad environment:\n${formatFieldErrors(fieldErrors(parsed.error))}`);
   }
   const pkg = JSON.parse(readFileSync(`${rootDir}package.json`, 'utf8')) as { version: string };
   return { ...parsed.data, version: pkg.version };
+}
+
+/** True for addresses only this machine can reach: then the server says how to open it up. */
+export function isLoopbackHost(host: string): boolean {
+  return host === 'localhost' || host === '::1' || /^127(\.\d{1,3}){3}$/.test(host);
 }

@@ -1,14 +1,20 @@
 import type { AddressInfo } from 'node:net';
+import { DataDirInUseError } from '../db/data-dir-lock';
 import { openDatabase } from '../db/client';
 import { createApp } from './app';
 import { systemClock } from './clock';
-import { loadConfig } from './config';
+import { isLoopbackHost, loadConfig } from './config';
 import { createOutboxMailer, createSmtpMailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
 import { seedDemoData } from './seed/demo';
+import { gracefulShutdown } from './shutdown';
 
 const config = loadConfig();
-const database = await openDatabase({ dataDir: config.DATA_DIR });
+const database = await openDatabase({ dataDir: config.DATA_DIR }).catch((error: unknown) => {
+  if (!(error instanceof DataDirInUseError)) throw error;
+  console.error(error.message);
+  process.exit(1);
+});
 if (config.NODE_ENV === 'development') {
   const lines = await seedDemoData({ database, clock: systemClock });
   if (lines) console.log(lines.join('\n'));
@@ -36,27 +42,38 @@ const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;
   const url = config.PUBLIC_URL ?? `http://localhost:${port}`;
   listeningUrl = url;
-  // The test helper and `npm start` wait for this exact line.
+  if (isLoopbackHost(config.HOST)) {
+    console.log('Listening on loopback only; set HOST=0.0.0.0 (and PUBLIC_URL) to open it to your network.');
+  }
+  // The test helper and `npm start` wait for this exact line; it comes last.
   console.log(`Blazebook is ready at ${url} (data in ${config.DATA_DIR})`);
 });
 
-let stopping = false;
-async function shutdown(signal: string) {
-  if (stopping) return;
-  stopping = true;
+const backstopMs = 10_000;
+const shutdown = gracefulShutdown(server, { close: () => database.close(), backstopMs });
+
+function onSignal(signal: NodeJS.Signals) {
+  if (shutdown.stopping) return;
   console.log(`${signal}: finishing open requests and closing the database…`);
-  const forced = setTimeout(() => {
-    console.error('Requests did not finish within 10 s; closing anyway.');
-    server.closeAllConnections();
-  }, 10_000);
-  server.close(async () => {
-    clearTimeout(forced);
-    await database.close();
-    console.log('Database closed. Goodbye.');
-    process.exit(0);
-  });
-  server.closeIdleConnections();
+  // Whatever hangs, the database's close included, the process still ends.
+  setTimeout(() => {
+    console.error('Shutdown did not finish; exiting without it.');
+    process.exit(1);
+  }, backstopMs + 5_000);
+  shutdown.stop().then(
+    (outcome) => {
+      if (outcome === 'forced') {
+        console.error(`Requests still running after ${backstopMs / 1000} s were cut.`);
+      }
+      console.log('Database closed. Goodbye.');
+      process.exit(outcome === 'drained' ? 0 : 1);
+    },
+    (error: unknown) => {
+      console.error(error);
+      process.exit(1);
+    },
+  );
 }
 
-process.on('SIGINT', () => void shutdown('SIGINT'));
-process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', onSignal);
+process.on('SIGTERM', onSignal);
