@@ -240,14 +240,16 @@ export type SaveVersionRequest = z.input<typeof saveVersionRequestSchema>;
 export const saveVersionResponseSchema = notebookWithVersionResponseSchema;
 
 /**
- * The 409 of a save on a stale base: still the one error shape, with the latest version beside
- * the message so the client can show both and offer to rebase.
+ * The 409 of a save on a stale base: still the one error shape, with the latest version in
+ * `error.details` so the client can show both and offer to rebase without asking again.
  */
 export const versionConflictCode = 'version_conflict';
+export const versionConflictDetailsSchema = z.object({ latest: versionSchema });
+export type VersionConflictDetails = z.infer<typeof versionConflictDetailsSchema>;
 export const versionConflictBodySchema = z.object({
   error: errorBodySchema.shape.error.extend({
     code: z.literal(versionConflictCode),
-    latest: versionSchema,
+    details: versionConflictDetailsSchema,
   }),
 });
 export type VersionConflictBody = z.infer<typeof versionConflictBodySchema>;

@@ -4,8 +4,13 @@ import type { ErrorBody } from '../../shared/api-error';
 import { fieldErrors } from '../../shared/validation';
 import { HttpError } from './errors';
 
-function body(code: string, message: string, fields?: ErrorBody['error']['fields']): ErrorBody {
-  return { error: fields ? { code, message, fields } : { code, message } };
+function body(
+  code: string,
+  message: string,
+  fields?: ErrorBody['error']['fields'],
+  details?: ErrorBody['error']['details'],
+): ErrorBody {
+  return { error: { code, message, ...(fields && { fields }), ...(details && { details }) } };
 }
 
 /** Any `/api` path no router answered. */
@@ -75,7 +80,7 @@ export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler
           ? new HttpError(400, 'invalid_request', 'The request has invalid fields.', fieldErrors(error))
           : (bodyParserError(error) ?? clientErrorFromStatus(error, req));
     if (known) {
-      res.status(known.status).json(body(known.code, known.message, known.fields));
+      res.status(known.status).json(body(known.code, known.message, known.fields, known.details));
       return;
     }
     log(error);

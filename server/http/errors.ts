@@ -10,6 +10,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: FieldErrors,
+    /** Sent as `error.details`: what the client needs to act on this code without asking again. */
+    readonly details?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'HttpError';

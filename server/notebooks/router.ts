@@ -1,4 +1,4 @@
-import { Router, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
+import { Router } from 'express';
 import {
   baselineRequestSchema,
   cloneRequestSchema,
@@ -17,19 +17,7 @@ import {
 } from '../../shared/notebooks';
 import { requireUser, signedIn } from '../auth/index';
 import { handle } from '../http/validate';
-import { VersionConflictError, type NotebooksService } from './service';
-
-/** The stale-base 409 carries the latest version beside the usual error fields. */
-function withConflictBody(handler: RequestHandler): RequestHandler {
-  return (req: Request, res: Response, next: NextFunction) =>
-    handler(req, res, (error?: unknown) => {
-      if (error instanceof VersionConflictError && !res.headersSent) {
-        res.status(409).json(error.body());
-        return;
-      }
-      next(error);
-    });
-}
+import type { NotebooksService } from './service';
 
 /** A file name for the export: the title in plain letters, never a path. */
 function fileName(title: string): string {
@@ -108,15 +96,13 @@ export function notebooksRouter(notebooks: NotebooksService) {
   router.post(
     '/designs/:id/versions',
     signedIn,
-    withConflictBody(
-      handle(
-        { params: designParamsSchema, body: saveVersionRequestSchema },
-        async ({ params, body }, _req, res) => {
-          const saved = await notebooks.save(requireUser(res), params.id, body);
-          res.status(201);
-          return saved;
-        },
-      ),
+    handle(
+      { params: designParamsSchema, body: saveVersionRequestSchema },
+      async ({ params, body }, _req, res) => {
+        const saved = await notebooks.save(requireUser(res), params.id, body);
+        res.status(201);
+        return saved;
+      },
     ),
   );
   router.get(

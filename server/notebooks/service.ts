@@ -15,7 +15,7 @@ import {
   type SharedVersionResponse,
   type Version,
   type VersionHeader,
-  type VersionConflictBody,
+  type VersionConflictDetails,
   type VersionResponse,
   listDesignsQuerySchema,
   createDesignRequestSchema,
@@ -51,21 +51,17 @@ const versionNotFound = (n: number) => notFound(`This design has no version ${n}
 const shareGone = () => notFound('This link is not valid any more. Ask the design’s owner for a new one.');
 
 /**
- * A save whose base is no longer the latest. It carries the latest version so the client can
- * show both; the router writes it with the error shape plus `error.latest`.
+ * A save whose base is no longer the latest. The latest version goes in `error.details`
+ * (`versionConflictBodySchema`) so the client can show both without reading it back.
  */
-export class VersionConflictError extends HttpError {
-  constructor(readonly latest: Version) {
-    super(
-      409,
-      versionConflictCode,
-      `Version ${latest.number} was saved meanwhile. Review it and save again on top of it.`,
-    );
-  }
-  body(): VersionConflictBody {
-    return { error: { code: versionConflictCode, message: this.message, latest: this.latest } };
-  }
-}
+const versionConflict = (latest: Version) =>
+  new HttpError(
+    409,
+    versionConflictCode,
+    `Version ${latest.number} was saved meanwhile. Review it and save again on top of it.`,
+    undefined,
+    { latest } satisfies VersionConflictDetails,
+  );
 
 function toNotebook(row: Omit<DesignView, 'role'>, role: Role): Notebook {
   return {
@@ -344,7 +340,7 @@ export function createNotebooksService({ repository, roles, clock }: NotebooksSe
           throw badRequest('The base version does not exist.', { baseVersion: `must be at most ${design.latestVersion}` });
         const latest = await repository.version(designId, design.latestVersion);
         if (!latest) throw designNotFound();
-        throw new VersionConflictError(toVersion(latest));
+        throw versionConflict(toVersion(latest));
       }
       forgetTeamLists(teamId);
       // Answer from what was just written rather than reading it back.

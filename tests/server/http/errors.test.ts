@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { errorBodySchema } from '../../../shared/api-error';
 import { errorHandler } from '../../../server/http/error-handler';
+import { HttpError } from '../../../server/http/errors';
 import { handle } from '../../../server/http/validate';
 import { createTestApp } from '../../support/test-app';
 
@@ -78,6 +79,24 @@ describe('the error middleware', () => {
     const { error } = errorBodySchema.parse(res.body);
     expect(error.code).toBe('invalid_request');
     expect(error.fields).toEqual({ 'slits.exitWidthUm': 'must be greater than 0', title: 'is required' });
+  });
+
+  it('sends an HttpError’s details as error.details, and no details key when it has none', async () => {
+    const { app } = appThatFails(() => {
+      throw new HttpError(409, 'version_conflict', 'Saved meanwhile.', undefined, { latest: { number: 2 } });
+    });
+    const res = await request(app).post('/thing').send({}).expect(409);
+    expect(errorBodySchema.parse(res.body).error).toEqual({
+      code: 'version_conflict',
+      message: 'Saved meanwhile.',
+      details: { latest: { number: 2 } },
+    });
+    const plain = appThatFails(() => {
+      throw new HttpError(404, 'not_found', 'Nothing here.');
+    });
+    expect((await request(plain.app).post('/thing').send({}).expect(404)).body).toEqual({
+      error: { code: 'not_found', message: 'Nothing here.' },
+    });
   });
 
   it('hands the parsed value on to the handler (defaults applied, parsed once)', async () => {

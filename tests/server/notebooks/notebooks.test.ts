@@ -133,12 +133,17 @@ describe('saving versions', () => {
     ).expect(409);
     const body = versionConflictBodySchema.parse(res.body);
     expect(body.error.code).toBe('version_conflict');
-    expect(body.error.latest).toMatchObject({ number: 2, message: 'Colleague’s change' });
-    expect(body.error.latest.params.slits.exitWidthUm).toBe(50);
+    // One place for the latest: `details`, the field every error may carry.
+    expect(res.body.error).not.toHaveProperty('latest');
+    expect(body.error.details.latest).toMatchObject({ number: 2, message: 'Colleague’s change' });
+    expect(body.error.details.latest.params.slits.exitWidthUm).toBe(50);
     const history = versionListResponseSchema.parse(
       (await fx.owner.agent.get(`/api/designs/${design.id}/versions`).expect(200)).body,
     );
     expect(history.versions.map((v) => v.number)).toEqual([2, 1]);
+    // Exactly the version a reader of v2 gets, so the client needs no second request.
+    const latest = (await fx.owner.agent.get(`/api/designs/${design.id}/versions/2`).expect(200)).body;
+    expect(res.body.error.details.latest).toEqual(latest.version);
     // Rebased on the latest, the same change goes through.
     await saveVersion(
       fx,
