@@ -1,3 +1,5 @@
+import { LRUCache } from 'lru-cache';
+
 /**
  * A small in-process cache for hot reads (sessions, roles, design lists). The embedded database
  * is one process's, and every write goes through this server's services, so a service that
@@ -7,7 +9,7 @@
  * nothing, so an answer read just before a change can never outlive it. Misses (null) are never
  * stored, so a row that appears later is seen at once.
  */
-export type ReadCache<V> = {
+export type ReadCache<V extends NonNullable<unknown>> = {
   /** The stored value, if it has not run out. */
   get(key: string): V | undefined;
   /**
@@ -29,7 +31,7 @@ export type ReadCache<V> = {
 export const backstopTtlMs = 60_000;
 
 export type ReadCacheOptions = {
-  /** Entries kept at most; the oldest stored goes first. */
+  /** Entries kept at most; the least recently read or stored goes first. */
   max: number;
   /** Longest time an entry is trusted, in ms: `backstopTtlMs` unless given (Infinity for immutable rows). */
   ttlMs?: number;
@@ -37,32 +39,40 @@ export type ReadCacheOptions = {
   now?: () => number;
 };
 
-export function createReadCache<V>({ max, ttlMs = backstopTtlMs, now = Date.now }: ReadCacheOptions): ReadCache<V> {
-  const entries = new Map<string, { value: V; until: number }>();
+/**
+ * A cache bounded by `max` entries and `ttlMs`, both kept by lru-cache; this adds the guard that
+ * a load which began before a `forget` stores nothing, and never stores a miss.
+ */
+export function createReadCache<V extends NonNullable<unknown>>({ max, ttlMs = backstopTtlMs, now = Date.now }: ReadCacheOptions): ReadCache<V> {
+  const entries = new LRUCache<string, V>({
+    max,
+    // Every store passes its own ttl (below); a cache-wide one is what switches lru-cache's time
+    // tracking on, so immutable rows get the largest it takes rather than none.
+    ttl: Number.isFinite(ttlMs) ? ttlMs : Number.MAX_SAFE_INTEGER,
+    // Shifted by 1 ms because lru-cache reads a start time of 0 as "no limit", and a test's clock
+    // may start there; only differences of this clock are used.
+    perf: { now: () => now() + 1 },
+    // No memo of the clock: it costs a timer per read, and would hide a test's move of the clock.
+    ttlResolution: 0,
+  });
   // Bumped by every forget: a load that saw an older generation may carry a stale answer.
   let generation = 0;
 
-  function get(key: string): V | undefined {
-    const entry = entries.get(key);
-    if (!entry) return undefined;
-    if (entry.until <= now()) {
-      entries.delete(key);
-      return undefined;
-    }
-    return entry.value;
-  }
-
   function store(key: string, value: V, until: number) {
-    if (until <= now()) return;
-    entries.delete(key);
-    if (entries.size >= max) entries.delete(entries.keys().next().value!);
-    entries.set(key, { value, until });
+    // lru-cache keeps an entry until *more* than `ttl` ms have passed, and reads a ttl of 0 as
+    // "forever"; ours is gone at `until`, and one that would live a millisecond is not worth it.
+    const ttl = until - now() - 1;
+    if (!(ttl >= 1)) {
+      entries.delete(key);
+      return;
+    }
+    entries.set(key, value, { ttl: Number.isFinite(ttl) ? ttl : 0 });
   }
 
   return {
-    get,
+    get: (key) => entries.get(key),
     async load(key, fetch, keepUntil) {
-      const hit = get(key);
+      const hit = entries.get(key);
       if (hit !== undefined) return hit;
       const seen = generation;
       const value = await fetch();
@@ -81,7 +91,9 @@ export function createReadCache<V>({ max, ttlMs = backstopTtlMs, now = Date.now 
     },
     forgetWhere(pick) {
       generation++;
-      for (const [key, entry] of entries) if (pick(key, entry.value)) entries.delete(key);
+      // Collected first: deleting while lru-cache walks its list would skip entries.
+      const picked = [...entries.entries()].filter(([key, value]) => pick(key, value)).map(([key]) => key);
+      for (const key of picked) entries.delete(key);
     },
     get size() {
       return entries.size;
