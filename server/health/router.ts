@@ -1,9 +1,13 @@
 import { Router } from 'express';
 import type { Health } from '../../shared/health';
-import type { AppDeps } from '../app';
+import type { DatabaseHandle } from '../../db/client';
+import type { Clock } from '../clock';
+
+/** What the health check reads; typed here so the router does not import the app that mounts it. */
+export type HealthDeps = { database: Pick<DatabaseHandle, 'ping'>; clock: Clock; version: string };
 
 /** `GET /api/health`: is the server up, which build is it, does its database answer. */
-export function healthRouter({ database, clock, version }: Pick<AppDeps, 'database' | 'clock' | 'version'>) {
+export function healthRouter({ database, clock, version }: HealthDeps) {
   const router = Router();
   router.get('/health', async (_req, res) => {
     const started = performance.now();

@@ -1,8 +1,6 @@
 import nodemailer from 'nodemailer';
+import type { MailMessage } from './message';
 import type { OutboxRepository } from './outbox-repository';
-
-/** An e-mail Blazebook sends: always a plain-text part, and an HTML part for mail clients that show it. */
-export type MailMessage = { to: string; subject: string; text: string; html: string };
 
 export interface Mailer {
   send(message: MailMessage): Promise<void>;

@@ -2,7 +2,7 @@ import { desc } from 'drizzle-orm';
 import type { Database } from '../../db/client';
 import { mailOutbox } from '../../db/schema';
 import type { Clock } from '../clock';
-import type { MailMessage } from './mailer';
+import type { MailMessage } from './message';
 
 export type OutboxRepository = ReturnType<typeof createOutboxRepository>;
 

@@ -1,4 +1,4 @@
-import type { MailMessage } from './mailer';
+import type { MailMessage } from './message';
 
 /** Escapes text for the HTML part; every value we put in a message passes through it. */
 function esc(value: string): string {
