@@ -2,13 +2,17 @@ import type { z } from 'zod';
 import { errorBodySchema } from '@/shared/api-error';
 import type { FieldErrors } from '@/shared/validation';
 
-/** A failed API call, carrying the server's error code and per-field reasons. */
+/**
+ * A failed API call, carrying the server's error code, per-field reasons and `details`: what that
+ * code needs to be acted on, left for the caller who knows the code to parse with its schema.
+ */
 export class ApiError extends Error {
   constructor(
     readonly status: number,
     readonly code: string,
     message: string,
     readonly fields: FieldErrors = {},
+    readonly details?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -36,8 +40,8 @@ export async function api<S extends z.ZodType>(path: string, schema: S, options:
   if (!response.ok) {
     const parsed = errorBodySchema.safeParse(payload);
     if (parsed.success) {
-      const { code, message, fields } = parsed.data.error;
-      throw new ApiError(response.status, code, message, fields);
+      const { code, message, fields, details } = parsed.data.error;
+      throw new ApiError(response.status, code, message, fields, details);
     }
     throw new ApiError(response.status, 'unexpected', `The server answered ${response.status}.`);
   }

@@ -14,6 +14,7 @@ import {
   shareLinkListResponseSchema,
   sharedVersionResponseSchema,
   versionConflictCode,
+  versionConflictDetailsSchema,
   versionListResponseSchema,
   versionResponseSchema,
   type CloneRequest,
@@ -144,17 +145,22 @@ export class VersionConflict extends Error {
 }
 
 /**
- * Saves version latest+1. On a stale base the server answers 409 with the latest version; the
- * shared client keeps only the error's code, so the latest is read back through it and handed
- * to the screen as a `VersionConflict` to show beside the user's edits.
+ * Saves version latest+1. On a stale base the server answers 409 with the latest version in
+ * `error.details`; it is handed to the screen as a `VersionConflict` to show beside the user's
+ * edits, so a conflict costs one request.
  */
 export async function saveVersion(id: string, body: SaveVersionRequest) {
+  const to = path(notebookPaths.versions(id));
   try {
-    return await api(path(notebookPaths.versions(id)), saveVersionResponseSchema, { method: 'POST', body });
+    return await api(to, saveVersionResponseSchema, { method: 'POST', body });
   } catch (error) {
     if (error instanceof ApiError && error.status === 409 && error.code === versionConflictCode) {
-      const { version } = await api(path(notebookPaths.design(id)), notebookResponseSchema);
-      throw new VersionConflict(version);
+      // Parsed like every other answer, so a server that drifted fails here, not in the card.
+      const details = versionConflictDetailsSchema.safeParse(error.details);
+      if (!details.success) {
+        throw new ApiError(409, 'bad_response', `The server's answer to ${to} did not match what this app expects.`);
+      }
+      throw new VersionConflict(details.data.latest);
     }
     throw error;
   }
