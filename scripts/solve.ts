@@ -8,7 +8,9 @@
  * Limits (the HTTP API's, see USAGE): at most 1,000 wavelengths, 20 listed overlapping orders each.
  */
 
-import { readFileSync } from 'node:fs';
+import { readFileSync, realpathSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
 import { DEFAULT_POINTS, evaluateDesign } from '../features/solver/evaluate';
 import { MAX_LISTED_OVERLAPS } from '../features/solver/orders';
 import { defaultRateLimits } from '../server/auth/rate-limit';
@@ -17,92 +19,82 @@ import { fieldErrors, formatFieldErrors } from '../shared/validation';
 
 // The CLI keeps the HTTP API's limits (one schema for both), so a script that works here also
 // works against POST /api/solve.
-const USAGE = `usage: npm run --silent solve -- <design.json | -> [--at 400,500,600] [--points N]
+export const USAGE = `usage: npm run --silent solve -- <design.json | -> [--at 400,500,600] [--points N]
   --at      wavelengths in nm, at most ${MAX_SOLVE_WAVELENGTHS}
   --points  evenly spaced wavelengths over the design range, ${MIN_SOLVE_POINTS} to ${MAX_SOLVE_WAVELENGTHS} (default ${DEFAULT_POINTS})
 Each wavelength lists at most ${MAX_LISTED_OVERLAPS} overlapping orders (those nearest the working order);
 overlapCount is the full number and overlapsTruncated is true when the list was cut.
 The same limits as POST /api/solve, which also allows ${defaultRateLimits.solvePerIp} calls per ${defaultRateLimits.solveWindowMs / 1000} s per address.`;
 
-class UsageError extends Error {}
+/** A bad command line: the message (empty for --help) is printed above USAGE, exit 2. */
+export class UsageError extends Error {}
 
-interface Args {
+export interface SolveArgs {
+  /** A file path, or `-` for stdin. */
   input: string;
   at?: number[];
   points?: number;
 }
 
-function parseArgs(argv: readonly string[]): Args {
-  let input: string | undefined;
-  let at: number[] | undefined;
-  let points: number | undefined;
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i]!;
-    const [flag, inline] = arg.startsWith('--') ? (arg.split(/=(.*)/s, 2) as [string, string?]) : [arg];
-    const value = () => {
-      const v = inline ?? argv[++i];
-      if (v === undefined || v === '') throw new UsageError(`${flag} needs a value`);
-      return v;
-    };
-    if (flag === '--at') {
-      at = value().split(',').map((s) => {
-        const n = Number(s.trim());
-        if (s.trim() === '' || !Number.isFinite(n)) throw new UsageError(`--at: "${s}" is not a wavelength in nm`);
-        return n;
-      });
-    } else if (flag === '--points') {
-      const raw = value();
-      points = Number(raw);
-      if (!Number.isFinite(points)) throw new UsageError(`--points: "${raw}" is not a number`);
-    } else if (flag === '--help' || flag === '-h') {
-      throw new UsageError('');
-    } else if (flag.startsWith('-') && flag !== '-') {
-      throw new UsageError(`unknown option ${flag}`);
-    } else if (input === undefined) {
-      input = arg;
-    } else {
-      throw new UsageError(`unexpected argument ${arg}`);
+const options = {
+  at: { type: 'string' },
+  points: { type: 'string' },
+  help: { type: 'boolean', short: 'h' },
+} as const;
+
+/**
+ * Reads the command line (without `node` and the script). Throws a `UsageError` naming the flag
+ * for an unknown option, a missing value or a value that is not a number.
+ */
+export function parseSolveArgs(argv: readonly string[]): SolveArgs {
+  // Not strict: node's own messages would differ from ours, and strict mode refuses `--at -5`
+  // outright where the schema below explains that a wavelength must be greater than 0.
+  const { values, positionals, tokens } = parseArgs({ args: [...argv], options, allowPositionals: true, strict: false, tokens: true });
+  if (values.help === true) throw new UsageError('');
+  for (const token of tokens) {
+    if (token.kind !== 'option') continue;
+    if (!Object.hasOwn(options, token.name)) throw new UsageError(`unknown option ${token.rawName}`);
+    if (options[token.name as keyof typeof options].type === 'string' && !token.value) {
+      throw new UsageError(`${token.rawName} needs a value`);
     }
   }
+  const at = typeof values.at === 'string' ? values.at.split(',').map(wavelength) : undefined;
+  let points: number | undefined;
+  if (typeof values.points === 'string') {
+    points = Number(values.points);
+    if (!Number.isFinite(points)) throw new UsageError(`--points: "${values.points}" is not a number`);
+  }
+  const [input, extra] = positionals;
+  if (extra !== undefined) throw new UsageError(`unexpected argument ${extra}`);
   if (input === undefined) throw new UsageError('missing the design file (or - for stdin)');
   if (at !== undefined && points !== undefined) throw new UsageError('use either --at or --points, not both');
   return { input, at, points };
 }
 
-function readInput(input: string): string {
-  return readFileSync(input === '-' ? 0 : input, 'utf8');
+function wavelength(text: string): number {
+  const n = Number(text.trim());
+  if (text.trim() === '' || !Number.isFinite(n)) throw new UsageError(`--at: "${text}" is not a wavelength in nm`);
+  return n;
 }
 
-function fail(message: string): never {
-  process.stderr.write(`${message}\n`);
-  process.exit(2);
-}
+export type SolveOutcome = { ok: true; evaluation: ReturnType<typeof evaluateDesign> } | { ok: false; message: string };
 
-function main(): void {
-  let args: Args;
-  try {
-    args = parseArgs(process.argv.slice(2));
-  } catch (error) {
-    if (error instanceof UsageError) fail(error.message ? `${error.message}\n${USAGE}` : USAGE);
-    throw error;
-  }
-
-  let text: string;
-  try {
-    text = readInput(args.input);
-  } catch (error) {
-    fail(`cannot read ${args.input === '-' ? 'stdin' : args.input}: ${(error as Error).message}`);
-  }
-
+/**
+ * Parses the design JSON read from `args.input`, checks it and the flag values with the HTTP
+ * API's schemas, and evaluates it. A refusal is the text the CLI prints before exiting 2: one
+ * `path: reason` line per bad field, flags named as flags (`--at value 2 (-5): …`).
+ */
+export function solveInput(text: string, args: SolveArgs): SolveOutcome {
+  const source = args.input === '-' ? 'stdin' : args.input;
   let json: unknown;
   try {
     json = JSON.parse(text);
   } catch (error) {
-    fail(`${args.input === '-' ? 'stdin' : args.input} is not valid JSON: ${(error as Error).message}`);
+    return { ok: false, message: `${source} is not valid JSON: ${(error as Error).message}` };
   }
 
   const design = designSchema.safeParse(json);
-  if (!design.success) fail(formatFieldErrors(fieldErrors(design.error)));
+  if (!design.success) return { ok: false, message: formatFieldErrors(fieldErrors(design.error)) };
 
   // Flag values go through the same rules as an HTTP solve request.
   const request = solveRequestSchema.safeParse({ design: design.data, at: args.at, points: args.points });
@@ -112,14 +104,42 @@ function main(): void {
       const flag = item ? `--at value ${Number(item[1]) + 1} (${args.at?.[Number(item[1])]})` : `--${path}`;
       return `${flag}: ${why}`;
     });
-    fail(`${flags.join('\n')}\n${USAGE}`);
+    return { ok: false, message: `${flags.join('\n')}\n${USAGE}` };
   }
 
   const evaluation = evaluateDesign(request.data.design, {
     wavelengthsNm: request.data.at,
     points: request.data.points,
   });
-  process.stdout.write(`${JSON.stringify(evaluation, null, 2)}\n`);
+  return { ok: true, evaluation };
 }
 
-main();
+function fail(message: string): never {
+  process.stderr.write(`${message}\n`);
+  process.exit(2);
+}
+
+function main(): void {
+  let args: SolveArgs;
+  try {
+    args = parseSolveArgs(process.argv.slice(2));
+  } catch (error) {
+    if (error instanceof UsageError) fail(error.message ? `${error.message}\n${USAGE}` : USAGE);
+    throw error;
+  }
+
+  let text: string;
+  try {
+    text = readFileSync(args.input === '-' ? 0 : args.input, 'utf8');
+  } catch (error) {
+    fail(`cannot read ${args.input === '-' ? 'stdin' : args.input}: ${(error as Error).message}`);
+  }
+
+  const outcome = solveInput(text, args);
+  if (!outcome.ok) fail(outcome.message);
+  process.stdout.write(`${JSON.stringify(outcome.evaluation, null, 2)}\n`);
+}
+
+// Run only as the script, so tests can import the functions above. Real paths on both sides, in
+// case the script was reached through a symlink.
+if (process.argv[1] !== undefined && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url))) main();

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { exampleDesign } from '@/shared/design';
+import { parseSolveArgs, solveInput, USAGE, UsageError, type SolveArgs } from '../../scripts/solve';
 
 const TSX = join(process.cwd(), 'node_modules/.bin/tsx');
 const SCRIPT = join(process.cwd(), 'scripts/solve.ts');
@@ -25,93 +26,156 @@ function designFile(name: string, content: unknown): string {
   return path;
 }
 
-describe('solve CLI', { timeout: 30_000 }, () => {
-  it('prints the evaluation JSON for a valid design at the requested wavelengths', () => {
-    const r = solve([designFile('ok.json', exampleDesign), '--at', '400,500,600']);
-    expect(r.code).toBe(0);
-    const out = JSON.parse(r.stdout);
-    expect(out.points.map((p: { wavelengthNm: number }) => p.wavelengthNm)).toEqual([400, 500, 600]);
-    expect(out.points.every((p: { reachable: boolean }) => p.reachable)).toBe(true);
-    expect(out.design.kind).toBe('czerny-turner');
-    expect(Array.isArray(out.warnings)).toBe(true);
-  });
+/** The message a command line is refused with, or null when it is accepted. */
+function usageError(argv: string[]): string | null {
+  try {
+    parseSolveArgs(argv);
+    return null;
+  } catch (error) {
+    if (error instanceof UsageError) return error.message;
+    throw error;
+  }
+}
 
-  it('reads the design from stdin with - and honours --points', () => {
-    const r = solve(['-', '--points', '7'], JSON.stringify(exampleDesign));
-    expect(r.code).toBe(0);
-    const out = JSON.parse(r.stdout);
-    expect(out.points).toHaveLength(7);
-    expect(out.points[0].wavelengthNm).toBe(300);
-    expect(out.points[6].wavelengthNm).toBe(900);
-  });
+/** Evaluates the example design (as the CLI reads it from a file) with the given flags. */
+function solveExample(flags: Omit<SolveArgs, 'input'>, design: unknown = exampleDesign) {
+  return solveInput(JSON.stringify(design), { input: 'design.json', ...flags });
+}
 
-  it('reports unreachable wavelengths in the JSON with a reason and nulls, exit 0', () => {
-    // 2000 nm needs sin φ > 1 with 1200 g/mm in first order (2d cos K = 1610 nm).
-    const r = solve([designFile('ok2.json', exampleDesign), '--at', '2000']);
-    expect(r.code).toBe(0);
-    expect(r.stdout).not.toMatch(/NaN|Infinity/);
-    const out = JSON.parse(r.stdout);
-    expect(out.points[0]).toMatchObject({ reachable: false, incidenceDeg: null, bandpassNm: null });
-    expect(out.points[0].reason).toMatch(/beyond the grating equation/);
-    expect(out.warnings.map((w: { code: string }) => w.code)).toContain('unreachable');
-  });
+describe('solve CLI', () => {
+  describe('reading the command line', () => {
+    it.each([
+      { argv: ['d.json'], args: { input: 'd.json', at: undefined, points: undefined } },
+      { argv: ['d.json', '--at', '400, 500,600'], args: { input: 'd.json', at: [400, 500, 600], points: undefined } },
+      { argv: ['d.json', '--at=400,500'], args: { input: 'd.json', at: [400, 500], points: undefined } },
+      { argv: ['-', '--points', '7'], args: { input: '-', at: undefined, points: 7 } },
+      // A negative wavelength is read, then refused by the schema with its reason (below).
+      { argv: ['d.json', '--at', '-5'], args: { input: 'd.json', at: [-5], points: undefined } },
+    ] satisfies readonly { argv: string[]; args: SolveArgs }[])('reads $argv', ({ argv, args }) => {
+      expect(parseSolveArgs(argv)).toEqual(args);
+    });
 
-  it('names each bad field on stderr and exits 2 for a schema failure', () => {
-    const bad = structuredClone(exampleDesign) as Record<string, any>;
-    bad.grating.grooveDensityPerMm = 0;
-    bad.grating.order = 1.5;
-    const r = solve([designFile('bad.json', bad)]);
-    expect(r.code).toBe(2);
-    expect(r.stdout).toBe('');
-    expect(r.stderr).toContain('grating.grooveDensityPerMm: must be greater than 0');
-    expect(r.stderr).toContain('grating.order: must be a whole number other than 0');
-  });
-
-  it('exits 2 for invalid JSON', () => {
-    const r = solve(['-'], '{ "grating": ');
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/not valid JSON/);
-  });
-
-  it.each([
-    { name: 'an unknown flag', args: ['--wat'] },
-    { name: 'a non-numeric --at', args: ['--at', '400,abc'] },
-    { name: 'a negative --at', args: ['--at', '-5'] },
-    { name: '--points below 2', args: ['--points', '1'] },
-    { name: 'a missing value', args: ['--points'] },
-  ] satisfies readonly { name: string; args: string[] }[])('exits 2 with the usage for $name', ({ args }) => {
-    const r = solve([designFile('flags.json', exampleDesign), ...args]);
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/usage: npm run --silent solve/);
-  });
-
-  it('keeps the API limits: more than 1000 wavelengths or points exits 2 naming the flag', () => {
-    const file = designFile('limits.json', exampleDesign);
-    const at = Array.from({ length: 1001 }, (_, i) => 300 + i * 0.5).join(',');
-    const tooMany = solve([file, '--at', at]);
-    expect(tooMany.code).toBe(2);
-    expect(tooMany.stderr).toContain('--at: must list at most 1000 wavelengths');
-    const tooFine = solve([file, '--points', '1001']);
-    expect(tooFine.code).toBe(2);
-    expect(tooFine.stderr).toContain('--points: must be a whole number from 2 to 1000');
-    const atCap = solve([file, '--points', '1000']);
-    expect(atCap.code).toBe(0);
-    expect(JSON.parse(atCap.stdout).points).toHaveLength(1000);
+    it.each([
+      { name: 'an unknown flag', argv: ['d.json', '--wat'], message: 'unknown option --wat' },
+      { name: 'an unknown short flag', argv: ['d.json', '-x'], message: 'unknown option -x' },
+      { name: 'a non-numeric --at', argv: ['d.json', '--at', '400,abc'], message: '--at: "abc" is not a wavelength in nm' },
+      { name: 'an empty item in --at', argv: ['d.json', '--at', '400,,500'], message: '--at: "" is not a wavelength in nm' },
+      { name: 'a non-numeric --points', argv: ['d.json', '--points', 'many'], message: '--points: "many" is not a number' },
+      { name: 'a missing value', argv: ['d.json', '--points'], message: '--points needs a value' },
+      { name: 'an empty inline value', argv: ['d.json', '--at='], message: '--at needs a value' },
+      { name: 'both --at and --points', argv: ['d.json', '--at', '500', '--points', '3'], message: 'use either --at or --points, not both' },
+      { name: 'a second design', argv: ['a.json', 'b.json'], message: 'unexpected argument b.json' },
+      { name: 'no design', argv: [], message: 'missing the design file (or - for stdin)' },
+      { name: '--points with no design', argv: ['--points', '3'], message: 'missing the design file (or - for stdin)' },
+      { name: '--help', argv: ['--help'], message: '' },
+      { name: '-h', argv: ['d.json', '-h'], message: '' },
+    ] satisfies readonly { name: string; argv: string[]; message: string }[])(
+      'refuses $name, naming the flag',
+      ({ argv, message }) => {
+        expect(usageError(argv)).toBe(message);
+      },
+    );
   });
 
   it('states the limits in its help', () => {
-    const r = solve(['--help']);
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/--at +wavelengths in nm, at most 1000/);
-    expect(r.stderr).toMatch(/2 to 1000/);
-    expect(r.stderr).toMatch(/at most 20 overlapping orders/);
-    expect(r.stderr).toMatch(/overlapsTruncated/);
-    expect(r.stderr).toMatch(/120 calls per 60 s/);
+    expect(USAGE).toMatch(/^usage: npm run --silent solve/);
+    expect(USAGE).toMatch(/--at +wavelengths in nm, at most 1000/);
+    expect(USAGE).toMatch(/2 to 1000/);
+    expect(USAGE).toMatch(/at most 20 overlapping orders/);
+    expect(USAGE).toMatch(/overlapsTruncated/);
+    expect(USAGE).toMatch(/120 calls per 60 s/);
   });
 
-  it('exits 2 with the usage when no design is given', () => {
-    const r = solve([]);
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/missing the design file/);
+  describe('checking and evaluating a design', () => {
+    it('evaluates a valid design at the requested wavelengths', () => {
+      const r = solveExample({ at: [400, 500, 600] });
+      if (!r.ok) throw new Error(r.message);
+      expect(r.evaluation.points.map((p) => p.wavelengthNm)).toEqual([400, 500, 600]);
+      expect(r.evaluation.points.every((p) => p.reachable)).toBe(true);
+      expect(r.evaluation.design.kind).toBe('czerny-turner');
+    });
+
+    it('honours --points over the design range', () => {
+      const r = solveExample({ points: 7 });
+      if (!r.ok) throw new Error(r.message);
+      expect(r.evaluation.points).toHaveLength(7);
+      expect(r.evaluation.points[0]!.wavelengthNm).toBe(300);
+      expect(r.evaluation.points[6]!.wavelengthNm).toBe(900);
+    });
+
+    it('reports unreachable wavelengths with a reason and nulls, never NaN', () => {
+      // 2000 nm needs sin φ > 1 with 1200 g/mm in first order (2d cos K = 1610 nm).
+      const r = solveExample({ at: [2000] });
+      if (!r.ok) throw new Error(r.message);
+      const json = JSON.stringify(r.evaluation);
+      expect(json).not.toMatch(/NaN|Infinity/);
+      const out = JSON.parse(json);
+      expect(out.points[0]).toMatchObject({ reachable: false, incidenceDeg: null, bandpassNm: null });
+      expect(out.points[0].reason).toMatch(/beyond the grating equation/);
+      expect(out.warnings.map((w: { code: string }) => w.code)).toContain('unreachable');
+    });
+
+    it('names each bad field of a design the schema refuses', () => {
+      const bad = structuredClone(exampleDesign) as Record<string, any>;
+      bad.grating.grooveDensityPerMm = 0;
+      bad.grating.order = 1.5;
+      const r = solveExample({}, bad);
+      expect(r.ok).toBe(false);
+      if (r.ok) return;
+      expect(r.message).toContain('grating.grooveDensityPerMm: must be greater than 0');
+      expect(r.message).toContain('grating.order: must be a whole number other than 0');
+    });
+
+    it('refuses text that is not JSON, naming where it came from', () => {
+      expect(solveInput('{ "grating": ', { input: '-' })).toMatchObject({ ok: false, message: expect.stringMatching(/^stdin is not valid JSON/) });
+    });
+
+    it.each([
+      { name: 'a negative --at', flags: { at: [-5] }, line: '--at value 1 (-5): must be greater than 0' },
+      { name: '--points below 2', flags: { points: 1 }, line: '--points: must be a whole number from 2 to 1000' },
+      { name: 'more than 1000 points', flags: { points: 1001 }, line: '--points: must be a whole number from 2 to 1000' },
+      {
+        name: 'more than 1000 wavelengths',
+        flags: { at: Array.from({ length: 1001 }, (_, i) => 300 + i * 0.5) },
+        line: '--at: must list at most 1000 wavelengths',
+      },
+    ] satisfies readonly { name: string; flags: Omit<SolveArgs, 'input'>; line: string }[])(
+      'keeps the API limits: $name is refused naming the flag, with the usage',
+      ({ flags, line }) => {
+        const r = solveExample(flags);
+        expect(r).toEqual({ ok: false, message: `${line}\n${USAGE}` });
+      },
+    );
+
+    it('takes 1000 points, the API limit', () => {
+      const r = solveExample({ points: 1000 });
+      if (!r.ok) throw new Error(r.message);
+      expect(r.evaluation.points).toHaveLength(1000);
+    });
+  });
+
+  describe('as a process', { timeout: 30_000 }, () => {
+    it('prints the evaluation JSON on stdout and exits 0 for a valid design read from stdin', () => {
+      const r = solve(['-', '--at', '400,500,600'], JSON.stringify(exampleDesign));
+      expect(r.code).toBe(0);
+      const out = JSON.parse(r.stdout);
+      expect(out.points.map((p: { wavelengthNm: number }) => p.wavelengthNm)).toEqual([400, 500, 600]);
+      expect(Array.isArray(out.warnings)).toBe(true);
+    });
+
+    it('prints one path: reason line per bad field on stderr and exits 2 for a bad design file', () => {
+      const bad = structuredClone(exampleDesign) as Record<string, any>;
+      bad.grating.grooveDensityPerMm = 0;
+      bad.grating.order = 1.5;
+      const r = solve([designFile('bad.json', bad)]);
+      expect(r.code).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr.trim().split('\n')).toEqual(
+        expect.arrayContaining([
+          'grating.grooveDensityPerMm: must be greater than 0',
+          'grating.order: must be a whole number other than 0',
+        ]),
+      );
+    });
   });
 });
