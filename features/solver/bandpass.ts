@@ -50,13 +50,3 @@ export function slitFunction(
     ? { shape: 'triangle', baseNm, topNm: 0 }
     : { shape: 'trapezoid', baseNm, topNm: reciprocalDispersionNmPerMm * mismatchMm };
 }
-
-/** Relative height (0…1) of a slit function at `offsetNm` from its centre. */
-export function slitFunctionValue(profile: SlitFunction, offsetNm: number): number {
-  const x = Math.abs(offsetNm);
-  const halfTop = profile.topNm / 2;
-  const halfBase = profile.baseNm / 2;
-  if (x <= halfTop) return 1;
-  if (x >= halfBase) return 0;
-  return (halfBase - x) / (halfBase - halfTop);
-}

@@ -30,19 +30,7 @@ export function blazeEfficiency(
   blazeWavelengthNm: number,
   halfDeviationRad: number,
 ): number {
-  return blazeEfficiencyFromMountBlaze(
-    wavelengthNm,
-    order,
-    blazeWavelengthNm * Math.cos(halfDeviationRad),
-  );
-}
-
-/** The same envelope with `λ_B cos K` precomputed (the solver's hot path). */
-export function blazeEfficiencyFromMountBlaze(
-  wavelengthNm: number,
-  order: number,
-  firstOrderBlazeInMountNm: number,
-): number {
-  const s = sinc(Math.PI * (Math.abs(order) - firstOrderBlazeInMountNm / wavelengthNm));
+  const blazeInMountNm = blazeWavelengthNm * Math.cos(halfDeviationRad);
+  const s = sinc(Math.PI * (Math.abs(order) - blazeInMountNm / wavelengthNm));
   return s * s;
 }

@@ -27,24 +27,6 @@ export function wavelengthAtDetectorNm(geometry: DetectorGeometry, xMm: number):
   return wavelengthNm > 0 ? wavelengthNm : null;
 }
 
-/**
- * Wavelength at every pixel edge, `pixelCount + 1` values from the short-wavelength edge
- * (null where the edge would need a grazing or negative-wavelength ray).
- */
-export function pixelEdgesNm(
-  geometry: DetectorGeometry,
-  pixelPitchUm: number,
-  pixelCount: number,
-): (number | null)[] {
-  const pitchMm = pixelPitchUm / UM_PER_MM;
-  const halfWidthMm = (pitchMm * pixelCount) / 2;
-  const edges: (number | null)[] = new Array(pixelCount + 1);
-  for (let i = 0; i <= pixelCount; i++) {
-    edges[i] = wavelengthAtDetectorNm(geometry, i * pitchMm - halfWidthMm);
-  }
-  return edges;
-}
-
 /** Detector coverage as the design summary reports it. */
 export interface DetectorCoverage {
   widthMm: number;

@@ -1,39 +1,39 @@
 /**
- * Whole-design evaluation. Everything that depends only on the design is computed once in
- * `prepareDesign`; `evaluatePoint` is the hot path (one `asin`, three `cos`, one `sin`, no mathjs,
- * one result object plus its slit function per wavelength, overlap lists only where they exist and
- * never longer than `MAX_LISTED_OVERLAPS`).
+ * Whole-design evaluation. What depends only on the design is read once in `prepareDesign`;
+ * `evaluatePoint` runs per wavelength and calls the one-concept functions (no mathjs, overlap
+ * lists only where they exist and never longer than `MAX_LISTED_OVERLAPS`).
  */
 
 import type { Design } from '../../shared/design';
 import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from '../../shared/solve-limits';
 import { comaFreeCameraAngleRad, astigmaticFocalDifferenceMm } from './aberrations';
-import { blazeWavelengthInMountNm } from './blaze';
+import { bandpassNm, entranceImageWidthMm, slitFunction } from './bandpass';
+import { blazeEfficiency, blazeWavelengthInMountNm } from './blaze';
 import { detectorCoverage, type DetectorCoverage } from './detector';
 import {
-  grooveSpacingNm,
-  reachableMaxNm,
-  solveGrating,
-  unreachableReason,
-} from './grating';
+  angularDispersionDegPerNm,
+  linearDispersionMmPerNm,
+  reciprocalDispersionNmPerMm,
+} from './dispersion';
+import { grooveSpacingNm, reachableMaxNm, solveGrating } from './grating';
+import { UM_PER_MM, degToRad, radToDeg } from './math';
 import {
-  DEG_PER_RAD,
-  GRAZING_MARGIN_RAD,
-  HALF_PI,
-  RAD_PER_ARCSEC,
-  UM_PER_MM,
-  degToRad,
-  radToDeg,
-} from './math';
-import {
+  anamorphicMagnification,
   fNumberHeight,
   fNumberProjectedWidth,
   halfDeviationRad,
   hasTwoMirrorPaths,
 } from './mount';
-import { NO_OVERLAPS, overlappingOrders } from './orders';
-import { grooveCount, theoreticalResolvingPower } from './resolving-power';
+import { NO_OVERLAPS, overlapCount, overlappingOrders } from './orders';
+import {
+  diffractionLimitNm,
+  freeSpectralRangeNm,
+  grooveCount,
+  resolvingPower,
+  theoreticalResolvingPower,
+} from './resolving-power';
 import type { AberrationSummary, DesignSummary, Evaluation, WavelengthPoint } from './results';
+import { scanSensitivityNmPerArcsec } from './scan';
 import { collectWarnings } from './warnings';
 
 /** Wavelengths sampled over `range` when the caller gives neither a list nor a count. */
@@ -49,57 +49,42 @@ export interface EvaluateOptions {
   points?: number;
 }
 
-/** Per-design constants of the hot path. */
+/** What `evaluatePoint` needs that depends on the design only, computed once per evaluation. */
 export interface PreparedDesign {
   readonly order: number;
-  readonly absOrder: number;
   readonly spacingNm: number;
   readonly halfDeviationRad: number;
-  /** `2d cos K`, nm. */
-  readonly twoDCosKNm: number;
   readonly collimatorFocalMm: number;
   readonly cameraFocalMm: number;
-  /** `f_cam / f_col`. */
-  readonly focalRatio: number;
   readonly entranceWidthMm: number;
   readonly exitWidthMm: number;
+  /** N, grooves across the ruled width. */
+  readonly grooves: number;
   readonly theoreticalResolvingPower: number;
-  /** `λ_B cos K` (first order), or NaN without a blaze wavelength. */
-  readonly firstOrderBlazeInMountNm: number;
+  /** First-order Littrow blaze wavelength, or null without one. */
+  readonly blazeWavelengthNm: number | null;
   readonly overlapMinNm: number;
   readonly overlapMaxNm: number;
-  /** `2d cos K / |m|` in nm per arc-second of rotation at φ = 0. */
-  readonly scanNmPerArcsecAtZero: number;
 }
 
 export function prepareDesign(design: Design): PreparedDesign {
   const { grating, layout, slits, range, source } = design;
-  const spacingNm = grooveSpacingNm(grating.grooveDensityPerMm);
-  const halfDev = halfDeviationRad(layout);
-  const twoDCosKNm = 2 * spacingNm * Math.cos(halfDev);
-  const absOrder = Math.abs(grating.order);
+  const grooves = grooveCount(grating.grooveDensityPerMm, grating.ruledWidthMm);
   return {
     order: grating.order,
-    absOrder,
-    spacingNm,
-    halfDeviationRad: halfDev,
-    twoDCosKNm,
+    spacingNm: grooveSpacingNm(grating.grooveDensityPerMm),
+    halfDeviationRad: halfDeviationRad(layout),
     collimatorFocalMm: layout.collimatorFocalMm,
     cameraFocalMm: layout.cameraFocalMm,
-    focalRatio: layout.cameraFocalMm / layout.collimatorFocalMm,
     entranceWidthMm: slits.entranceWidthUm / UM_PER_MM,
     exitWidthMm: slits.exitWidthUm / UM_PER_MM,
-    theoreticalResolvingPower: theoreticalResolvingPower(
-      grating.order,
-      grooveCount(grating.grooveDensityPerMm, grating.ruledWidthMm),
-    ),
-    firstOrderBlazeInMountNm:
-      grating.blazeWavelengthNm === undefined ? NaN : grating.blazeWavelengthNm * Math.cos(halfDev),
+    grooves,
+    theoreticalResolvingPower: theoreticalResolvingPower(grating.order, grooves),
+    blazeWavelengthNm: grating.blazeWavelengthNm ?? null,
     // Without a declared source, assume at least the design range is lit: that is the light
     // the instrument is meant to measure, and its other orders land on it.
     overlapMinNm: source?.minNm ?? range.startNm,
     overlapMaxNm: source?.maxNm ?? range.endNm,
-    scanNmPerArcsecAtZero: (twoDCosKNm / absOrder) * RAD_PER_ARCSEC,
   };
 }
 
@@ -118,10 +103,10 @@ function unreachablePoint(plan: PreparedDesign, wavelengthNm: number, reason: st
     anamorphicMagnification: null,
     bandpassNm: null,
     slitFunction: null,
-    diffractionLimitNm: finite ? wavelengthNm / plan.theoreticalResolvingPower : 0,
+    diffractionLimitNm: finite ? diffractionLimitNm(wavelengthNm, plan.order, plan.grooves) : 0,
     resolvingPower: null,
     theoreticalResolvingPower: plan.theoreticalResolvingPower,
-    freeSpectralRangeNm: finite ? wavelengthNm / plan.absOrder : 0,
+    freeSpectralRangeNm: finite ? freeSpectralRangeNm(wavelengthNm, plan.order) : 0,
     blazeEfficiency: null,
     overlaps: NO_OVERLAPS,
     overlapCount: 0,
@@ -130,93 +115,56 @@ function unreachablePoint(plan: PreparedDesign, wavelengthNm: number, reason: st
   };
 }
 
-// Module-local copies for the hot path (see evaluatePoint for why).
-const LIMIT_RAD = HALF_PI - GRAZING_MARGIN_RAD;
-const RAD_TO_DEG = DEG_PER_RAD;
-const EMPTY_OVERLAPS = NO_OVERLAPS;
-/** Relative width mismatch below which the slit function counts as a triangle (as in bandpass.ts). */
-const MATCHED_WIDTHS = 1e-9;
-
 /**
  * Everything the solver reports at one wavelength. Never throws; every number is finite for a
- * finite λ > 0.
- *
- * This is the hot path, so the closed forms are written out here rather than called: under
- * CommonJS transpilation (tsx, the CLI and the server) every imported binding is a getter, and
- * calling through them made a 1,000-point evaluation about twice as slow. Each line names the
- * function it mirrors; tests/features/solver/evaluate.test.ts checks they agree.
+ * finite λ > 0. Each figure comes from its one-concept function; only the per-design constants
+ * are taken from `plan`.
  */
 export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): WavelengthPoint {
-  const sinPhi = (plan.order * wavelengthNm) / plan.twoDCosKNm; // grating.rotationSine
-  const phi = Math.asin(sinPhi); // NaN when |sin φ| > 1: caught by the test below
-  const K = plan.halfDeviationRad;
-  // grating.anglesClearOfGrazing; `!(x < y)` is also true for NaN.
-  if (!(wavelengthNm > 0) || !(wavelengthNm < Infinity) || !(Math.abs(phi) + K < LIMIT_RAD)) {
-    const reason =
-      unreachableReason(plan.order, wavelengthNm, plan.spacingNm, K, sinPhi) ?? 'unreachable';
-    return unreachablePoint(plan, wavelengthNm, reason);
-  }
-  const { absOrder, spacingNm, cameraFocalMm, exitWidthMm } = plan;
-  const alpha = phi + K; // mount.incidenceRad
-  const beta = phi - K; // mount.diffractionRad
-  const cosAlpha = Math.cos(alpha);
-  const cosBeta = Math.cos(beta);
+  const { order, spacingNm, halfDeviationRad: K, cameraFocalMm, exitWidthMm } = plan;
+  const solution = solveGrating(order, wavelengthNm, spacingNm, K);
+  if (!solution.reachable) return unreachablePoint(plan, wavelengthNm, solution.reason);
+  const { rotationRad, incidenceRad, diffractionRad } = solution;
+  const cosAlpha = Math.cos(incidenceRad);
+  const cosBeta = Math.cos(diffractionRad);
 
-  const angularRadPerNm = absOrder / (spacingNm * cosBeta); // dispersion.angularDispersionRadPerNm
-  const rld = (spacingNm * cosBeta) / (absOrder * cameraFocalMm); // dispersion.reciprocalDispersionNmPerMm
-  const magnification = (cosAlpha / cosBeta) * plan.focalRatio; // mount.anamorphicMagnification
-  const imageMm = plan.entranceWidthMm * magnification; // bandpass.entranceImageWidthMm
-  const wider = imageMm > exitWidthMm ? imageMm : exitWidthMm;
-  const bandpass = rld * wider; // bandpass.bandpassNm
-  const mismatchMm = imageMm > exitWidthMm ? imageMm - exitWidthMm : exitWidthMm - imageMm;
-  const matched = mismatchMm <= MATCHED_WIDTHS * (imageMm + exitWidthMm); // bandpass.slitFunction
-  const limitNm = wavelengthNm / plan.theoreticalResolvingPower; // resolving-power.diffractionLimitNm
-
-  let blaze: number | null = null; // blaze.blazeEfficiencyFromMountBlaze
-  const blazeInMount = plan.firstOrderBlazeInMountNm;
-  if (blazeInMount === blazeInMount) {
-    const x = Math.PI * (absOrder - blazeInMount / wavelengthNm);
-    const s = x > -1e-8 && x < 1e-8 ? 1 : Math.sin(x) / x; // math.sinc
-    blaze = s * s;
-  }
-
-  // orders.overlapCount; the list (orders.overlappingOrders, at most MAX_LISTED_OVERLAPS) is
-  // built only when some other order lands in the source range.
-  const product = absOrder * wavelengthNm;
-  const nLo = Math.max(1, Math.ceil(product / plan.overlapMaxNm));
-  const nHi = Math.floor(product / plan.overlapMinNm);
-  const overlapTotal = nHi < nLo ? 0 : nHi - nLo + 1 - (nLo <= absOrder && absOrder <= nHi ? 1 : 0);
+  const rld = reciprocalDispersionNmPerMm(order, spacingNm, cosBeta, cameraFocalMm);
+  const magnification = anamorphicMagnification(cosAlpha, cosBeta, plan.collimatorFocalMm, cameraFocalMm);
+  const imageMm = entranceImageWidthMm(plan.entranceWidthMm, magnification);
+  const bandpass = bandpassNm(rld, imageMm, exitWidthMm);
+  const limitNm = diffractionLimitNm(wavelengthNm, order, plan.grooves);
+  const overlapTotal = overlapCount(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
+  // Most wavelengths have no overlapping order: skip building an empty list for them.
   const overlaps =
     overlapTotal === 0
-      ? EMPTY_OVERLAPS
-      : overlappingOrders(plan.order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
+      ? NO_OVERLAPS
+      : overlappingOrders(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
 
   return {
     wavelengthNm,
     reachable: true,
     reason: null,
-    incidenceDeg: alpha * RAD_TO_DEG,
-    diffractionDeg: beta * RAD_TO_DEG,
-    gratingRotationDeg: phi * RAD_TO_DEG,
-    angularDispersionDegPerNm: angularRadPerNm * RAD_TO_DEG,
-    linearDispersionMmPerNm: angularRadPerNm * cameraFocalMm, // dispersion.linearDispersionMmPerNm
+    incidenceDeg: radToDeg(incidenceRad),
+    diffractionDeg: radToDeg(diffractionRad),
+    gratingRotationDeg: radToDeg(rotationRad),
+    angularDispersionDegPerNm: angularDispersionDegPerNm(order, spacingNm, cosBeta),
+    linearDispersionMmPerNm: linearDispersionMmPerNm(order, spacingNm, cosBeta, cameraFocalMm),
     reciprocalDispersionNmPerMm: rld,
     anamorphicMagnification: magnification,
     bandpassNm: bandpass,
-    slitFunction: {
-      shape: matched ? 'triangle' : 'trapezoid',
-      baseNm: rld * (imageMm + exitWidthMm),
-      topNm: matched ? 0 : rld * mismatchMm,
-    },
+    slitFunction: slitFunction(rld, imageMm, exitWidthMm),
     diffractionLimitNm: limitNm,
-    resolvingPower: wavelengthNm / (bandpass > limitNm ? bandpass : limitNm), // resolving-power.resolvingPower
+    resolvingPower: resolvingPower(wavelengthNm, bandpass, limitNm),
     theoreticalResolvingPower: plan.theoreticalResolvingPower,
-    freeSpectralRangeNm: wavelengthNm / absOrder, // resolving-power.freeSpectralRangeNm
-    blazeEfficiency: blaze,
+    freeSpectralRangeNm: freeSpectralRangeNm(wavelengthNm, order),
+    blazeEfficiency:
+      plan.blazeWavelengthNm === null
+        ? null
+        : blazeEfficiency(wavelengthNm, order, plan.blazeWavelengthNm, K),
     overlaps,
     overlapCount: overlapTotal,
     overlapsTruncated: overlapTotal > overlaps.length,
-    scanSensitivityNmPerArcsec: plan.scanNmPerArcsecAtZero * Math.cos(phi), // scan.scanSensitivityNmPerArcsec
+    scanSensitivityNmPerArcsec: scanSensitivityNmPerArcsec(order, spacingNm, K, rotationRad),
   };
 }
 
@@ -302,7 +250,7 @@ export function summarizeDesign(design: Design, plan: PreparedDesign = prepareDe
   return {
     kind: layout.kind,
     grooveSpacingNm: plan.spacingNm,
-    illuminatedGrooves: grooveCount(grating.grooveDensityPerMm, grating.ruledWidthMm),
+    illuminatedGrooves: plan.grooves,
     halfDeviationDeg: radToDeg(plan.halfDeviationRad),
     centreWavelengthNm: centreNm,
     reachableMinNm: 0,

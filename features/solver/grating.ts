@@ -14,6 +14,7 @@
  */
 
 import { GRAZING_MARGIN_RAD, HALF_PI, NM_PER_MM, formatNumber, radToDeg } from './math';
+import { diffractionRad, incidenceRad } from './mount';
 
 /** Groove spacing `d = 1 / grooveDensity`, in nm. */
 export function grooveSpacingNm(grooveDensityPerMm: number): number {
@@ -80,8 +81,8 @@ export function solveGrating(
   return {
     reachable: true,
     rotationRad,
-    incidenceRad: rotationRad + halfDeviationRad,
-    diffractionRad: rotationRad - halfDeviationRad,
+    incidenceRad: incidenceRad(rotationRad, halfDeviationRad),
+    diffractionRad: diffractionRad(rotationRad, halfDeviationRad),
   };
 }
 
@@ -117,15 +118,4 @@ export function unreachableReason(
     );
   }
   return null;
-}
-
-/** `mλ − d(sin α + sin β)` in nm: zero for a correct solution. */
-export function gratingEquationResidualNm(
-  order: number,
-  wavelengthNm: number,
-  spacingNm: number,
-  incidenceRad: number,
-  diffractionRad: number,
-): number {
-  return order * wavelengthNm - spacingNm * (Math.sin(incidenceRad) + Math.sin(diffractionRad));
 }

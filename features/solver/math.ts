@@ -23,19 +23,10 @@ export function radToDeg(rad: number): number {
   return rad * DEG_PER_RAD;
 }
 
-export function clamp(value: number, lo: number, hi: number): number {
-  return value < lo ? lo : value > hi ? hi : value;
-}
-
 /** Unnormalised sinc, `sin x / x`, with its limit 1 at 0. */
 export function sinc(x: number): number {
   // Below 1e-8 the first Taylor term x²/6 is under double precision; returning 1 avoids 0/0.
   return Math.abs(x) < 1e-8 ? 1 : Math.sin(x) / x;
-}
-
-/** `value` when it is a finite number, else `null`: the solver's output never carries NaN. */
-export function finiteOrNull(value: number): number | null {
-  return Number.isFinite(value) ? value : null;
 }
 
 /** Compact number for messages: 4 significant figures, no exponent for everyday magnitudes. */

@@ -8,7 +8,6 @@ import type { LayoutKind } from '../../shared/design';
 import type { SlitFunction } from './bandpass';
 import type { DetectorCoverage } from './detector';
 import type { Overlap } from './orders';
-import type { Warning } from './warnings';
 
 export interface WavelengthPoint {
   wavelengthNm: number;
@@ -82,6 +81,21 @@ export interface DesignSummary {
   aberrations: AberrationSummary;
   /** Null without a detector, or when the centre wavelength is unreachable. */
   detector: DetectorCoverage | null;
+}
+
+export type WarningCode =
+  | 'unreachable'
+  | 'near-grazing'
+  | 'below-diffraction-limit'
+  | 'undersampled'
+  | 'order-overlap'
+  | 'low-efficiency';
+
+/** One kind of design problem in plain words with its fix (built by `collectWarnings`). */
+export interface Warning {
+  code: WarningCode;
+  message: string;
+  wavelengthNm?: number;
 }
 
 export interface Evaluation {

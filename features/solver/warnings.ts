@@ -5,21 +5,7 @@
  */
 
 import { formatNumber } from './math';
-import type { DesignSummary, WavelengthPoint } from './results';
-
-export type WarningCode =
-  | 'unreachable'
-  | 'near-grazing'
-  | 'below-diffraction-limit'
-  | 'undersampled'
-  | 'order-overlap'
-  | 'low-efficiency';
-
-export interface Warning {
-  code: WarningCode;
-  message: string;
-  wavelengthNm?: number;
-}
+import type { DesignSummary, Warning, WavelengthPoint } from './results';
 
 /** Beyond this angle from the grating normal, efficiency and imaging degrade fast (common practice). */
 export const NEAR_GRAZING_DEG = 80;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { evaluateDesign, pixelEdgesNm, type DetectorGeometry } from '@/features/solver';
+import { evaluateDesign } from '@/features/solver';
 import { deg, expectClose } from './close-to';
 import { makeDesign, spacing } from './fixtures';
 
@@ -40,22 +40,6 @@ describe('detector coverage with the exact per-pixel angle', () => {
     expectClose(detector.nmPerPixel, (centre.reciprocalDispersionNmPerMm ?? NaN) * 0.025, 1e-12);
     expectClose(detector.pixelsPerBandpass, (centre.bandpassNm ?? NaN) / detector.nmPerPixel, 1e-12);
     expect(detector.coversRange).toBe(false); // 2048 × 25 µm at ~2.76 nm/mm covers ~141 nm of 200
-  });
-
-  it('lists pixel edges that rise monotonically from one detector edge to the other', () => {
-    const geometry: DetectorGeometry = {
-      order: 1,
-      spacingNm: spacing(1200),
-      incidenceRad: alpha,
-      centreDiffractionRad: betaC,
-      cameraFocalMm: 300,
-    };
-    const edges = pixelEdgesNm(geometry, 25, 2048);
-    expect(edges).toHaveLength(2049);
-    expectClose(edges[0], detector.startNm!, 1e-12);
-    expectClose(edges[2048], detector.endNm!, 1e-12);
-    expectClose(edges[1024], 600, 1e-12);
-    for (let i = 1; i < edges.length; i++) expect(edges[i]!).toBeGreaterThan(edges[i - 1]!);
   });
 
   it('runs toward longer wavelengths in negative orders too', () => {
