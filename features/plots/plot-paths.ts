@@ -3,6 +3,7 @@
  * wavelength intervals, value domains and the nearest sample to a pointer. No React.
  */
 
+import { bisectCenter, extent } from 'd3-array';
 import type { ScaleLinear } from 'd3-scale';
 import { line } from 'd3-shape';
 
@@ -64,14 +65,9 @@ export function flaggedIntervals(xs: readonly number[], flagged: (i: number) => 
 
 /** `[min, max]` of the finite values, widened when flat; null when there are none. */
 export function valueExtent(values: Values): [number, number] | null {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const v of values) {
-    if (v === null || !Number.isFinite(v)) continue;
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
-  }
-  if (lo > hi) return null;
+  // d3's extent skips null and NaN but not ±Infinity, which a plot cannot scale to.
+  const [lo, hi] = extent(values, (v) => (v !== null && Number.isFinite(v) ? v : undefined));
+  if (lo === undefined || hi === undefined) return null;
   if (hi - lo < Math.abs(hi) * 1e-9 || hi === lo) {
     const pad = Math.abs(hi) > 0 ? Math.abs(hi) * 0.05 : 1;
     return [lo - pad, hi + pad];
@@ -79,17 +75,9 @@ export function valueExtent(values: Values): [number, number] | null {
   return [lo, hi];
 }
 
-/** Index of the sample nearest `x` in the ascending `xs` (binary search). */
+/** Index of the sample nearest `x` in the ascending `xs` (binary search); -1 when there are none. */
 export function nearestIndex(xs: readonly number[], x: number): number {
-  let lo = 0;
-  let hi = xs.length - 1;
-  if (hi < 0) return -1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if ((xs[mid] as number) < x) lo = mid;
-    else hi = mid;
-  }
-  return Math.abs((xs[lo] as number) - x) <= Math.abs((xs[hi] as number) - x) ? lo : hi;
+  return xs.length === 0 ? -1 : bisectCenter(xs, x);
 }
 
 /** A read-out number with `significant` figures and no exponent for everyday magnitudes. */
