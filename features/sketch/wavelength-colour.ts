@@ -6,6 +6,8 @@
  * Pure: no React, no platform code (the server's PDF sheet uses it too).
  */
 
+import { hsl } from 'd3-color';
+
 /** Below this the sketch draws ultraviolet, nm (common practice: 380–750 nm visible). */
 export const VISIBLE_MIN_NM = 380;
 /** Above this the sketch draws infrared, nm. */
@@ -53,7 +55,7 @@ export function wavelengthStroke(wavelengthNm: number): WavelengthStroke {
   // so they stay readable on paper (a smooth dip centred on 540 nm, wide enough for cyan).
   const dip = Math.exp(-(((wavelengthNm - 540) / 70) ** 2));
   const lightness = 0.44 - 0.15 * dip;
-  return { stroke: hslToHex(hue, 0.62, lightness), dash: null, band };
+  return { stroke: hsl(hue, 0.62, lightness).formatHex(), dash: null, band };
 }
 
 function hueAt(wavelengthNm: number): number {
@@ -70,29 +72,4 @@ function hueAt(wavelengthNm: number): number {
     }
   }
   return HUE_STOPS[HUE_STOPS.length - 1]?.[1] ?? 0;
-}
-
-/** HSL (hue in degrees, saturation and lightness 0–1) to `#rrggbb`. */
-export function hslToHex(hueDeg: number, saturation: number, lightness: number): string {
-  const chroma = (1 - Math.abs(2 * lightness - 1)) * saturation;
-  const h = hueDeg / 60;
-  const x = chroma * (1 - Math.abs((h % 2) - 1));
-  const [r, g, b] =
-    h < 1
-      ? [chroma, x, 0]
-      : h < 2
-        ? [x, chroma, 0]
-        : h < 3
-          ? [0, chroma, x]
-          : h < 4
-            ? [0, x, chroma]
-            : h < 5
-              ? [x, 0, chroma]
-              : [chroma, 0, x];
-  const m = lightness - chroma / 2;
-  const hex = (v: number) =>
-    Math.round((v + m) * 255)
-      .toString(16)
-      .padStart(2, '0');
-  return `#${hex(r)}${hex(g)}${hex(b)}`;
 }

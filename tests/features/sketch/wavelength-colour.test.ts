@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hslToHex, spectralBand, wavelengthStroke } from '../../../features/sketch/wavelength-colour';
+import { spectralBand, wavelengthStroke } from '../../../features/sketch/wavelength-colour';
 
 /** WCAG 2.1 relative luminance and contrast ratio (W3C, Web Content Accessibility Guidelines 2.1, §1.4.3 definitions). */
 function luminance(hex: string): number {
@@ -59,18 +59,4 @@ describe('wavelengthStroke', () => {
     expect(green.g).toBeGreaterThan(green.b);
     expect(red.r).toBeGreaterThan(red.g);
   });
-});
-
-describe('hslToHex', () => {
-  it.each([
-    { h: 0, s: 1, l: 0.5, hex: '#ff0000' },
-    { h: 120, s: 1, l: 0.5, hex: '#00ff00' },
-    { h: 240, s: 1, l: 0.5, hex: '#0000ff' },
-    { h: 0, s: 0, l: 1, hex: '#ffffff' },
-  ] satisfies { h: number; s: number; l: number; hex: string }[])(
-    'converts hsl($h, $s, $l) to $hex (CSS Color 3 definition)',
-    ({ h, s, l, hex }) => {
-      expect(hslToHex(h, s, l)).toBe(hex);
-    },
-  );
 });
