@@ -17,8 +17,15 @@ type Fixture = {
   ctx: TestApp;
   teamId: string;
   users: Record<Exclude<Actor, 'anonymous'>, { id: string; email: string }>;
-  /** A signed-in agent with a fresh session, so sign-out cases do not end the next case's session. */
+  /**
+   * The actor's one signed-in agent, reused across cases: signing in costs an argon2 hash. The
+   * anonymous caller gets a new cookie-less agent every time, so no case can leave it signed in.
+   */
   agent(actor: Actor): Promise<ReturnType<typeof browserAgent>>;
+  /** A new session of its own, for a case that ends or replaces the session it is called with. */
+  freshAgent(actor: Actor): Promise<ReturnType<typeof browserAgent>>;
+  /** Drops the actor's shared agent after a case that ended all of its sessions. */
+  forget(actor: Actor): void;
   /** A new team A-like team owned by `owner` with `reviewer` and `viewer` in it. */
   freshTeam(): Promise<string>;
   /** Adds a new person to the team with a role and returns their id. */
@@ -27,7 +34,12 @@ type Fixture = {
 };
 
 type Case = { params?: Record<string, string>; body?: unknown };
-type Row = { expect: Statuses; prepare?: (fx: Fixture, actor: Actor) => Promise<Case> };
+/**
+ * `session`: 'own' when the call ends or replaces the session it carries (sign-up, sign-in,
+ * sign-out), so it must not use the shared agent; 'ends-all' when it may end every session of the
+ * caller, so the shared agent is signed in again afterwards.
+ */
+type Row = { expect: Statuses; prepare?: (fx: Fixture, actor: Actor) => Promise<Case>; session?: 'own' | 'ends-all' };
 
 const everyone = (status: number): Statuses => ({ owner: status, reviewer: status, viewer: status, outsider: status, anonymous: status });
 const signedIn = (status: number): Statuses => ({ ...everyone(status), anonymous: 401 });
@@ -60,18 +72,22 @@ const matrix: Record<string, Row> = {
   'GET /api/auth/session': { expect: everyone(200) },
   'POST /api/auth/sign-up': {
     expect: everyone(201),
+    session: 'own',
     prepare: async () => ({ body: { email: freshEmail(), displayName: 'Matrix', password } }),
   },
   'POST /api/auth/sign-in': {
     expect: everyone(200),
+    session: 'own',
     prepare: async (fx) => ({ body: { email: fx.users.viewer.email, password } }),
   },
-  'POST /api/auth/sign-out': { expect: everyone(204) },
-  'POST /api/auth/sign-out-everywhere': { expect: signedIn(204) },
+  'POST /api/auth/sign-out': { expect: everyone(204), session: 'own' },
+  'POST /api/auth/sign-out-everywhere': { expect: signedIn(204), session: 'ends-all' },
   'POST /api/auth/password-reset': { expect: everyone(202), prepare: async (fx) => ({ body: { email: fx.users.viewer.email } }) },
-  // The token is the credential: a made-up one is refused for everybody alike.
+  // The token is the credential: a made-up one is refused for everybody alike. A reset that went
+  // through would end every session of the account, so it is treated as one that does.
   'POST /api/auth/password-reset/confirm': {
     expect: everyone(400),
+    session: 'ends-all',
     prepare: async () => ({ body: { token: 'x'.repeat(40), password: 'another password 1' } }),
   },
   'POST /api/auth/verify-email': { expect: everyone(400), prepare: async () => ({ body: { token: 'x'.repeat(40) } }) },
@@ -174,12 +190,14 @@ describe('access matrix: every API route × every kind of caller', () => {
     const made = await owner.agent.post('/api/teams').send({ name: 'Team A' }).expect(201);
     const teamId: string = made.body.team.id;
 
-    // The owner's own sessions end in the sign-out-everywhere case: sign in afresh each time.
-    const asOwner = async () => {
+    const signIn = async (email: string) => {
       const agent = browserAgent(ctx.app);
-      await agent.post('/api/auth/sign-in').send({ email: owner.user.email, password }).expect(200);
+      await agent.post('/api/auth/sign-in').send({ email, password }).expect(200);
       return agent;
     };
+    // The owner's sign-up session serves until a case ends it; fx.agent then signs in again.
+    const shared = new Map<Actor, Promise<ReturnType<typeof browserAgent>>>([['owner', Promise.resolve(owner.agent)]]);
+    const asOwner = () => shared.get('owner') ?? fx.agent('owner');
     const invite = async (team: string, email: string, role: Role = 'viewer') => {
       const res = await (await asOwner()).post(`/api/teams/${team}/invitations`).send({ email, role }).expect(201);
       return { id: res.body.invitation.id as string, token: tokenFrom(linkIn(ctx.mailer, email, '/invitations/')) };
@@ -207,10 +225,15 @@ describe('access matrix: every API route × every kind of caller', () => {
       teamId,
       users,
       invite,
-      async agent(actor) {
-        const agent = browserAgent(ctx.app);
-        if (actor !== 'anonymous') await agent.post('/api/auth/sign-in').send({ email: users[actor].email, password }).expect(200);
+      agent(actor) {
+        if (actor === 'anonymous') return Promise.resolve(browserAgent(ctx.app));
+        let agent = shared.get(actor);
+        if (!agent) shared.set(actor, (agent = fx.freshAgent(actor)));
         return agent;
+      },
+      freshAgent: async (actor) => (actor === 'anonymous' ? browserAgent(ctx.app) : signIn(users[actor].email)),
+      forget(actor) {
+        shared.delete(actor);
       },
       async freshTeam() {
         const res = await (await asOwner()).post('/api/teams').send({ name: 'Fresh team' }).expect(201);
@@ -247,10 +270,23 @@ describe('access matrix: every API route × every kind of caller', () => {
       if (!value) throw new Error(`no value for :${name} in ${route}`);
       return encodeURIComponent(value);
     });
-    const agent = await fx.agent(actor);
+    const agent = row.session ? await fx.freshAgent(actor) : await fx.agent(actor);
     const call = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](path);
-    const res = await (prepared.body === undefined ? call : call.send(prepared.body as object));
+    let res: Awaited<typeof call>;
+    try {
+      res = await (prepared.body === undefined ? call : call.send(prepared.body as object));
+    } finally {
+      if (row.session === 'ends-all') fx.forget(actor);
+    }
     expect({ status: res.status, error: res.status >= 400 ? res.body?.error?.message : undefined }).toMatchObject({ status });
+  });
+
+  // Reusing agents is only sound if no case swapped or ended a shared session without saying so.
+  it('still has each shared agent signed in as its own actor after every case', async () => {
+    for (const actor of ['owner', 'reviewer', 'viewer', 'outsider'] as const) {
+      const res = await (await fx.agent(actor)).get('/api/auth/session').expect(200);
+      expect(res.body.user?.email).toBe(fx.users[actor].email);
+    }
   });
 
   it('answers an outsider exactly as it answers a team id that does not exist', async () => {
