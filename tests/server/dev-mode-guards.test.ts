@@ -2,7 +2,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { outboxResponseSchema } from '../../shared/outbox';
 import { isLoopbackAddress, isLoopbackHost } from '../../server/http/loopback';
+import type { DatabaseHandle } from '../../db/client';
 import { browserAgent, createTestApp, fromAddress, testPassword, type TestApp } from '../support/test-app';
+import { openTestDatabase } from '../support/test-db';
 
 /**
  * `npm start` runs in development mode: demo accounts, and an outbox that holds every password-
@@ -11,10 +13,19 @@ import { browserAgent, createTestApp, fromAddress, testPassword, type TestApp } 
  * DNS-rebinding page cannot pass it by naming itself in both Origin and Host.
  */
 
+// One database for the file: its cases use addresses of their own and look in the outbox only for
+// a message they sent, and each copy takes seconds to open. Each describe still builds its own
+// app, so rate limits and settings start afresh.
+let database: DatabaseHandle;
+beforeAll(async () => {
+  database = await openTestDatabase();
+});
+afterAll(() => database?.close());
+
 describe('the development outbox answers only on this machine', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp({ outbox: true, nodeEnv: 'development', trustedOrigin: null });
+    ctx = await createTestApp({ database, outbox: true, nodeEnv: 'development', trustedOrigin: null });
     await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'colleague@example.com', displayName: 'Colleague', password: testPassword }).set('origin', 'http://127.0.0.1').set('host', '127.0.0.1');
     await request(ctx.app).post('/api/auth/password-reset').set('host', 'localhost:8080').set('origin', 'http://localhost:8080').send({ email: 'colleague@example.com' }).expect(202);
   });
@@ -54,7 +65,7 @@ describe('the development outbox answers only on this machine', () => {
 describe('the Origin rule without PUBLIC_URL', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp({ nodeEnv: 'development', trustedOrigin: null });
+    ctx = await createTestApp({ database, nodeEnv: 'development', trustedOrigin: null });
   });
   afterAll(() => ctx.close());
 
@@ -79,7 +90,7 @@ describe('the Origin rule without PUBLIC_URL', () => {
   });
 
   it('accepts any name that PUBLIC_URL names, and only that one', async () => {
-    const named = await createTestApp({ trustedOrigin: 'http://lab-pc.quillmere.example.com:8080' });
+    const named = await createTestApp({ database, trustedOrigin: 'http://lab-pc.quillmere.example.com:8080' });
     await request(named.app)
       .post('/api/auth/sign-up')
       .set('host', 'lab-pc.quillmere.example.com:8080')
@@ -129,7 +140,7 @@ describe('loopback helpers', () => {
 describe('headers on every answer', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
   });
   afterAll(() => ctx.close());
 

@@ -329,7 +329,7 @@ describe('malformed percent-encoding in paths', () => {
   beforeAll(async () => {
     const webRoot = mkdtempSync(path.join(tmpdir(), 'blazebook-web-'));
     writeFileSync(path.join(webRoot, 'index.html'), '<!doctype html><title>Blazebook</title>');
-    web = await createTestApp({ webRoot });
+    web = await createTestApp({ webRoot, database: fx.ctx.database });
   });
   afterAll(() => web?.close());
 

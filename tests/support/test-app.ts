@@ -16,11 +16,17 @@ type TestAppOptions = {
   outbox?: boolean;
   /** null: no PUBLIC_URL, as `npm start` runs by default (the Origin check then relies on Host). */
   trustedOrigin?: string | null;
+  /**
+   * An open database to use instead of a fresh copy, for a second app (other limits, mode or
+   * origin) in a file whose cases do not need an empty one: a copy costs seconds to open. Whoever
+   * opened it closes it; this app's `close` leaves it open.
+   */
+  database?: DatabaseHandle;
 } & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'webRoot'>>;
 
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
 export async function createTestApp(options: TestAppOptions = {}) {
-  const database: DatabaseHandle = await openTestDatabase();
+  const database: DatabaseHandle = options.database ?? (await openTestDatabase());
   const clock = createFixedClock(new Date('2026-03-14T09:00:00Z'));
   const mailer = createMemoryMailer();
   const errors: unknown[] = [];
@@ -37,7 +43,8 @@ export async function createTestApp(options: TestAppOptions = {}) {
     rateLimits: options.rateLimits,
     log: options.log ?? ((error) => errors.push(error)),
   });
-  return { app, database, clock, mailer, errors, close: () => database.close() };
+  const close = options.database ? async () => {} : () => database.close();
+  return { app, database, clock, mailer, errors, close };
 }
 
 export type TestApp = Awaited<ReturnType<typeof createTestApp>>;

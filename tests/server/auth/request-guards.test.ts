@@ -1,13 +1,23 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type { DatabaseHandle } from '../../../db/client';
 import { browserAgent, createTestApp, fromAddress, testOrigin, type TestApp } from '../../support/test-app';
+import { openTestDatabase } from '../../support/test-db';
 
 const password = 'a long enough password';
+
+// One database for the file: its cases use addresses of their own, and each copy takes seconds to
+// open. Each describe still builds its own app, so rate limits and settings start afresh.
+let database: DatabaseHandle;
+beforeAll(async () => {
+  database = await openTestDatabase();
+});
+afterAll(() => database?.close());
 
 describe('Origin check on state-changing requests (CSRF)', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
   });
   afterAll(() => ctx.close());
 
@@ -55,7 +65,7 @@ describe('failed sign-ins cannot lock the owner out from elsewhere', () => {
     request(fromAddress(ctx.app, address)).post('/api/auth/sign-in').set('origin', testOrigin).send({ email, password: pass });
 
   beforeAll(async () => {
-    ctx = await createTestApp({ rateLimits: { signInFailuresPerEmailPerIp: 3, signInFailuresPerIp: 5, signInPerIp: 8 } });
+    ctx = await createTestApp({ database, rateLimits: { signInFailuresPerEmailPerIp: 3, signInFailuresPerIp: 5, signInPerIp: 8 } });
     await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: owner, displayName: 'Owner', password }).expect(201);
   });
   afterAll(() => ctx.close());
@@ -85,7 +95,7 @@ describe('failed sign-ins cannot lock the owner out from elsewhere', () => {
 describe('rate limits on sign-in and password reset', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp({ rateLimits: { signInFailuresPerEmailPerIp: 3, signInPerIp: 5, resetPerEmail: 2, resetPerIp: 10 } });
+    ctx = await createTestApp({ database, rateLimits: { signInFailuresPerEmailPerIp: 3, signInPerIp: 5, resetPerEmail: 2, resetPerIp: 10 } });
     await browserAgent(ctx.app).post('/api/auth/sign-up').send({ email: 'target@example.com', displayName: 'Target', password }).expect(201);
   });
   afterAll(() => ctx.close());
@@ -99,7 +109,7 @@ describe('rate limits on sign-in and password reset', () => {
   });
 
   it('answers the 6th sign-in from one IP with 429 whatever the e-mail', async () => {
-    const perIp = await createTestApp({ rateLimits: { signInPerIp: 5, signInFailuresPerEmailPerIp: 100, signInFailuresPerIp: 100 } });
+    const perIp = await createTestApp({ database, rateLimits: { signInPerIp: 5, signInFailuresPerEmailPerIp: 100, signInFailuresPerIp: 100 } });
     for (let i = 1; i <= 5; i += 1) {
       await browserAgent(perIp.app).post('/api/auth/sign-in').send({ email: `other${i}@example.com`, password: 'whatever it is' }).expect(401);
     }
@@ -127,7 +137,7 @@ describe('rate limits on sign-in and password reset', () => {
 describe('sliding session expiry', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
   });
   afterAll(async () => {
     vi.useRealTimers();

@@ -53,7 +53,7 @@ describe('sign-up, sign-in and sign-out', () => {
   });
 
   it('marks the session cookie Secure when the app is served over https', async () => {
-    const https = await createTestApp({ https: true });
+    const https = await createTestApp({ https: true, database: ctx.database });
     const res = await browserAgent(https.app)
       .post('/api/auth/sign-up')
       .send({ email: 'secure.cookie@example.com', displayName: 'Secure Cookie', password })

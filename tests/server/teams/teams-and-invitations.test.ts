@@ -1,8 +1,18 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { invitationPreviewSchema, memberListResponseSchema, teamListResponseSchema } from '../../../shared/teams';
+import type { DatabaseHandle } from '../../../db/client';
 import { browserAgent, createTestApp, linkIn, signUp, testOrigin, tokenFrom, type TestApp } from '../../support/test-app';
+import { openTestDatabase } from '../../support/test-db';
 
 const day = 24 * 60 * 60_000;
+
+// One database for the file: its cases use addresses of their own, and each copy takes seconds to
+// open. Each describe still builds its own app, with its own clock and mailer.
+let database: DatabaseHandle;
+beforeAll(async () => {
+  database = await openTestDatabase();
+});
+afterAll(() => database?.close());
 
 /** Follows the confirmation link of the latest message to `email`, as its owner would. */
 async function confirmEmail(ctx: TestApp, email: string) {
@@ -16,7 +26,7 @@ describe('teams, members and invitations', () => {
   let teamId: string;
 
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
     owner = await signUp(ctx.app, 'Lab Lead', 'lead@example.com');
     teamId = (await owner.agent.post('/api/teams').send({ name: 'Spectroscopy bench' }).expect(201)).body.team.id;
   });
@@ -129,7 +139,7 @@ describe('teams, members and invitations', () => {
 describe('the last owner rule', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
   });
   afterAll(() => ctx.close());
 
@@ -161,7 +171,7 @@ describe('the last owner rule', () => {
 describe('cross-team isolation', () => {
   let ctx: TestApp;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
   });
   afterAll(() => ctx.close());
 
