@@ -5,7 +5,7 @@ import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { createQueryClient } from '@/features/api';
 import { AccountMenu } from '@/features/auth';
-import { ThemeProvider, Wordmark, colors, fontAssets, fonts } from '@/features/ui';
+import { Wordmark, colors, fontAssets, fonts } from '@/features/ui';
 
 export default function RootLayout() {
   const [fontsLoaded, fontError] = useFonts(fontAssets);
@@ -14,26 +14,24 @@ export default function RootLayout() {
   if (!fontsLoaded && !fontError) return null;
   return (
     <QueryClientProvider client={queryClient}>
-      <ThemeProvider>
-        <StatusBar style="light" />
-        <Stack
-          screenOptions={{
-            headerStyle: { backgroundColor: colors.primary },
-            headerTintColor: colors.onPrimary,
-            headerTitleStyle: { fontFamily: fonts.semibold },
-            contentStyle: { backgroundColor: colors.paper },
-            headerTitle: () => <Wordmark />,
-            headerRight: () => <AccountMenu />,
-          }}
-        >
-          <Stack.Screen name="index" options={{ title: 'Blazebook' }} />
-          <Stack.Screen name="workbench" options={{ title: 'Workbench' }} />
-          <Stack.Screen name="(auth)" options={{ title: 'Account' }} />
-          <Stack.Screen name="(workspace)" options={{ title: 'Teams' }} />
-          <Stack.Screen name="share/[token]" options={{ title: 'Shared design' }} />
-          <Stack.Screen name="+not-found" options={{ title: 'Not found' }} />
-        </Stack>
-      </ThemeProvider>
+      <StatusBar style="light" />
+      <Stack
+        screenOptions={{
+          headerStyle: { backgroundColor: colors.primary },
+          headerTintColor: colors.onPrimary,
+          headerTitleStyle: { fontFamily: fonts.semibold },
+          contentStyle: { backgroundColor: colors.paper },
+          headerTitle: () => <Wordmark />,
+          headerRight: () => <AccountMenu />,
+        }}
+      >
+        <Stack.Screen name="index" options={{ title: 'Blazebook' }} />
+        <Stack.Screen name="workbench" options={{ title: 'Workbench' }} />
+        <Stack.Screen name="(auth)" options={{ title: 'Account' }} />
+        <Stack.Screen name="(workspace)" options={{ title: 'Teams' }} />
+        <Stack.Screen name="share/[token]" options={{ title: 'Shared design' }} />
+        <Stack.Screen name="+not-found" options={{ title: 'Not found' }} />
+      </Stack>
     </QueryClientProvider>
   );
 }

@@ -312,7 +312,6 @@ export const cloneRequestSchema = z.object({
   title: designTitleSchema.optional(),
 });
 export type CloneRequest = z.input<typeof cloneRequestSchema>;
-export const cloneResponseSchema = notebookWithVersionResponseSchema;
 
 /** `PUT /api/designs/:id/baseline`: marks one version as the team's baseline, or clears it with null. */
 export const baselineRequestSchema = z.object({ version: versionNumberSchema.nullable() });

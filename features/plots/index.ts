@@ -1,10 +1,6 @@
 export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './components/line-plot';
 export {
-  BandpassPlot,
-  DispersionPlot,
-  EfficiencyPlot,
   PerformancePlots,
-  RotationPlot,
   TWO_COLUMN_MIN_WIDTH,
   type PerformancePlotsProps,
   type PlotProps,

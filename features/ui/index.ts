@@ -8,7 +8,7 @@ export { Wordmark } from './components/wordmark';
 export { copyText } from './clipboard';
 export { fontAssets } from './fonts';
 export { saveTextFile } from './save-text-file';
-export { ThemeProvider, useLayout, useTheme } from './theme-context';
+export { useLayout } from './theme-context';
 export {
   breakpoints,
   colors,
@@ -20,4 +20,4 @@ export {
   space,
   type,
 } from './theme';
-export type { Layout, Theme } from './theme';
+export type { Layout } from './theme';

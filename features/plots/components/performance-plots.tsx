@@ -147,19 +147,6 @@ const Rotation = memo(function Rotation({ data, ...rest }: Ready) {
   );
 });
 
-export function DispersionPlot({ evaluation, ...rest }: PlotProps) {
-  return <Dispersion {...rest} data={useSeries(evaluation)} />;
-}
-export function BandpassPlot({ evaluation, ...rest }: PlotProps) {
-  return <Bandpass {...rest} data={useSeries(evaluation)} />;
-}
-export function EfficiencyPlot({ evaluation, ...rest }: PlotProps) {
-  return <Efficiency {...rest} data={useSeries(evaluation)} />;
-}
-export function RotationPlot({ evaluation, ...rest }: PlotProps) {
-  return <Rotation {...rest} data={useSeries(evaluation)} />;
-}
-
 /** The four performance plots against wavelength: one per row, or two columns when wide. */
 export function PerformancePlots({ evaluation, width, columns, ...rest }: PerformancePlotsProps) {
   const data = useSeries(evaluation);
