@@ -5,7 +5,7 @@ import type { AddressInfo } from 'node:net';
 import { networkInterfaces, tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { restoreDataDir } from '../../db/client';
 import { gracefulShutdown } from '../../server/shutdown';
 
@@ -127,36 +127,52 @@ const credentials = {
 };
 
 describe('the server process', { timeout: 180_000 }, () => {
-  it('listens on loopback by default and says how to open it to the network', async () => {
-    const server = await startServer(await newDataDir());
-    expect(server.output()).toContain('Listening on loopback only; set HOST=0.0.0.0');
-    expect((await send(`${server.url}/api/health`, {})).status).toBe(200);
-    // This machine's own network address, when it has one, must not answer.
-    const lanAddress = Object.values(networkInterfaces())
-      .flat()
-      .find((address) => address && address.family === 'IPv4' && !address.internal)?.address;
-    if (lanAddress) {
-      await expect(send(`http://${lanAddress}:${server.port}/api/health`, {})).rejects.toMatchObject({
-        code: 'ECONNREFUSED',
-      });
-    }
-    server.child.kill('SIGTERM');
-    expect((await server.exited).code).toBe(0);
-  });
+  // One server for the checks that leave it running, stopped by the last of them: every start is
+  // a new Node process, tsx and PGlite opening a data directory, seconds on a loaded machine.
+  describe('one server on its own data directory', () => {
+    let dataDir: string;
+    let server: Server;
+    beforeAll(async () => {
+      dataDir = await newDataDir();
+      server = await startServer(dataDir);
+    }, 180_000);
 
-  it('exits at once on SIGTERM when a keep-alive client holds an idle connection', async () => {
-    const server = await startServer(await newDataDir());
-    const agent = new http.Agent({ keepAlive: true });
-    expect((await send(`${server.url}/api/health`, { agent })).status).toBe(200);
+    it('listens on loopback by default and says how to open it to the network', async () => {
+      expect(server.output()).toContain('Listening on loopback only; set HOST=0.0.0.0');
+      expect((await send(`${server.url}/api/health`, {})).status).toBe(200);
+      // This machine's own network address, when it has one, must not answer.
+      const lanAddress = Object.values(networkInterfaces())
+        .flat()
+        .find((address) => address && address.family === 'IPv4' && !address.internal)?.address;
+      if (lanAddress) {
+        await expect(send(`http://${lanAddress}:${server.port}/api/health`, {})).rejects.toMatchObject({
+          code: 'ECONNREFUSED',
+        });
+      }
+    });
 
-    const signalledAt = performance.now();
-    server.child.kill('SIGTERM');
-    const { code, at } = await server.exited;
-    agent.destroy();
-    expect(code).toBe(0);
-    // The backstop is 10 s and the keep-alive timeout 5 s: anything near them means the idle
-    // connection was waited for instead of closed. Generous, for a loaded test machine.
-    expect(at - signalledAt).toBeLessThan(3_000);
+    it('refuses to start a second server on a data directory that is in use', async () => {
+      const second = await startServer(dataDir).catch((error: Error) => error);
+      expect(second).toBeInstanceOf(Error);
+      expect((second as Error).message).toMatch(
+        new RegExp(`data directory ${dataDir} is in use by process ${server.child.pid}`),
+      );
+      expect((await send(`${server.url}/api/health`, {})).status).toBe(200);
+    });
+
+    it('exits at once on SIGTERM when a keep-alive client holds an idle connection', async () => {
+      const agent = new http.Agent({ keepAlive: true });
+      expect((await send(`${server.url}/api/health`, { agent })).status).toBe(200);
+
+      const signalledAt = performance.now();
+      server.child.kill('SIGTERM');
+      const { code, at } = await server.exited;
+      agent.destroy();
+      expect(code).toBe(0);
+      // The backstop is 10 s and the keep-alive timeout 5 s: anything near them means the idle
+      // connection was waited for instead of closed. Generous, for a loaded test machine.
+      expect(at - signalledAt).toBeLessThan(3_000);
+    });
   });
 
   it('answers a write in flight at SIGTERM, exits as soon as it is answered, and keeps the write', async () => {
@@ -248,19 +264,6 @@ describe('the server process', { timeout: 180_000 }, () => {
     }
     again.child.kill('SIGTERM');
     expect((await again.exited).code).toBe(0);
-  });
-
-  it('refuses to start a second server on a data directory that is in use', async () => {
-    const dataDir = await newDataDir();
-    const first = await startServer(dataDir);
-    const second = await startServer(dataDir).catch((error: Error) => error);
-    expect(second).toBeInstanceOf(Error);
-    expect((second as Error).message).toMatch(
-      new RegExp(`data directory ${dataDir} is in use by process ${first.child.pid}`),
-    );
-    expect((await send(`${first.url}/api/health`, {})).status).toBe(200);
-    first.child.kill('SIGTERM');
-    expect((await first.exited).code).toBe(0);
   });
 });
 
