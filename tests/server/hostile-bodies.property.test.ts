@@ -1,5 +1,5 @@
 import * as fc from 'fast-check';
-import { Agent, createServer, type Server } from 'node:http';
+import { createServer, type Server } from 'node:http';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../shared/api-error';
@@ -95,11 +95,6 @@ type Target = { params?: Record<string, string>; body: unknown; as: 'owner' | 'r
 
 let fx: NotebookFixture;
 let server: Server;
-/**
- * Reuses connections as a browser does: superagent opens a new one per request otherwise, and
- * these are 18,000 requests. Still real HTTP through a real socket.
- */
-const keepAlive = new Agent({ keepAlive: true });
 const cookies: Record<'owner' | 'reviewer', string> = { owner: '', reviewer: '' };
 let targets: Record<string, Target>;
 
@@ -158,7 +153,6 @@ beforeAll(async () => {
 }, 120_000);
 
 afterAll(async () => {
-  keepAlive.destroy();
   await new Promise((resolve) => server?.close(resolve));
   await fx?.ctx.close();
 });
@@ -196,7 +190,7 @@ describe.each([
     const url = pattern.replace(/:([a-zA-Z]+)/g, (_m, name: string) => encodeURIComponent(target.params?.[name] ?? 'x'));
     await fc.assert(
       fc.asyncProperty(bodies(target.body), async (body) => {
-        let req = request(server)[method.toLowerCase() as 'post'](url).agent(keepAlive).set('origin', testOrigin).set('content-type', 'application/json');
+        let req = request(server)[method.toLowerCase() as 'post'](url).set('origin', testOrigin).set('content-type', 'application/json');
         if (target.as !== 'anonymous') req = req.set('cookie', cookies[target.as]);
         const res = await req.send(JSON.stringify(body) ?? 'null');
         expect(res.status, `${res.status} ${res.text.slice(0, 300)}`).toBeLessThan(500);
