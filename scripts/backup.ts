@@ -15,6 +15,7 @@ import { parseArgs } from 'node:util';
 import { dumpDataDir } from '../db/client';
 import { DataDirInUseError } from '../db/data-dir-lock';
 import { loadConfig } from '../server/config';
+import { runCommand } from './run-command';
 
 const usage = `Usage: npm run backup [-- <file.tar.gz | folder>]
 
@@ -103,10 +104,4 @@ async function main(): Promise<number> {
   return 0;
 }
 
-main().then(
-  (code) => process.exit(code),
-  (error: unknown) => {
-    console.error(error instanceof Error ? error.message : error);
-    process.exit(1);
-  },
-);
+runCommand(main);

@@ -3,6 +3,7 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { restoreDataDir } from '../db/client';
 import { loadConfig } from '../server/config';
+import { runCommand } from './run-command';
 
 const usage = `Usage: npm run restore -- <backup.tar.gz>
 
@@ -62,10 +63,4 @@ async function main(): Promise<number> {
   return 0;
 }
 
-main().then(
-  (code) => process.exit(code),
-  (error: unknown) => {
-    console.error(error instanceof Error ? error.message : error);
-    process.exit(1);
-  },
-);
+runCommand(main);
