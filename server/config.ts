@@ -34,7 +34,3 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   return { ...parsed.data, version: pkg.version };
 }
 
-/** True for addresses only this machine can reach: then the server says how to open it up. */
-export function isLoopbackHost(host: string): boolean {
-  return host === 'localhost' || host === '::1' || /^127(\.\d{1,3}){3}$/.test(host);
-}

@@ -3,7 +3,8 @@ import { DataDirInUseError } from '../db/data-dir-lock';
 import { openDatabase } from '../db/client';
 import { createApp } from './app';
 import { systemClock } from './clock';
-import { isLoopbackHost, loadConfig } from './config';
+import { loadConfig } from './config';
+import { isLoopbackListenAddress } from './http/loopback';
 import { createOutboxMailer, createSmtpMailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
 import { seedDemoData } from './seed/demo';
@@ -42,7 +43,7 @@ const server = app.listen(config.PORT, config.HOST, () => {
   const { port } = server.address() as AddressInfo;
   const url = config.PUBLIC_URL ?? `http://localhost:${port}`;
   listeningUrl = url;
-  if (isLoopbackHost(config.HOST)) {
+  if (isLoopbackListenAddress(config.HOST)) {
     console.log('Listening on loopback only; set HOST=0.0.0.0 (and PUBLIC_URL) to open it to your network.');
   }
   // The test helper and `npm start` wait for this exact line; it comes last.

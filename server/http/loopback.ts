@@ -11,6 +11,11 @@ export function isLoopbackAddress(address: string | undefined): boolean {
   return /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(v4) || address === '::1';
 }
 
+/** A `HOST` to listen on that only this machine can reach: then the server says how to open it up. */
+export function isLoopbackListenAddress(host: string): boolean {
+  return host === 'localhost' || isLoopbackAddress(host);
+}
+
 const loopbackHostnames = new Set(['localhost', '127.0.0.1', '[::1]']);
 
 /** The host name of a `Host` header value (`localhost:8080` → `localhost`), or null when unreadable. */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { isLoopbackHost, loadConfig } from '../../server/config';
+import { loadConfig } from '../../server/config';
+import { isLoopbackListenAddress } from '../../server/http/loopback';
 
 describe('server configuration', () => {
   it('listens on loopback when HOST is not set, in development and in production', () => {
@@ -28,6 +29,6 @@ describe('server configuration', () => {
     ['192.0.2.10', false],
     ['1270.0.0.1', false],
   ] satisfies [string, boolean][])('counts %s as loopback: %s', (host, loopback) => {
-    expect(isLoopbackHost(host)).toBe(loopback);
+    expect(isLoopbackListenAddress(host)).toBe(loopback);
   });
 });
