@@ -2,6 +2,7 @@ import { useRouter, type Href } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Notebook, Version } from '@/shared/notebooks';
+import { exportFileName } from '@/shared/export-file-name';
 import { can } from '@/shared/teams';
 import { useTeamsQuery } from '@/features/teams';
 import { Button, Card, Screen, Text, TextField, colors, copyText, saveTextFile, space } from '@/features/ui';
@@ -245,15 +246,6 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
   );
 }
 
-function fileNameFor(title: string): string {
-  const slug =
-    title
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '') || 'notebook';
-  return `${slug}.blazebook.json`;
-}
-
 function ExportPanel({ design }: { design: Notebook }) {
   const [state, setState] = useState<{ busy: boolean; message: string | null; error: boolean }>({
     busy: false,
@@ -264,10 +256,10 @@ function ExportPanel({ design }: { design: Notebook }) {
     setState({ busy: true, message: null, error: false });
     try {
       const file = await fetchNotebookFile(design.id);
-      const saved = await saveTextFile(`${JSON.stringify(file, null, 2)}\n`, fileNameFor(design.title));
+      const saved = await saveTextFile(`${JSON.stringify(file, null, 2)}\n`, exportFileName(design.title));
       setState({
         busy: false,
-        message: saved ? `Saved ${fileNameFor(design.title)} with ${file.versions.length} versions.` : null,
+        message: saved ? `Saved ${exportFileName(design.title)} with ${file.versions.length} versions.` : null,
         error: false,
       });
     } catch (error) {
