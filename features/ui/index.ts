@@ -1,6 +1,8 @@
 export { Button } from './components/button';
 export { Card } from './components/card';
 export { Heading } from './components/heading';
+export { RadioGroup } from './components/radio-group';
+export type { RadioOption } from './components/radio-group';
 export { Screen } from './components/screen';
 export { Text } from './components/text';
 export { TextField } from './components/text-field';
