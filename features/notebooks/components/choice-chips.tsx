@@ -1,5 +1,4 @@
-import { Pressable, StyleSheet, View } from 'react-native';
-import { Text, colors, fonts, radius, space, type } from '@/features/ui';
+import { RadioGroup } from '@/features/ui';
 
 type Props<T extends string> = {
   label: string;
@@ -9,39 +8,7 @@ type Props<T extends string> = {
   testID: string;
 };
 
-/** A small single choice drawn as toggles. */
+/** A small single choice drawn as toggles, with its name above. */
 export function ChoiceChips<T extends string>({ label, options, value, onChange, testID }: Props<T>) {
-  return (
-    <View style={styles.root}>
-      <Text variant="small" weight="semibold">
-        {label}
-      </Text>
-      <View role="radiogroup" aria-label={label} style={styles.row} testID={testID}>
-        {options.map((option) => {
-          const current = option.value === value;
-          return (
-            <Pressable
-              key={option.value}
-              role="radio"
-              aria-checked={current}
-              onPress={() => onChange(option.value)}
-              style={[styles.chip, current && styles.chipCurrent]}
-              testID={`${testID}-${option.value}`}
-            >
-              <Text style={[styles.text, current && styles.textCurrent]}>{option.label}</Text>
-            </Pressable>
-          );
-        })}
-      </View>
-    </View>
-  );
+  return <RadioGroup label={label} showLabel options={options} value={value} onChange={onChange} size="compact" testID={testID} />;
 }
-
-const styles = StyleSheet.create({
-  root: { gap: space.xs },
-  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
-  chip: { minHeight: 36, justifyContent: 'center', borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface, paddingHorizontal: space.md },
-  chipCurrent: { backgroundColor: colors.primary, borderColor: colors.primary },
-  text: { ...type.small, fontFamily: fonts.semibold, color: colors.ink },
-  textCurrent: { color: colors.onPrimary },
-});

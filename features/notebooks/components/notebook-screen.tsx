@@ -5,7 +5,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import type { Notebook, Version } from '@/shared/notebooks';
 import { ApiError } from '@/features/api';
 import { useSessionQuery } from '@/features/auth';
-import { Heading, Screen, Text, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
+import { Heading, RadioGroup, Screen, Text, colors, space } from '@/features/ui';
 import { useNotebookQuery, useVersionQuery } from '../queries';
 import { DesignTab } from './design-tab';
 import { HistoryTab } from './history-tab';
@@ -95,25 +95,15 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
           )}
         </Text>
       ) : null}
-      <View role="tablist" aria-label="Notebook sections" style={styles.tabs}>
-        {tabs.map((item) => {
-          const current = item.id === tab;
-          return (
-            <Pressable
-              key={item.id}
-              role="tab"
-              aria-selected={current}
-              onPress={() => setTab(item.id)}
-              testID={`tab-${item.id}`}
-              style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.tab, current && styles.tabCurrent, hovered && !current && styles.tabHovered]}
-            >
-              <Text variant="small" weight="semibold" style={current ? styles.tabTextCurrent : styles.tabText}>
-                {item.id === 'history' ? `${item.label} (${latest.number})` : item.label}
-              </Text>
-            </Pressable>
-          );
-        })}
-      </View>
+      <RadioGroup
+        label="Notebook sections"
+        options={tabs.map((item) => ({ value: item.id, label: item.id === 'history' ? `${item.label} (${latest.number})` : item.label }))}
+        value={tab}
+        onChange={setTab}
+        size="compact"
+        optionTestID={(id) => `tab-${id}`}
+        style={styles.tabs}
+      />
     </View>
   );
 
@@ -172,18 +162,5 @@ const styles = StyleSheet.create({
   backText: { color: colors.primary },
   titleRow: { flexDirection: 'row', alignItems: 'baseline', flexWrap: 'wrap', columnGap: space.md },
   inlineLink: { color: colors.primary, textDecorationLine: 'underline' },
-  tabs: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, paddingTop: space.xs },
-  tab: {
-    minHeight: minTouch - 8,
-    justifyContent: 'center',
-    paddingHorizontal: space.md,
-    borderRadius: radius.md,
-    borderWidth: 1,
-    borderColor: colors.line,
-    backgroundColor: colors.surface,
-  },
-  tabCurrent: { backgroundColor: colors.primary, borderColor: colors.primary },
-  tabHovered: { backgroundColor: colors.surfaceSunken },
-  tabText: { ...type.small, fontFamily: fonts.semibold, color: colors.ink },
-  tabTextCurrent: { color: colors.onPrimary },
+  tabs: { paddingTop: space.xs },
 });
