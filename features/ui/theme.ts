@@ -63,6 +63,3 @@ export function layoutForWidth(widthPx: number): Layout {
   if (widthPx >= breakpoints.tablet) return 'tablet';
   return 'phone';
 }
-
-export const theme = { colors, fonts, type, space, radius, minTouch, breakpoints, maxContentWidth };
-export type Theme = typeof theme;
