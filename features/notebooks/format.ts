@@ -1,3 +1,4 @@
+import { describeDesignPath, fieldTableName } from '@/shared/design-fields';
 import type { FigureKey, VersionSummary } from '@/shared/notebooks';
 
 const minus = '\u2212';
@@ -73,45 +74,8 @@ export function formatDay(iso: string): string {
   return new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 }
 
-const sectionWords: Record<string, string> = {
-  grating: 'Grating',
-  layout: 'Layout',
-  slits: 'Slits',
-  range: 'Range',
-  source: 'Source',
-  detector: 'Detector',
-};
-
-const fieldWords: Record<string, string> = {
-  grooveDensityPerMm: 'groove density (/mm)',
-  order: 'order',
-  blazeWavelengthNm: 'blaze wavelength (nm)',
-  ruledWidthMm: 'ruled width (mm)',
-  ruledHeightMm: 'ruled height (mm)',
-  kind: 'kind',
-  deviationAngleDeg: 'deviation angle (°)',
-  collimatorFocalMm: 'collimator focal length (mm)',
-  cameraFocalMm: 'camera focal length (mm)',
-  collimatorOffAxisDeg: 'collimator off-axis angle (°)',
-  cameraOffAxisDeg: 'camera off-axis angle (°)',
-  entranceWidthUm: 'entrance width (µm)',
-  exitWidthUm: 'exit width (µm)',
-  heightMm: 'height (mm)',
-  startNm: 'start (nm)',
-  endNm: 'end (nm)',
-  minNm: 'shortest wavelength (nm)',
-  maxNm: 'longest wavelength (nm)',
-  pixelPitchUm: 'pixel pitch (µm)',
-  pixelCount: 'pixel count',
-};
-
 /** `slits.exitWidthUm` → "Slits: exit width (µm)"; a whole section → "Detector". */
-export function describePath(path: string): string {
-  const [section, field] = path.split('.');
-  const head = sectionWords[section ?? ''] ?? section ?? path;
-  if (!field) return head;
-  return `${head}: ${fieldWords[field] ?? field}`;
-}
+export const describePath = describeDesignPath;
 
 /** A parameter value as it reads in a table: numbers plainly, sections as "set" / "not set". */
 export function formatParam(value: unknown): string {
@@ -120,7 +84,7 @@ export function formatParam(value: unknown): string {
   if (typeof value === 'string') return value;
   if (typeof value === 'object') {
     return Object.entries(value as Record<string, unknown>)
-      .map(([key, inner]) => `${fieldWords[key] ?? key} ${formatParam(inner)}`)
+      .map(([key, inner]) => `${fieldTableName(key)} ${formatParam(inner)}`)
       .join(', ');
   }
   return String(value);

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { LAYOUT_KINDS, type Design } from '@/shared/design';
-import { designToForm, type FormValues } from './form-model';
+import type { Design } from '@/shared/design';
+import { designToForm, formValuesSchema } from './form-model';
 import { defaultPreset } from './presets';
 import { draftStorage } from './storage';
 
@@ -8,27 +8,6 @@ import { draftStorage } from './storage';
 export const DRAFT_KEY = 'blazebook.scratch-design.v1';
 
 const text = z.string().max(200);
-const formValuesSchema = z.object({
-  grating: z.object({
-    grooveDensityPerMm: text,
-    order: text,
-    blazeWavelengthNm: text,
-    ruledWidthMm: text,
-    ruledHeightMm: text,
-  }),
-  layout: z.object({
-    kind: z.enum(LAYOUT_KINDS),
-    deviationAngleDeg: text,
-    collimatorFocalMm: text,
-    cameraFocalMm: text,
-    collimatorOffAxisDeg: text,
-    cameraOffAxisDeg: text,
-  }),
-  slits: z.object({ entranceWidthUm: text, exitWidthUm: text, heightMm: text }),
-  range: z.object({ startNm: text, endNm: text }),
-  source: z.object({ minNm: text, maxNm: text }),
-  detector: z.object({ pixelPitchUm: text, pixelCount: text }),
-}) satisfies z.ZodType<FormValues>;
 
 const draftSchema = z.object({
   values: formValuesSchema,

@@ -1,33 +1,39 @@
+import { z } from 'zod';
 import { parseQuantity, unitParserReady } from '@/features/solver';
-import { designSchema, type Design, type LayoutKind } from '@/shared/design';
+import { designSchema, type Design } from '@/shared/design';
+import { describedFieldByPath, describedFields, describedSections } from '@/shared/design-fields';
 import { fieldErrors, type FieldErrors } from '@/shared/validation';
-import { allFields, sections, type FieldSpec } from './fields';
+import { allFields, type FieldSpec } from './fields';
+
+type FieldText<V> = Exclude<V, undefined> extends number ? string : Exclude<V, undefined>;
 
 /**
  * What the editor holds: the text exactly as typed, so a half-typed "0.5 m" or a refused value
  * survives a reload. The design is derived from it, never the other way round while typing.
+ * Every section and field of the design, optional or not; numbers as text, a choice as its value.
  */
 export type FormValues = {
-  grating: {
-    grooveDensityPerMm: string;
-    order: string;
-    blazeWavelengthNm: string;
-    ruledWidthMm: string;
-    ruledHeightMm: string;
-  };
-  layout: {
-    kind: LayoutKind;
-    deviationAngleDeg: string;
-    collimatorFocalMm: string;
-    cameraFocalMm: string;
-    collimatorOffAxisDeg: string;
-    cameraOffAxisDeg: string;
-  };
-  slits: { entranceWidthUm: string; exitWidthUm: string; heightMm: string };
-  range: { startNm: string; endNm: string };
-  source: { minNm: string; maxNm: string };
-  detector: { pixelPitchUm: string; pixelCount: string };
+  [S in keyof Design]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
 };
+
+const text = z.string().max(200);
+
+/** The editor's text as a draft stores it, built from the described fields. */
+export const formValuesSchema = z.object(
+  Object.fromEntries(
+    describedSections.map((section) => [
+      section.id,
+      z.object(
+        Object.fromEntries(
+          section.fields.map((field) => [
+            field.key,
+            field.kind === 'choice' ? z.enum(Object.keys(field.options) as [string, ...string[]]) : text,
+          ]),
+        ),
+      ),
+    ]),
+  ),
+) as unknown as z.ZodType<FormValues>;
 
 export type FormResult = { ok: true; design: Design } | { ok: false; fields: FieldErrors };
 
@@ -58,15 +64,15 @@ export function parseField(
   return parsed.ok ? parsed : { ok: false, message: parsed.message };
 }
 
-/** Field paths inside schema messages, said the way the editor labels them. */
-const spokenPaths: Record<string, string> = {
-  'range.startNm': 'the range start',
-  'source.minNm': 'the shortest emitted wavelength',
-  collimatorFocalMm: 'the collimator focal length',
-};
+/** A field path or key ("range.startNm", "collimatorFocalMm") inside a schema message. */
+const FIELD_NAME = /\b(?:[a-z]+\.)?[a-z]+[A-Z]\w*\b/g;
 
+/** Field names inside schema messages, said the way the editor labels them ("the range start"). */
 function speak(message: string): string {
-  return Object.entries(spokenPaths).reduce((text, [path, words]) => text.split(path).join(words), message);
+  return message.replace(FIELD_NAME, (name) => {
+    const field = describedFieldByPath.get(name) ?? describedFields.find((f) => f.key === name);
+    return field ? `the ${field.label.charAt(0).toLowerCase()}${field.label.slice(1)}` : name;
+  });
 }
 
 /**
@@ -76,17 +82,20 @@ function speak(message: string): string {
 export function formToDesign(values: FormValues): FormResult {
   const errors: FieldErrors = {};
   const candidate: Record<string, Record<string, unknown>> = {};
-  for (const section of sections) {
-    const blank = section.fields.every((field) => read(values, field.path).trim() === '');
+  for (const section of describedSections) {
+    const typed = section.fields.filter((field) => field.kind !== 'choice');
+    const blank = typed.every((field) => read(values, field.path).trim() === '');
     if (section.optional && blank) continue;
     const target: Record<string, unknown> = {};
     candidate[section.id] = target;
-    if (section.id === 'layout') target.kind = values.layout.kind;
     for (const field of section.fields) {
+      if (field.kind === 'choice') {
+        target[field.key] = read(values, field.path);
+        continue;
+      }
       const parsed = parseField(field, read(values, field.path));
-      const key = field.path.split('.')[1] as string;
       if (parsed.ok) {
-        if (parsed.value !== undefined) target[key] = parsed.value;
+        if (parsed.value !== undefined) target[field.key] = parsed.value;
       } else {
         errors[field.path] = parsed.message;
       }
@@ -118,35 +127,17 @@ export function readForm(values: FormValues): FormResult {
 
 /** The editor's text for a stored design: numbers as numbers, absent optional values empty. */
 export function designToForm(design: Design): FormValues {
-  const text = (value: number | undefined) => (value === undefined ? '' : formatCanonical(value));
-  return {
-    grating: {
-      grooveDensityPerMm: text(design.grating.grooveDensityPerMm),
-      order: text(design.grating.order),
-      blazeWavelengthNm: text(design.grating.blazeWavelengthNm),
-      ruledWidthMm: text(design.grating.ruledWidthMm),
-      ruledHeightMm: text(design.grating.ruledHeightMm),
-    },
-    layout: {
-      kind: design.layout.kind,
-      deviationAngleDeg: text(design.layout.deviationAngleDeg),
-      collimatorFocalMm: text(design.layout.collimatorFocalMm),
-      cameraFocalMm: text(design.layout.cameraFocalMm),
-      collimatorOffAxisDeg: text(design.layout.collimatorOffAxisDeg),
-      cameraOffAxisDeg: text(design.layout.cameraOffAxisDeg),
-    },
-    slits: {
-      entranceWidthUm: text(design.slits.entranceWidthUm),
-      exitWidthUm: text(design.slits.exitWidthUm),
-      heightMm: text(design.slits.heightMm),
-    },
-    range: { startNm: text(design.range.startNm), endNm: text(design.range.endNm) },
-    source: { minNm: text(design.source?.minNm), maxNm: text(design.source?.maxNm) },
-    detector: {
-      pixelPitchUm: text(design.detector?.pixelPitchUm),
-      pixelCount: text(design.detector?.pixelCount),
-    },
-  };
+  const form: Record<string, Record<string, string>> = {};
+  for (const section of describedSections) {
+    const stored = design[section.id] as Record<string, unknown> | undefined;
+    form[section.id] = Object.fromEntries(
+      section.fields.map((field) => {
+        const value = stored?.[field.key];
+        return [field.key, typeof value === 'number' ? formatCanonical(value) : typeof value === 'string' ? value : ''];
+      }),
+    );
+  }
+  return form as FormValues;
 }
 
 /** The value a stepper moves to from `text`, or null when the text is not a number yet. */

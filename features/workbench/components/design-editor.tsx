@@ -2,19 +2,13 @@ import { memo, useState } from 'react';
 import { useController, type Control, type UseFormSetValue } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { Text, space } from '@/features/ui';
-import type { LayoutKind } from '@/shared/design';
-import { sections, type SectionId } from '../fields';
+import { layoutKindOptions } from '@/shared/design-fields';
+import { fieldLabel, sections, type SectionId } from '../fields';
 import type { FormValues } from '../form-model';
 import { markEditStart } from '../perf-marks';
 import { EditorSection } from './editor-section';
 import { ChoiceRow } from './choice-row';
 import { FieldInput } from './field-input';
-
-export const mountKinds: readonly { value: LayoutKind; label: string; description: string }[] = [
-  { value: 'czerny-turner', label: 'Czerny–Turner', description: 'two mirrors, collimator and camera' },
-  { value: 'littrow', label: 'Littrow', description: 'light returns along its own path, deviation 0' },
-  { value: 'ebert-fastie', label: 'Ebert–Fastie', description: 'one mirror used twice' },
-];
 
 function sectionSummary(id: SectionId, v: FormValues): string {
   const or = (text: string, fallback: string) => (text.trim() === '' ? fallback : text);
@@ -22,7 +16,7 @@ function sectionSummary(id: SectionId, v: FormValues): string {
     case 'grating':
       return `${or(v.grating.grooveDensityPerMm, '?')}/mm · order ${or(v.grating.order, '?')}${v.grating.blazeWavelengthNm ? ` · blaze ${v.grating.blazeWavelengthNm} nm` : ''}`;
     case 'layout':
-      return `${mountKinds.find((k) => k.value === v.layout.kind)?.label ?? v.layout.kind} · ${or(v.layout.deviationAngleDeg, '?')}° · ${or(v.layout.collimatorFocalMm, '?')}/${or(v.layout.cameraFocalMm, '?')} mm`;
+      return `${layoutKindOptions.find((k) => k.value === v.layout.kind)?.label ?? v.layout.kind} · ${or(v.layout.deviationAngleDeg, '?')}° · ${or(v.layout.collimatorFocalMm, '?')}/${or(v.layout.cameraFocalMm, '?')} mm`;
     case 'slits':
       return `${or(v.slits.entranceWidthUm, '?')}/${or(v.slits.exitWidthUm, '?')} µm × ${or(v.slits.heightMm, '?')} mm`;
     case 'range':
@@ -49,8 +43,8 @@ function MountKindPicker({ control, setValue, collimatorFocalText, readOnly }: P
   const { field } = useController({ control, name: 'layout.kind' });
   return (
     <ChoiceRow
-      label="Mount type"
-      options={mountKinds}
+      label={fieldLabel('layout.kind')}
+      options={layoutKindOptions}
       value={field.value}
       disabled={readOnly}
       testID="mount-kind"

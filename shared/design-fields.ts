@@ -1,0 +1,395 @@
+import { z } from 'zod';
+import { designSchema, type Design, type LayoutKind } from './design';
+
+/**
+ * How each field of a design is shown and named: the one description beside the schema from
+ * which the editor's fields, the editor's text form, the draft format and the compare tables'
+ * words are derived. It is keyed by the design's own type, so a field added to or dropped from
+ * the schema without its description here fails to compile; the order of sections and fields,
+ * and whether one is optional, are read from the zod schema itself.
+ */
+
+/** Units the editor reads typed text in (mathjs spellings). */
+export type DesignFieldUnit = 'nm' | 'um' | 'mm' | 'deg' | 'mm^-1';
+
+type Names = {
+  /** The editor's label; also names the field in "fix …" notes and warnings. */
+  label: string;
+  /** The field's name under its section heading in compare and conflict tables ("exit width"). */
+  short: string;
+};
+
+export type QuantityDescription = Names & {
+  kind: 'quantity';
+  unit: DesignFieldUnit;
+  /** Unit as printed after the value. */
+  unitLabel: string;
+  /** Stepper increments; a list walks through common values instead of adding a step. */
+  step: number | readonly number[];
+  /** Smallest value the stepper goes down to. */
+  min?: number;
+  help: string;
+};
+
+export type IntegerDescription = Names & {
+  kind: 'integer';
+  /** Whether 0 is skipped by the stepper (diffraction order). */
+  skipZero?: boolean;
+  min?: number;
+  help: string;
+};
+
+export type ChoiceDescription<V extends string = string> = Names & {
+  kind: 'choice';
+  options: Readonly<Record<V, { label: string; description: string }>>;
+};
+
+type FieldDescriptions<S> = {
+  [K in keyof S]-?: Exclude<S[K], undefined> extends number
+    ? QuantityDescription | IntegerDescription
+    : ChoiceDescription<Extract<S[K], string>>;
+};
+
+export type SectionId = keyof Design;
+
+type DesignDescription = {
+  [S in SectionId]-?: {
+    /** The editor's heading. */
+    title: string;
+    /** The section's name in compare and conflict tables. */
+    short: string;
+    note?: string;
+    fields: FieldDescriptions<NonNullable<Design[S]>>;
+  };
+};
+
+/** Catalogue groove densities (common practice), walked by the stepper. */
+const grooveDensities = [50, 75, 150, 300, 600, 900, 1200, 1800, 2400, 3600] as const;
+
+const designDescription: DesignDescription = {
+  grating: {
+    title: 'Grating',
+    short: 'Grating',
+    fields: {
+      grooveDensityPerMm: {
+        kind: 'quantity',
+        label: 'Groove density',
+        short: 'groove density',
+        unit: 'mm^-1',
+        unitLabel: '/mm',
+        step: grooveDensities,
+        help: 'Grooves per millimetre, e.g. 1200/mm or 1200 l/mm.',
+      },
+      order: {
+        kind: 'integer',
+        label: 'Diffraction order',
+        short: 'order',
+        skipZero: true,
+        help: 'Whole number other than 0; negative orders are allowed.',
+      },
+      blazeWavelengthNm: {
+        kind: 'quantity',
+        label: 'Blaze wavelength (first-order Littrow)',
+        short: 'blaze wavelength',
+        unit: 'nm',
+        unitLabel: 'nm',
+        step: 50,
+        min: 50,
+        help: 'As the grating is sold; leave empty for a holographic grating without blaze.',
+      },
+      ruledWidthMm: {
+        kind: 'quantity',
+        label: 'Ruled width',
+        short: 'ruled width',
+        unit: 'mm',
+        unitLabel: 'mm',
+        step: 5,
+        min: 5,
+        help: 'Across the grooves; sets the number of grooves illuminated.',
+      },
+      ruledHeightMm: {
+        kind: 'quantity',
+        label: 'Ruled height',
+        short: 'ruled height',
+        unit: 'mm',
+        unitLabel: 'mm',
+        step: 5,
+        min: 5,
+        help: 'Along the grooves.',
+      },
+    },
+  },
+  layout: {
+    title: 'Mount',
+    short: 'Layout',
+    fields: {
+      kind: {
+        kind: 'choice',
+        label: 'Mount type',
+        short: 'kind',
+        options: {
+          'czerny-turner': { label: 'Czerny–Turner', description: 'two mirrors, collimator and camera' },
+          littrow: { label: 'Littrow', description: 'light returns along its own path, deviation 0' },
+          'ebert-fastie': { label: 'Ebert–Fastie', description: 'one mirror used twice' },
+        },
+      },
+      deviationAngleDeg: {
+        kind: 'quantity',
+        label: 'Deviation angle',
+        short: 'deviation angle',
+        unit: 'deg',
+        unitLabel: '°',
+        step: 1,
+        min: 0,
+        help: 'Full angle between incident and diffracted chief rays; 0 for Littrow.',
+      },
+      collimatorFocalMm: {
+        kind: 'quantity',
+        label: 'Collimator focal length',
+        short: 'collimator focal length',
+        unit: 'mm',
+        unitLabel: 'mm',
+        step: 10,
+        min: 10,
+        help: 'e.g. 300 mm or 0.3 m.',
+      },
+      cameraFocalMm: {
+        kind: 'quantity',
+        label: 'Camera focal length',
+        short: 'camera focal length',
+        unit: 'mm',
+        unitLabel: 'mm',
+        step: 10,
+        min: 10,
+        help: 'Equal to the collimator for Ebert–Fastie (one mirror).',
+      },
+      collimatorOffAxisDeg: {
+        kind: 'quantity',
+        label: 'Collimator off-axis angle',
+        short: 'collimator off-axis angle',
+        unit: 'deg',
+        unitLabel: '°',
+        step: 0.5,
+        min: 0,
+        help: 'Half the angle between the rays to and from the collimator.',
+      },
+      cameraOffAxisDeg: {
+        kind: 'quantity',
+        label: 'Camera off-axis angle',
+        short: 'camera off-axis angle',
+        unit: 'deg',
+        unitLabel: '°',
+        step: 0.5,
+        min: 0,
+        help: 'Leave empty to see the coma-free angle.',
+      },
+    },
+  },
+  slits: {
+    title: 'Slits',
+    short: 'Slits',
+    fields: {
+      entranceWidthUm: {
+        kind: 'quantity',
+        label: 'Entrance slit width',
+        short: 'entrance width',
+        unit: 'um',
+        unitLabel: 'µm',
+        step: 10,
+        min: 5,
+        help: 'e.g. 100 um or 0.1 mm.',
+      },
+      exitWidthUm: {
+        kind: 'quantity',
+        label: 'Exit slit width',
+        short: 'exit width',
+        unit: 'um',
+        unitLabel: 'µm',
+        step: 10,
+        min: 5,
+        help: 'The exit slit, or one detector pixel for a spectrograph.',
+      },
+      heightMm: {
+        kind: 'quantity',
+        label: 'Slit height',
+        short: 'height',
+        unit: 'mm',
+        unitLabel: 'mm',
+        step: 1,
+        min: 1,
+        help: 'Along the grooves.',
+      },
+    },
+  },
+  range: {
+    title: 'Wavelength range',
+    short: 'Range',
+    fields: {
+      startNm: {
+        kind: 'quantity',
+        label: 'Range start',
+        short: 'start',
+        unit: 'nm',
+        unitLabel: 'nm',
+        step: 10,
+        min: 10,
+        help: 'Shortest wavelength the design must deliver.',
+      },
+      endNm: {
+        kind: 'quantity',
+        label: 'Range end',
+        short: 'end',
+        unit: 'nm',
+        unitLabel: 'nm',
+        step: 10,
+        min: 10,
+        help: 'Longest wavelength the design must deliver.',
+      },
+    },
+  },
+  source: {
+    title: 'Light source',
+    short: 'Source',
+    note: 'What the lamp emits. Used to find other orders that leave the grating at the same angle. Leave both empty to skip.',
+    fields: {
+      minNm: {
+        kind: 'quantity',
+        label: 'Shortest wavelength emitted',
+        short: 'shortest wavelength',
+        unit: 'nm',
+        unitLabel: 'nm',
+        step: 10,
+        min: 10,
+        help: 'Shortest wavelength the source emits.',
+      },
+      maxNm: {
+        kind: 'quantity',
+        label: 'Longest wavelength emitted',
+        short: 'longest wavelength',
+        unit: 'nm',
+        unitLabel: 'nm',
+        step: 10,
+        min: 10,
+        help: 'Longest wavelength the source emits.',
+      },
+    },
+  },
+  detector: {
+    title: 'Detector',
+    short: 'Detector',
+    note: 'A line detector at the exit plane (spectrograph use). Leave both empty for a scanning monochromator.',
+    fields: {
+      pixelPitchUm: {
+        kind: 'quantity',
+        label: 'Pixel pitch',
+        short: 'pixel pitch',
+        unit: 'um',
+        unitLabel: 'µm',
+        step: 1,
+        min: 1,
+        help: 'Centre-to-centre, along the dispersion.',
+      },
+      pixelCount: {
+        kind: 'integer',
+        label: 'Pixel count',
+        short: 'pixel count',
+        min: 1,
+        help: 'Pixels along the dispersion.',
+      },
+    },
+  },
+};
+
+/** Where a described field sits, read from the schema. */
+type Place = {
+  section: SectionId;
+  key: string;
+  /** Dotted path into the design, e.g. `slits.exitWidthUm`. */
+  path: string;
+  /** Optional inside its section (e.g. the blaze wavelength). */
+  optional: boolean;
+};
+
+export type DescribedQuantity = QuantityDescription & Place;
+export type DescribedInteger = IntegerDescription & Place;
+export type DescribedChoice = ChoiceDescription & Place;
+export type DescribedField = DescribedQuantity | DescribedInteger | DescribedChoice;
+
+export type DescribedSection = {
+  id: SectionId;
+  title: string;
+  short: string;
+  note?: string;
+  /** Sections the design may leave out altogether. */
+  optional: boolean;
+  fields: readonly DescribedField[];
+};
+
+function objectShape(schema: z.ZodType): Record<string, z.ZodType> {
+  const inner = schema instanceof z.ZodOptional ? schema.unwrap() : schema;
+  return inner instanceof z.ZodObject ? (inner.shape as Record<string, z.ZodType>) : {};
+}
+
+/** Every section and field of the design in the schema's order, with its description. */
+export const describedSections: readonly DescribedSection[] = Object.entries(designSchema.shape).map(
+  ([id, sectionSchema]) => {
+    const section = designDescription[id as SectionId];
+    const descriptions = section.fields as Record<string, QuantityDescription | IntegerDescription | ChoiceDescription>;
+    const fields = Object.entries(objectShape(sectionSchema)).map(
+      ([key, fieldSchema]) =>
+        ({
+          ...descriptions[key],
+          section: id as SectionId,
+          key,
+          path: `${id}.${key}`,
+          optional: fieldSchema.isOptional(),
+        }) as DescribedField,
+    );
+    return {
+      id: id as SectionId,
+      title: section.title,
+      short: section.short,
+      ...(section.note === undefined ? {} : { note: section.note }),
+      optional: sectionSchema.isOptional(),
+      fields,
+    };
+  },
+);
+
+export const describedFields: readonly DescribedField[] = describedSections.flatMap((section) => section.fields);
+
+export const describedFieldByPath: ReadonlyMap<string, DescribedField> = new Map(
+  describedFields.map((field) => [field.path, field]),
+);
+
+/** The mount kinds in the schema's order, with the words the editor shows for each. */
+export const layoutKindOptions: readonly { value: LayoutKind; label: string; description: string }[] = (() => {
+  const kind = designDescription.layout.fields.kind;
+  return Object.entries(kind.options).map(([value, words]) => ({ value: value as LayoutKind, ...words }));
+})();
+
+/** The editor's label for a field path, for "fix <field>" notes; the path itself when unknown. */
+export function fieldLabel(path: string): string {
+  return describedFieldByPath.get(path)?.label ?? path;
+}
+
+function tableWords(field: DescribedField): string {
+  return field.kind === 'quantity' ? `${field.short} (${field.unitLabel})` : field.short;
+}
+
+// Field keys are unique across sections (a test holds this), so a key alone names a field.
+const fieldByKey: ReadonlyMap<string, DescribedField> = new Map(describedFields.map((field) => [field.key, field]));
+
+/** A field's name in tables from its key alone: `exitWidthUm` → "exit width (µm)". */
+export function fieldTableName(key: string): string {
+  const field = fieldByKey.get(key);
+  return field ? tableWords(field) : key;
+}
+
+/** A path as compare and conflict tables name it: `slits.exitWidthUm` → "Slits: exit width (µm)"; a section → "Detector". */
+export function describeDesignPath(path: string): string {
+  const [sectionId, key] = path.split('.');
+  const section = describedSections.find((s) => s.id === sectionId);
+  const head = section?.short ?? sectionId ?? path;
+  return key ? `${head}: ${fieldTableName(key)}` : head;
+}

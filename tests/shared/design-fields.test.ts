@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest';
+import { z } from 'zod';
+import { LAYOUT_KINDS, designSchema } from '@/shared/design';
+import {
+  describeDesignPath,
+  describedFields,
+  describedSections,
+  fieldLabel,
+  fieldTableName,
+  layoutKindOptions,
+} from '@/shared/design-fields';
+
+/** Every leaf path of the zod schema, read from the schema alone. */
+function schemaPaths(): string[] {
+  return Object.entries(designSchema.shape).flatMap(([section, schema]) => {
+    const inner = schema instanceof z.ZodOptional ? schema.unwrap() : schema;
+    return Object.keys((inner as z.ZodObject).shape).map((key) => `${section}.${key}`);
+  });
+}
+
+// The words the editor and the compare tables showed before they were derived; browser tests
+// assert some of them, so a change here is a visible change.
+const words = {
+  'grating.grooveDensityPerMm': ['Groove density', 'Grating: groove density (/mm)'],
+  'grating.order': ['Diffraction order', 'Grating: order'],
+  'grating.blazeWavelengthNm': ['Blaze wavelength (first-order Littrow)', 'Grating: blaze wavelength (nm)'],
+  'grating.ruledWidthMm': ['Ruled width', 'Grating: ruled width (mm)'],
+  'grating.ruledHeightMm': ['Ruled height', 'Grating: ruled height (mm)'],
+  'layout.kind': ['Mount type', 'Layout: kind'],
+  'layout.deviationAngleDeg': ['Deviation angle', 'Layout: deviation angle (°)'],
+  'layout.collimatorFocalMm': ['Collimator focal length', 'Layout: collimator focal length (mm)'],
+  'layout.cameraFocalMm': ['Camera focal length', 'Layout: camera focal length (mm)'],
+  'layout.collimatorOffAxisDeg': ['Collimator off-axis angle', 'Layout: collimator off-axis angle (°)'],
+  'layout.cameraOffAxisDeg': ['Camera off-axis angle', 'Layout: camera off-axis angle (°)'],
+  'slits.entranceWidthUm': ['Entrance slit width', 'Slits: entrance width (µm)'],
+  'slits.exitWidthUm': ['Exit slit width', 'Slits: exit width (µm)'],
+  'slits.heightMm': ['Slit height', 'Slits: height (mm)'],
+  'range.startNm': ['Range start', 'Range: start (nm)'],
+  'range.endNm': ['Range end', 'Range: end (nm)'],
+  'source.minNm': ['Shortest wavelength emitted', 'Source: shortest wavelength (nm)'],
+  'source.maxNm': ['Longest wavelength emitted', 'Source: longest wavelength (nm)'],
+  'detector.pixelPitchUm': ['Pixel pitch', 'Detector: pixel pitch (µm)'],
+  'detector.pixelCount': ['Pixel count', 'Detector: pixel count'],
+} satisfies Record<string, [editor: string, table: string]>;
+
+describe('the described design schema', () => {
+  it('describes every field of the zod schema exactly once, in the schema’s order', () => {
+    expect(describedFields.map((field) => field.path)).toEqual(schemaPaths());
+  });
+
+  it('gives every field a label of its own and a key no other section uses', () => {
+    const labels = describedFields.map((field) => field.label);
+    expect(new Set(labels).size).toBe(labels.length);
+    const keys = describedFields.map((field) => field.key);
+    expect(new Set(keys).size).toBe(keys.length);
+  });
+
+  it.each(Object.entries(words))('names %s as before in the editor and in tables', (path, [label, table]) => {
+    expect(fieldLabel(path)).toBe(label);
+    expect(describeDesignPath(path)).toBe(table);
+  });
+
+  it('names whole sections and unknown paths in tables', () => {
+    expect(describeDesignPath('detector')).toBe('Detector');
+    expect(describeDesignPath('layout')).toBe('Layout');
+    expect(describeDesignPath('grating.nonsense')).toBe('Grating: nonsense');
+    expect(fieldLabel('grating.nonsense')).toBe('grating.nonsense');
+    expect(fieldTableName('exitWidthUm')).toBe('exit width (µm)');
+  });
+
+  it('reads which sections and fields are optional from the zod schema', () => {
+    expect(describedSections.filter((s) => s.optional).map((s) => s.id)).toEqual(['source', 'detector']);
+    expect(describedFields.filter((f) => f.optional).map((f) => f.path)).toEqual([
+      'grating.blazeWavelengthNm',
+      'layout.collimatorOffAxisDeg',
+      'layout.cameraOffAxisDeg',
+    ]);
+  });
+
+  it('offers every mount kind of the schema, in its order', () => {
+    expect(layoutKindOptions.map((option) => option.value)).toEqual([...LAYOUT_KINDS]);
+  });
+});
