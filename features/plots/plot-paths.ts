@@ -80,16 +80,6 @@ export function nearestIndex(xs: readonly number[], x: number): number {
   return xs.length === 0 ? -1 : bisectCenter(xs, x);
 }
 
-/** A read-out number with `significant` figures and no exponent for everyday magnitudes. */
-export function formatValue(value: number | null, significant = 4): string {
-  if (value === null || !Number.isFinite(value)) return '—';
-  if (value === 0) return '0';
-  const abs = Math.abs(value);
-  if (abs >= 1e5) return Math.round(value).toLocaleString('en-US');
-  if (abs >= 1e-3) return String(Number(value.toPrecision(significant)));
-  return value.toExponential(significant - 1);
-}
-
 function round(value: number): number {
   return Math.round(value * 10) / 10;
 }

@@ -1,5 +1,6 @@
 import type { WavelengthPoint } from '@/features/solver';
-import { overlapsText } from './format';
+import { formatMachineNumber } from '@/shared/format';
+import { overlapsText } from './overlaps';
 
 /** Column names carry units, like the design's fields, so a spreadsheet needs no legend. */
 export const rangeTableColumns = [
@@ -12,8 +13,9 @@ export const rangeTableColumns = [
   'overlapping_orders',
 ] as const;
 
+/** Machine-readable on purpose: a spreadsheet must read "-5" and "12345", not "−5" or "12 345". */
 function cell(value: number | null, digits = 6): string {
-  return value === null ? '' : String(Number(value.toPrecision(digits)));
+  return value === null ? '' : formatMachineNumber(value, digits);
 }
 
 /**

@@ -1,5 +1,6 @@
 import { useRouter, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
+import { formatWhen } from '@/shared/format';
 import { ApiError } from '@/features/api';
 import { Button, Card, Heading, Screen, Text, colors, fonts, radius, space, type } from '@/features/ui';
 import { appLinks } from '../links';
@@ -26,7 +27,7 @@ export function OutboxScreen() {
           <View style={styles.head}>
             <Heading level={2}>{message.subject}</Heading>
             <Text variant="small" tone="muted">
-              To {message.to} · {new Date(message.createdAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}
+              To {message.to} · {formatWhen(message.createdAt)}
             </Text>
           </View>
           <Text style={styles.body} selectable>

@@ -2,10 +2,10 @@ import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { memo, useCallback, useMemo, useRef, useState } from 'react';
 import { StyleSheet, View, type PointerEvent } from 'react-native';
 import Svg, { G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
+import { formatNumber } from '@/shared/format';
 import { Text, colors, fonts, space } from '@/features/ui';
 import {
   countRuns,
-  formatValue,
   linePath,
   nearestIndex,
   valueExtent,
@@ -143,7 +143,7 @@ export function LinePlot(props: LinePlotProps) {
     readoutNm === undefined
       ? null
       : [
-          `${formatValue(readoutNm)} nm`,
+          `${formatNumber(readoutNm)} nm`,
           readValue(series, readoutIndex),
           secondSeries ? `${secondSeries.label} ${readValue(secondSeries, readoutIndex)}` : null,
         ]
@@ -244,12 +244,12 @@ function describePlot(title: string, xs: readonly number[], series: PlotSeries, 
   const span = (s: PlotSeries) => {
     const extent = valueExtent(s.values);
     return extent
-      ? `${s.label} from ${formatValue(extent[0], 3)} to ${formatValue(extent[1], 3)}${s.unit ? ` ${s.unit}` : ''}`
+      ? `${s.label} from ${formatNumber(extent[0], 3)} to ${formatNumber(extent[1], 3)}${s.unit ? ` ${s.unit}` : ''}`
       : `no ${s.label} values`;
   };
   const gaps = series.values.filter((v) => v === null).length;
   return [
-    `${title} against wavelength, ${formatValue(xs[0] ?? 0)} to ${formatValue(xs[xs.length - 1] ?? 0)} nm`,
+    `${title} against wavelength, ${formatNumber(xs[0] ?? 0)} to ${formatNumber(xs[xs.length - 1] ?? 0)} nm`,
     span(series),
     second ? span(second) : null,
     gaps > 0 ? `${gaps} of ${xs.length} wavelengths without a value` : null,
@@ -261,7 +261,7 @@ function describePlot(title: string, xs: readonly number[], series: PlotSeries, 
 function readValue(series: PlotSeries, index: number): string {
   const value = series.values[index] ?? null;
   if (value === null) return 'unreachable';
-  const text = series.format ? series.format(value) : formatValue(value);
+  const text = series.format ? series.format(value) : formatNumber(value);
   return series.unit && !series.format ? `${text} ${series.unit}` : text;
 }
 

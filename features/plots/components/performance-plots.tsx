@@ -1,8 +1,8 @@
 import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Evaluation } from '@/features/solver';
+import { formatNumber, formatPercent } from '@/shared/format';
 import { colors, space } from '@/features/ui';
-import { formatValue } from '../plot-paths';
 import { performanceSeries, type PerformanceSeries } from '../series';
 import { LinePlot, type PlotSeries } from './line-plot';
 
@@ -78,7 +78,7 @@ const Bandpass = memo(function Bandpass({ data, ...rest }: Ready) {
         color: INK.power,
         dash: '6 3',
         tickFormat: '~s',
-        format: (v) => formatValue(v === null ? null : Math.round(v), 3),
+        format: (v) => formatNumber(v === null ? null : Math.round(v), 3),
       },
     ],
     [data],
@@ -106,7 +106,7 @@ const Efficiency = memo(function Efficiency({ data, ...rest }: Ready) {
       color: INK.efficiency,
       domain: [0, 1],
       tickFormat: '.0%',
-      format: (v) => (v === null ? '—' : `${Math.round(v * 100)} %`),
+      format: (v) => formatPercent(v),
     }),
     [data],
   );

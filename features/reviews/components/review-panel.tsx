@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { formatWhen } from '@/shared/format';
 import { reviewBodyMaxLength, reviewBodySchema, reviewDecisionLabels, type Review, type ReviewDecision } from '@/shared/reviews';
 import { can, type Role } from '@/shared/teams';
 import { ApiError } from '@/features/api';
@@ -12,13 +13,6 @@ type Props = {
   /** The caller's role in the design's team: the server decides, this only hides the form. */
   role: Role;
 };
-
-function formatWhen(iso: string): string {
-  const date = new Date(iso);
-  const day = date.toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
-  const time = date.toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });
-  return `${day}, ${time}`;
-}
 
 const badgeStyle: Record<ReviewDecision, { backgroundColor: string; color: string }> = {
   approved: { backgroundColor: colors.okSoft, color: colors.ok },

@@ -1,11 +1,11 @@
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { formatDay } from '@/shared/format';
 import { can, roleLabels, type Member, type Role } from '@/shared/teams';
 import { ApiError } from '@/features/api';
 import { useSessionQuery } from '@/features/auth';
 import { Button, Card, Heading, Screen, Text, space } from '@/features/ui';
-import { formatDay } from '../format';
 import {
   useChangeRoleMutation,
   useInvitationsQuery,

@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
+import { formatDay } from '@/shared/format';
 import { roleLabels, type Member, type Role } from '@/shared/teams';
 import { Button, Text, colors, fonts, space, useLayout } from '@/features/ui';
-import { formatDay } from '../format';
 import { RolePicker } from './role-picker';
 
 type Props = {

@@ -3,20 +3,21 @@ import { ScrollView, StyleSheet, Text, View } from 'react-native';
 import type { WavelengthPoint } from '@/features/solver';
 import { Button, Card, colors, fonts, space, type, copyText } from '@/features/ui';
 import { rangeTableCsv } from '../csv';
-import { fmt, overlapsText, percent } from '../format';
+import { formatNumber, formatPercent } from '@/shared/format';
+import { overlapsText } from '../overlaps';
 
 const columns = [
-  { title: 'λ\nnm', width: 56, cell: (p: WavelengthPoint) => fmt(p.wavelengthNm, 5) },
-  { title: 'rotation\n°', width: 60, cell: (p: WavelengthPoint) => fmt(p.gratingRotationDeg) },
-  { title: 'RLD\nnm/mm', width: 56, cell: (p: WavelengthPoint) => fmt(p.reciprocalDispersionNmPerMm, 3) },
-  { title: 'bandpass\nnm', width: 66, cell: (p: WavelengthPoint) => fmt(p.bandpassNm, 3) },
-  { title: 'R\nλ/Δλ', width: 56, cell: (p: WavelengthPoint) => fmt(p.resolvingPower, 3) },
-  { title: 'blaze\neff.', width: 48, cell: (p: WavelengthPoint) => percent(p.blazeEfficiency) },
+  { title: 'λ\nnm', width: 56, cell: (p: WavelengthPoint) => formatNumber(p.wavelengthNm, 5) },
+  { title: 'rotation\n°', width: 60, cell: (p: WavelengthPoint) => formatNumber(p.gratingRotationDeg) },
+  { title: 'RLD\nnm/mm', width: 56, cell: (p: WavelengthPoint) => formatNumber(p.reciprocalDispersionNmPerMm, 3) },
+  { title: 'bandpass\nnm', width: 66, cell: (p: WavelengthPoint) => formatNumber(p.bandpassNm, 3) },
+  { title: 'R\nλ/Δλ', width: 56, cell: (p: WavelengthPoint) => formatNumber(p.resolvingPower, 3) },
+  { title: 'blaze\neff.', width: 48, cell: (p: WavelengthPoint) => formatPercent(p.blazeEfficiency) },
   {
     title: 'other\norders',
     width: 84,
     cell: (p: WavelengthPoint) =>
-      p.overlapCount === 0 ? '—' : overlapsText(p, (o) => `${o.order}: ${fmt(o.wavelengthNm, 3)}`, ', '),
+      p.overlapCount === 0 ? '—' : overlapsText(p, (o) => `${o.order}: ${formatNumber(o.wavelengthNm, 3)}`, ', '),
   },
 ] as const;
 

@@ -2,47 +2,48 @@ import { memo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Evaluation, WavelengthPoint } from '@/features/solver';
 import { Card, Text, TextField, space } from '@/features/ui';
-import { fmt, overlapsText, percent } from '../format';
+import { formatNumber, formatPercent } from '@/shared/format';
+import { overlapsText } from '../overlaps';
 import type { SelectedReadout } from '../hooks/use-workbench';
 import { markEditStart } from '../perf-marks';
 import { FigureList, type Figure } from './figure-list';
 
 function pointFigures(p: WavelengthPoint): Figure[] {
   return [
-    { label: 'Incidence α', value: fmt(p.incidenceDeg, 5), unit: '°' },
-    { label: 'Diffraction β', value: fmt(p.diffractionDeg, 5), unit: '°' },
+    { label: 'Incidence α', value: formatNumber(p.incidenceDeg, 5), unit: '°' },
+    { label: 'Diffraction β', value: formatNumber(p.diffractionDeg, 5), unit: '°' },
     {
       label: 'Grating rotation φ',
-      value: fmt(p.gratingRotationDeg, 5),
+      value: formatNumber(p.gratingRotationDeg, 5),
       unit: '°',
       testID: 'readout-rotation',
     },
-    { label: 'Angular dispersion', value: fmt(p.angularDispersionDegPerNm), unit: '°/nm' },
-    { label: 'Linear dispersion', value: fmt(p.linearDispersionMmPerNm), unit: 'mm/nm' },
+    { label: 'Angular dispersion', value: formatNumber(p.angularDispersionDegPerNm), unit: '°/nm' },
+    { label: 'Linear dispersion', value: formatNumber(p.linearDispersionMmPerNm), unit: 'mm/nm' },
     {
       label: 'Reciprocal linear dispersion',
-      value: fmt(p.reciprocalDispersionNmPerMm),
+      value: formatNumber(p.reciprocalDispersionNmPerMm),
       unit: 'nm/mm',
       testID: 'readout-rld',
     },
-    { label: 'Anamorphic magnification', value: fmt(p.anamorphicMagnification) },
-    { label: 'Bandpass (FWHM)', value: fmt(p.bandpassNm), unit: 'nm', testID: 'readout-bandpass' },
+    { label: 'Anamorphic magnification', value: formatNumber(p.anamorphicMagnification) },
+    { label: 'Bandpass (FWHM)', value: formatNumber(p.bandpassNm), unit: 'nm', testID: 'readout-bandpass' },
     {
       label: 'Slit function',
       value: p.slitFunction
         ? p.slitFunction.shape === 'triangle'
-          ? `triangle, base ${fmt(p.slitFunction.baseNm)}`
-          : `trapezoid, base ${fmt(p.slitFunction.baseNm)}, top ${fmt(p.slitFunction.topNm)}`
+          ? `triangle, base ${formatNumber(p.slitFunction.baseNm)}`
+          : `trapezoid, base ${formatNumber(p.slitFunction.baseNm)}, top ${formatNumber(p.slitFunction.topNm)}`
         : '—',
       unit: 'nm',
     },
-    { label: 'Diffraction limit λ/(|m|N)', value: fmt(p.diffractionLimitNm), unit: 'nm' },
-    { label: 'Resolving power λ/Δλ', value: fmt(p.resolvingPower, 3), testID: 'readout-resolving-power' },
-    { label: 'Theoretical resolving power |m|N', value: fmt(p.theoreticalResolvingPower, 3) },
-    { label: 'Free spectral range λ/|m|', value: fmt(p.freeSpectralRangeNm), unit: 'nm' },
+    { label: 'Diffraction limit λ/(|m|N)', value: formatNumber(p.diffractionLimitNm), unit: 'nm' },
+    { label: 'Resolving power λ/Δλ', value: formatNumber(p.resolvingPower, 3), testID: 'readout-resolving-power' },
+    { label: 'Theoretical resolving power |m|N', value: formatNumber(p.theoreticalResolvingPower, 3) },
+    { label: 'Free spectral range λ/|m|', value: formatNumber(p.freeSpectralRangeNm), unit: 'nm' },
     {
       label: 'Blaze efficiency (scalar estimate)',
-      value: percent(p.blazeEfficiency),
+      value: formatPercent(p.blazeEfficiency),
       testID: 'readout-efficiency',
     },
     {
@@ -50,9 +51,9 @@ function pointFigures(p: WavelengthPoint): Figure[] {
       value:
         p.overlapCount === 0
           ? 'none'
-          : overlapsText(p, (o) => `m=${o.order}: ${fmt(o.wavelengthNm)} nm`, ', '),
+          : overlapsText(p, (o) => `m=${o.order}: ${formatNumber(o.wavelengthNm)} nm`, ', '),
     },
-    { label: 'Scan sensitivity', value: fmt(p.scanSensitivityNmPerArcsec, 3), unit: 'nm per arc-second' },
+    { label: 'Scan sensitivity', value: formatNumber(p.scanSensitivityNmPerArcsec, 3), unit: 'nm per arc-second' },
   ];
 }
 
@@ -62,7 +63,7 @@ function designFigures(evaluation: Evaluation): Figure[] {
   const figures: Figure[] = [
     {
       label: 'Reachable wavelengths in this mount',
-      value: `${fmt(d.reachableMinNm)} – ${fmt(d.reachableMaxNm)}`,
+      value: `${formatNumber(d.reachableMinNm)} – ${formatNumber(d.reachableMaxNm)}`,
       unit: 'nm',
     },
     {
@@ -70,19 +71,19 @@ function designFigures(evaluation: Evaluation): Figure[] {
       value:
         d.gratingRotationStartDeg === null || d.gratingRotationEndDeg === null
           ? '—'
-          : `${fmt(d.gratingRotationStartDeg)} → ${fmt(d.gratingRotationEndDeg)}`,
+          : `${formatNumber(d.gratingRotationStartDeg)} → ${formatNumber(d.gratingRotationEndDeg)}`,
       unit: '°',
     },
-    { label: 'Blaze wavelength in this mount', value: fmt(d.blazeWavelengthInMountNm), unit: 'nm' },
-    { label: 'Grooves illuminated N', value: fmt(d.illuminatedGrooves, 5) },
+    { label: 'Blaze wavelength in this mount', value: formatNumber(d.blazeWavelengthInMountNm), unit: 'nm' },
+    { label: 'Grooves illuminated N', value: formatNumber(d.illuminatedGrooves, 5) },
     {
       label: 'f-number (projected width)',
-      value: d.fNumberProjectedWidth === null ? '—' : `f/${fmt(d.fNumberProjectedWidth, 3)}`,
+      value: d.fNumberProjectedWidth === null ? '—' : `f/${formatNumber(d.fNumberProjectedWidth, 3)}`,
     },
-    { label: 'f-number (height)', value: `f/${fmt(d.fNumberHeight, 3)}` },
+    { label: 'f-number (height)', value: `f/${formatNumber(d.fNumberHeight, 3)}` },
     {
       label: 'Coma-free camera angle at centre',
-      value: fmt(a.comaFreeCameraOffAxisDeg),
+      value: formatNumber(a.comaFreeCameraOffAxisDeg),
       unit: '°',
       testID: 'readout-coma-free',
     },
@@ -91,7 +92,7 @@ function designFigures(evaluation: Evaluation): Figure[] {
       value:
         a.comaResidualAtStartDeg === null || a.comaResidualAtEndDeg === null
           ? '—'
-          : `${fmt(a.comaResidualAtStartDeg, 2)} / ${fmt(a.comaResidualAtEndDeg, 2)}`,
+          : `${formatNumber(a.comaResidualAtStartDeg, 2)} / ${formatNumber(a.comaResidualAtEndDeg, 2)}`,
       unit: '°',
     },
     {
@@ -99,23 +100,23 @@ function designFigures(evaluation: Evaluation): Figure[] {
       value:
         a.collimatorAstigmatismMm === null && a.cameraAstigmatismMm === null
           ? '—'
-          : `${fmt(a.collimatorAstigmatismMm, 3)} / ${fmt(a.cameraAstigmatismMm, 3)}`,
+          : `${formatNumber(a.collimatorAstigmatismMm, 3)} / ${formatNumber(a.cameraAstigmatismMm, 3)}`,
       unit: 'mm',
     },
   ];
   if (d.detector) {
     const det = d.detector;
     figures.push(
-      { label: 'Detector edges', value: `${fmt(det.startNm, 5)} – ${fmt(det.endNm, 5)}`, unit: 'nm' },
+      { label: 'Detector edges', value: `${formatNumber(det.startNm, 5)} – ${formatNumber(det.endNm, 5)}`, unit: 'nm' },
       {
         label: 'Detector coverage',
-        value: `${fmt(det.coverageNm)}${det.coversRange ? '' : ' (not the whole range)'}`,
+        value: `${formatNumber(det.coverageNm)}${det.coversRange ? '' : ' (not the whole range)'}`,
         unit: 'nm',
       },
-      { label: 'Per pixel at centre', value: fmt(det.nmPerPixel), unit: 'nm' },
+      { label: 'Per pixel at centre', value: formatNumber(det.nmPerPixel), unit: 'nm' },
       {
         label: 'Pixels per bandpass',
-        value: fmt(det.pixelsPerBandpass, 3),
+        value: formatNumber(det.pixelsPerBandpass, 3),
         testID: 'readout-pixels-per-bandpass',
       },
     );
@@ -161,7 +162,7 @@ export const ReadoutCard = memo(function ReadoutCard({
             <FigureList figures={pointFigures(selected.point)} />
           ) : (
             <Text tone="danger" testID="readout-unreachable">
-              {fmt(selected.wavelengthNm)} nm cannot be reached: {selected.point.reason}
+              {formatNumber(selected.wavelengthNm)} nm cannot be reached: {selected.point.reason}
             </Text>
           )
         ) : null}

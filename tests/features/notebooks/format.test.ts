@@ -1,13 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { changeTone, describePath, formatFigure, formatRelativeChange } from '../../../features/notebooks/format';
+import { changeTone, describePath, formatFigure, formatParam, formatRelativeChange } from '../../../features/notebooks/format';
 
 describe('changes between versions, in words', () => {
   it.each([
-    { relative: -0.12, text: '−12\u2009%' },
-    { relative: 0.034, text: '+3.4\u2009%' },
-    { relative: 0, text: '±0\u2009%' },
-    { relative: 0.00001, text: '±0\u2009%' },
-    { relative: 1.5, text: '+150\u2009%' },
+    { relative: -0.12, text: '−12\u202F%' },
+    { relative: 0.034, text: '+3.4\u202F%' },
+    { relative: 0, text: '±0\u202F%' },
+    { relative: 0.00001, text: '±0\u202F%' },
+    { relative: 1.5, text: '+150\u202F%' },
+    { relative: -0.00001, text: '±0\u202F%' },
+    { relative: 0.0996, text: '+10\u202F%' },
+    { relative: -123.4, text: '\u221212\u202F340\u202F%' },
     { relative: null, text: '—' },
   ] satisfies { relative: number | null; text: string }[])('$relative reads "$text"', ({ relative, text }) => {
     expect(formatRelativeChange(relative)).toBe(text);
@@ -23,6 +26,12 @@ describe('changes between versions, in words', () => {
     expect(formatFigure('bandpassAtCentreNm', 0.5234)).toBe('0.5234 nm');
     expect(formatFigure('fNumber', 4.06)).toBe('f/4.06');
     expect(formatFigure('resolvingPowerAtCentre', null)).toBe('—');
+  });
+
+  it('shows a stored parameter in full, with a true minus and grouped digits', () => {
+    expect(formatParam(-0.1 - 0.2)).toBe('\u22120.3');
+    expect(formatParam(123456.789)).toBe('123\u202F456.789');
+    expect(formatParam(null)).toBe('not set');
   });
 
   it('names parameter paths the way the editor labels them', () => {

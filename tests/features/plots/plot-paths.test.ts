@@ -3,7 +3,6 @@ import { describe, expect, it } from 'vitest';
 import {
   countRuns,
   flaggedIntervals,
-  formatValue,
   linePath,
   nearestIndex,
   valueExtent,
@@ -73,12 +72,6 @@ describe('valueExtent and nearestIndex', () => {
     expect(nearestIndex(xs, 3.6)).toBe(4);
     expect(nearestIndex(xs, -5)).toBe(0);
     expect(nearestIndex(xs, 50)).toBe(10);
-  });
-
-  it('formats read-outs with four significant figures', () => {
-    expect(formatValue(0.123456)).toBe('0.1235');
-    expect(formatValue(null)).toBe('—');
-    expect(formatValue(123456)).toBe('123,456');
   });
 });
 
