@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { parseQuantity, unitParserReady } from '@/features/solver';
 import { designSchema, type Design } from '@/shared/design';
 import { describedFieldByPath, describedFields, describedSections } from '@/shared/design-fields';
+import { formatMachineNumber } from '@/shared/format';
 import { fieldErrors, type FieldErrors } from '@/shared/validation';
 import { allFields, type FieldSpec } from './fields';
 
@@ -41,11 +42,6 @@ function read(values: FormValues, path: string): string {
   const [section, key] = path.split('.') as [keyof FormValues, string];
   const value = (values[section] as Record<string, string> | undefined)?.[key];
   return typeof value === 'string' ? value : '';
-}
-
-/** Trims binary noise and needless digits: 500.00000000000006 → "500", 0.1 + 0.2 → "0.3". */
-export function formatCanonical(value: number): string {
-  return String(Number(value.toPrecision(12)));
 }
 
 /** Parses one field's text; `undefined` for an empty optional field. */
@@ -133,7 +129,7 @@ export function designToForm(design: Design): FormValues {
     form[section.id] = Object.fromEntries(
       section.fields.map((field) => {
         const value = stored?.[field.key];
-        return [field.key, typeof value === 'number' ? formatCanonical(value) : typeof value === 'string' ? value : ''];
+        return [field.key, typeof value === 'number' ? formatMachineNumber(value) : typeof value === 'string' ? value : ''];
       }),
     );
   }
@@ -156,7 +152,7 @@ export function stepValue(field: FieldSpec, text: string, direction: 1 | -1): st
     const value = current ?? list[0] ?? 0;
     const next =
       direction > 0 ? list.find((v) => v > value + 1e-9) : [...list].reverse().find((v) => v < value - 1e-9);
-    return formatCanonical(next ?? value);
+    return formatMachineNumber(next ?? value);
   }
   const step = field.step as number;
   const base = current ?? field.min ?? 0;
@@ -165,14 +161,14 @@ export function stepValue(field: FieldSpec, text: string, direction: 1 | -1): st
     direction > 0
       ? Math.floor(base / step + 1e-9) * step + step
       : Math.ceil(base / step - 1e-9) * step - step;
-  return formatCanonical(Math.max(field.min ?? -Infinity, snapped));
+  return formatMachineNumber(Math.max(field.min ?? -Infinity, snapped));
 }
 
 /** The canonical reading of a field's text when it differs from what was typed ("0.5 m" → "500"). */
 export function canonicalText(field: FieldSpec, text: string): string | null {
   const parsed = parseField(field, text);
   if (!parsed.ok || parsed.value === undefined) return null;
-  const canonical = formatCanonical(parsed.value);
+  const canonical = formatMachineNumber(parsed.value);
   return canonical === text.trim() ? null : canonical;
 }
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateDesign } from '../../../features/solver';
 import { rangeTableColumns, rangeTableCsv } from '../../../features/workbench/csv';
-import { exampleDesign } from '../../../shared/design';
+import { exampleDesign, type Design } from '../../../shared/design';
 
 /** Minimal RFC 4180 reader, enough for the table: quoted fields may hold commas. */
 function parseCsv(text: string): string[][] {
@@ -40,5 +40,15 @@ describe('the range table as CSV', () => {
     const rows = parseCsv(rangeTableCsv(points));
     expect(rows[1]).toHaveLength(rangeTableColumns.length);
     expect(rows[1]?.[6]).toContain('m=2 300 nm');
+  });
+
+  it('writes numbers for a program, not for people: hyphen-minus and no digit grouping', () => {
+    // Order −1 turns the grating the other way, so the rotation column is negative.
+    const mirrored: Design = { ...exampleDesign, grating: { ...exampleDesign.grating, order: -1 } };
+    const { points } = evaluateDesign(mirrored, { wavelengthsNm: [600] });
+    const rows = parseCsv(rangeTableCsv(points));
+    expect(rows[1]?.[1]).toMatch(/^-\d/);
+    expect(rows[1]?.[4]).toMatch(/^\d+$/);
+    expect(rangeTableCsv(points)).not.toMatch(/[\u2212\u2009\u202F]/);
   });
 });
