@@ -1,24 +1,10 @@
 import type { FigureChange, FigureKey, ParameterChange, VersionSummary } from '../../shared/notebooks';
 import { figureKeys } from '../../shared/notebooks';
+import { designChanges } from '../../shared/design-diff';
 
-function isPlainObject(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
-
-/**
- * Every leaf that differs between two designs, as dotted paths in a stable order (the order of
- * keys in `before`, then keys only in `after`). A section present on one side only is reported
- * leaf by leaf, with null on the missing side, so the client highlights fields, not sections.
- */
-export function changedParameters(before: unknown, after: unknown, prefix = ''): ParameterChange[] {
-  if (isPlainObject(before) || isPlainObject(after)) {
-    const a = isPlainObject(before) ? before : {};
-    const b = isPlainObject(after) ? after : {};
-    const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
-    return keys.flatMap((key) => changedParameters(a[key], b[key], prefix ? `${prefix}.${key}` : key));
-  }
-  if (Object.is(before, after)) return [];
-  return [{ path: prefix, before: before ?? null, after: after ?? null }];
+/** The compare answer's parameter changes: the one design diff, shared with the client. */
+export function changedParameters(before: unknown, after: unknown): ParameterChange[] {
+  return designChanges(before, after);
 }
 
 /** `(after − before) / |before|`; null when either side is missing or before is 0. */

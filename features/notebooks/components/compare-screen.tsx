@@ -1,6 +1,7 @@
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { useCallback, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import { flattenDesign } from '@/shared/design-diff';
 import type { CompareResponse, Version } from '@/shared/notebooks';
 import { LinePlot, type PlotSeries } from '@/features/plots';
 import { OverlaySketch } from '@/features/sketch';
@@ -15,7 +16,6 @@ import {
   formatRelativeChange,
 } from '../format';
 import { useCompareQuery, useNotebookQuery } from '../queries';
-import { flattenDesign } from '../rebase';
 import { VersionPicker } from './version-picker';
 
 const BEFORE = { color: colors.inkMuted, dash: '6 4' };

@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Design } from '@/shared/design';
 import type { Version } from '@/shared/notebooks';
 import { Button, Card, Text, colors, radius, space } from '@/features/ui';
-import { describePath, formatParam, formatWhen } from '../format';
+import { formatParam, formatWhen } from '../format';
 import { conflictRows } from '../rebase';
 
 type Props = {
@@ -50,7 +50,7 @@ export function ConflictCard({ latest, baseVersion, mine, myNotes, busy, onReapp
           rows.map((row) => (
             <View key={row.path} role="row" style={styles.row} testID={`conflict-${row.path}`}>
               <Text role="cell" variant="small" style={styles.path}>
-                {describePath(row.path)}
+                {row.label}
               </Text>
               <Text role="cell" variant="number" style={styles.value}>
                 {formatParam(row.latest)}

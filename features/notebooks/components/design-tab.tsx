@@ -1,6 +1,7 @@
 import { useRouter, type Href } from 'expo-router';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { changedPaths } from '@/shared/design-diff';
 import { versionMessageSchema, type Notebook, type Version } from '@/shared/notebooks';
 import { can, roleLabels } from '@/shared/teams';
 import { ApiError } from '@/features/api';
@@ -10,7 +11,7 @@ import { draftFromDesign, formToDesign, Workbench, type Draft, type FormResult }
 import { clearEdits, loadEdits, notebookDraftKey, saveEdits, type StoredEdits } from '../draft-store';
 import { formatWhen } from '../format';
 import { useSaveVersionMutation, useVersionQuery, VersionConflict } from '../queries';
-import { changedPaths, reapplyEdits } from '../rebase';
+import { reapplyEdits } from '../rebase';
 import { ConflictCard } from './conflict-card';
 import { MarkdownView } from './markdown-view';
 import { SaveCard } from './save-card';

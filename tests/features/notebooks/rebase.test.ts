@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Design } from '../../../shared/design';
-import { changedPaths, conflictRows, reapplyEdits } from '../../../features/notebooks/rebase';
+import { conflictRows, reapplyEdits } from '../../../features/notebooks/rebase';
 
 // Invented demo design.
 const base: Design = {
@@ -16,10 +16,6 @@ const edit = (changes: (d: Design) => void): Design => {
 };
 
 describe('rebasing unsaved edits on a newer version', () => {
-  it('lists the paths that differ', () => {
-    expect(changedPaths(base, edit((d) => (d.slits.exitWidthUm = 25)))).toEqual(['slits.exitWidthUm']);
-  });
-
   it('keeps the newer version’s changes and re-applies mine where we touched different fields', () => {
     const mine = edit((d) => (d.slits.exitWidthUm = 25));
     const latest = edit((d) => (d.grating.grooveDensityPerMm = 1800));
@@ -52,8 +48,8 @@ describe('rebasing unsaved edits on a newer version', () => {
   it('shows latest and mine side by side for every differing field', () => {
     const rows = conflictRows(edit((d) => (d.slits.heightMm = 2)), edit((d) => (d.range.startNm = 400)));
     expect(rows).toEqual([
-      { path: 'range.startNm', latest: 400, mine: 380 },
-      { path: 'slits.heightMm', latest: 4, mine: 2 },
+      { path: 'range.startNm', label: 'Range: start (nm)', latest: 400, mine: 380 },
+      { path: 'slits.heightMm', label: 'Slits: height (mm)', latest: 4, mine: 2 },
     ]);
   });
 });

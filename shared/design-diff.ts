@@ -1,0 +1,75 @@
+import type { Design } from './design';
+import { describeDesignPath } from './design-fields';
+
+/**
+ * The one design diff: what the compare answer lists, what the editor calls unsaved, and what a
+ * rebase re-applies. Pure, and shared by the server and the client so they cannot disagree.
+ */
+
+/** One value that differs between two designs; a side without it holds null. */
+export type DesignChange = { path: string; before: unknown; after: unknown };
+
+type Flat = Record<string, unknown>;
+
+function isPlainObject(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+function walk(before: unknown, after: unknown, prefix: string): DesignChange[] {
+  if (isPlainObject(before) || isPlainObject(after)) {
+    const a = isPlainObject(before) ? before : {};
+    const b = isPlainObject(after) ? after : {};
+    const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
+    return keys.flatMap((key) => walk(a[key], b[key], prefix ? `${prefix}.${key}` : key));
+  }
+  if (Object.is(before ?? null, after ?? null)) return [];
+  return [{ path: prefix, before: before ?? null, after: after ?? null }];
+}
+
+/**
+ * Every leaf that differs between two designs, as dotted paths in a stable order (the order of
+ * keys in `before`, then keys only in `after`). A section present on one side only is reported
+ * leaf by leaf, with null on the missing side, so readers highlight fields, not sections.
+ * Values compare with `Object.is`; an absent value and an undefined one are the same.
+ */
+export function designChanges(before: unknown, after: unknown): DesignChange[] {
+  return walk(before, after, '');
+}
+
+/** Dotted paths whose values differ between two designs, sorted. */
+export function changedPaths(before: Design, after: Design): string[] {
+  return designChanges(before, after)
+    .map((change) => change.path)
+    .sort();
+}
+
+/** Every differing value with its name as the compare and conflict tables show it, sorted by path. */
+export function describedChanges(before: Design, after: Design): (DesignChange & { label: string })[] {
+  return designChanges(before, after)
+    .sort((x, y) => (x.path < y.path ? -1 : x.path > y.path ? 1 : 0))
+    .map((change) => ({ ...change, label: describeDesignPath(change.path) }));
+}
+
+/** `{ slits: { exitWidthUm: 50 } }` → `{ 'slits.exitWidthUm': 50 }`; absent optional values add nothing. */
+export function flattenDesign(design: Design): Flat {
+  const flat: Flat = {};
+  const visit = (value: unknown, prefix: string) => {
+    if (isPlainObject(value)) {
+      for (const [key, inner] of Object.entries(value)) visit(inner, prefix ? `${prefix}.${key}` : key);
+    } else if (value !== undefined && value !== null) {
+      flat[prefix] = value;
+    }
+  };
+  visit(design, '');
+  return flat;
+}
+
+/** The inverse of `flattenDesign`. */
+export function unflattenDesign(flat: Flat): Design {
+  const design: Record<string, Record<string, unknown>> = {};
+  for (const [path, value] of Object.entries(flat)) {
+    const [section, field] = path.split('.') as [string, string];
+    (design[section] ??= {})[field] = value;
+  }
+  return design as unknown as Design;
+}
