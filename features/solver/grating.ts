@@ -13,7 +13,8 @@
  *   scan sensitivity) are reported as positive numbers; angles keep their sign.
  */
 
-import { GRAZING_MARGIN_RAD, HALF_PI, NM_PER_MM, formatNumber, radToDeg } from './math';
+import { formatNumber } from '../../shared/format';
+import { GRAZING_MARGIN_RAD, HALF_PI, NM_PER_MM, radToDeg } from './math';
 import { diffractionRad, incidenceRad } from './mount';
 
 /** Groove spacing `d = 1 / grooveDensity`, in nm. */

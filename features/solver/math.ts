@@ -28,12 +28,3 @@ export function sinc(x: number): number {
   // Below 1e-8 the first Taylor term x²/6 is under double precision; returning 1 avoids 0/0.
   return Math.abs(x) < 1e-8 ? 1 : Math.sin(x) / x;
 }
-
-/** Compact number for messages: 4 significant figures, no exponent for everyday magnitudes. */
-export function formatNumber(value: number, significant = 4): string {
-  if (!Number.isFinite(value)) return String(value);
-  if (value === 0) return '0';
-  const abs = Math.abs(value);
-  if (abs >= 1e-3 && abs < 1e7) return String(Number(value.toPrecision(significant)));
-  return value.toExponential(significant - 1);
-}

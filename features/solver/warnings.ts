@@ -4,7 +4,7 @@
  * readable list rather than a thousand lines.
  */
 
-import { formatNumber } from './math';
+import { formatNumber } from '../../shared/format';
 import type { DesignSummary, Warning, WavelengthPoint } from './results';
 
 /** Beyond this angle from the grating normal, efficiency and imaging degrade fast (common practice). */
