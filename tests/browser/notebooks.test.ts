@@ -125,7 +125,7 @@ describe('design notebooks in Chromium', () => {
     await page.getByTestId('changed-slits.exitWidthUm').waitFor();
     await expect
       .poll(() => page.getByTestId('change-bandpassAtCentreNm').textContent())
-      .toMatch(/^−\d+(\.\d)?\u2009%$/);
+      .toMatch(/^−\d+(\.\d)?\u202F%$/);
     // Both versions on one drawing: the earlier one's grating lies beneath the later one's.
     const overlay = page.getByTestId('compare-sketch-overlay');
     await overlay.waitFor();
