@@ -334,7 +334,10 @@ function objectShape(schema: z.ZodType): Record<string, z.ZodType> {
 export const describedSections: readonly DescribedSection[] = Object.entries(designSchema.shape).map(
   ([id, sectionSchema]) => {
     const section = designDescription[id as SectionId];
-    const descriptions = section.fields as Record<string, QuantityDescription | IntegerDescription | ChoiceDescription>;
+    const descriptions = section.fields as Record<
+      string,
+      QuantityDescription | IntegerDescription | ChoiceDescription
+    >;
     const fields = Object.entries(objectShape(sectionSchema)).map(
       ([key, fieldSchema]) =>
         ({
@@ -356,17 +359,20 @@ export const describedSections: readonly DescribedSection[] = Object.entries(des
   },
 );
 
-export const describedFields: readonly DescribedField[] = describedSections.flatMap((section) => section.fields);
+export const describedFields: readonly DescribedField[] = describedSections.flatMap(
+  (section) => section.fields,
+);
 
 export const describedFieldByPath: ReadonlyMap<string, DescribedField> = new Map(
   describedFields.map((field) => [field.path, field]),
 );
 
 /** The mount kinds in the schema's order, with the words the editor shows for each. */
-export const layoutKindOptions: readonly { value: LayoutKind; label: string; description: string }[] = (() => {
-  const kind = designDescription.layout.fields.kind;
-  return Object.entries(kind.options).map(([value, words]) => ({ value: value as LayoutKind, ...words }));
-})();
+export const layoutKindOptions: readonly { value: LayoutKind; label: string; description: string }[] =
+  (() => {
+    const kind = designDescription.layout.fields.kind;
+    return Object.entries(kind.options).map(([value, words]) => ({ value: value as LayoutKind, ...words }));
+  })();
 
 /** The editor's label for a field path, for "fix <field>" notes; the path itself when unknown. */
 export function fieldLabel(path: string): string {
@@ -378,7 +384,9 @@ function tableWords(field: DescribedField): string {
 }
 
 // Field keys are unique across sections (a test holds this), so a key alone names a field.
-const fieldByKey: ReadonlyMap<string, DescribedField> = new Map(describedFields.map((field) => [field.key, field]));
+const fieldByKey: ReadonlyMap<string, DescribedField> = new Map(
+  describedFields.map((field) => [field.key, field]),
+);
 
 /** A field's name in tables from its key alone: `exitWidthUm` → "exit width (µm)". */
 export function fieldTableName(key: string): string {

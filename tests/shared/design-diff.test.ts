@@ -10,7 +10,13 @@ import {
 
 // Invented demo design.
 const base: Design = {
-  grating: { grooveDensityPerMm: 1200, order: 1, blazeWavelengthNm: 500, ruledWidthMm: 25, ruledHeightMm: 25 },
+  grating: {
+    grooveDensityPerMm: 1200,
+    order: 1,
+    blazeWavelengthNm: 500,
+    ruledWidthMm: 25,
+    ruledHeightMm: 25,
+  },
   layout: { kind: 'czerny-turner', deviationAngleDeg: 24, collimatorFocalMm: 150, cameraFocalMm: 150 },
   slits: { entranceWidthUm: 50, exitWidthUm: 50, heightMm: 4 },
   range: { startNm: 380, endNm: 780 },

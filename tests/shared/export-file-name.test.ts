@@ -8,9 +8,12 @@ describe('the export file name', () => {
     { title: '  UV   scanner  ', expected: 'uv-scanner.blazebook.json' },
     { title: 'Ｆｕｌｌｗｉｄｔｈ 1200', expected: 'fullwidth-1200.blazebook.json' },
     { title: 'near_IR - v2', expected: 'near_ir---v2.blazebook.json' },
-  ] satisfies { title: string; expected: string }[])('turns "$title" into $expected', ({ title, expected }) => {
-    expect(exportFileName(title)).toBe(expected);
-  });
+  ] satisfies { title: string; expected: string }[])(
+    'turns "$title" into $expected',
+    ({ title, expected }) => {
+      expect(exportFileName(title)).toBe(expected);
+    },
+  );
 
   it('never carries a path: slashes, dots and backslashes are dropped', () => {
     expect(exportFileName('../../etc/passwd')).toBe('etcpasswd.blazebook.json');

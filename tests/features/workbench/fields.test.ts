@@ -39,7 +39,9 @@ describe('the editor fields and form, derived from the described schema', () => 
   it('stores a draft’s form with every field and refuses an unknown mount kind', () => {
     const form = designToForm(exampleDesign);
     expect(formValuesSchema.parse(form)).toEqual(form);
-    expect(formValuesSchema.safeParse({ ...form, layout: { ...form.layout, kind: 'rowland' } }).success).toBe(false);
+    expect(formValuesSchema.safeParse({ ...form, layout: { ...form.layout, kind: 'rowland' } }).success).toBe(
+      false,
+    );
     const { exitWidthUm: _exit, ...slits } = form.slits;
     expect(formValuesSchema.safeParse({ ...form, slits }).success).toBe(false);
   });
@@ -47,6 +49,8 @@ describe('the editor fields and form, derived from the described schema', () => 
   it('says field names inside schema messages the way the editor labels them', () => {
     const form = designToForm(exampleDesign);
     const result = formToDesign({ ...form, source: { minNm: '900', maxNm: '400' } });
-    expect(result.ok ? null : result.fields['source.maxNm']).toBe('must be greater than the shortest wavelength emitted');
+    expect(result.ok ? null : result.fields['source.maxNm']).toBe(
+      'must be greater than the shortest wavelength emitted',
+    );
   });
 });
