@@ -1,0 +1,31 @@
+import type { Design } from '../../shared/design';
+import { formatDeg, formatNm, formatNumberShort } from './sketch-format';
+import type { SketchGeometry } from './sketch-types';
+
+/** One line naming the mount and its main figures, for screen readers and file titles. */
+export function describeSketch(geometry: SketchGeometry, design: Design): string {
+  const name =
+    geometry.kind === 'czerny-turner'
+      ? 'Czerny–Turner'
+      : geometry.kind === 'littrow'
+        ? 'Littrow'
+        : 'Ebert–Fastie';
+  const { grating, layout } = design;
+  const parts = [
+    `${name} layout to scale`,
+    `${formatNumberShort(grating.grooveDensityPerMm)} grooves/mm grating ${formatNumberShort(grating.ruledWidthMm)} mm wide`,
+    geometry.kind === 'littrow'
+      ? `lens of ${formatNumberShort(layout.collimatorFocalMm)} mm focal length`
+      : `collimator ${formatNumberShort(layout.collimatorFocalMm)} mm, camera ${formatNumberShort(layout.cameraFocalMm)} mm`,
+    geometry.settingReachable
+      ? `grating turned ${formatDeg(geometry.rotationDeg)} for ${formatNm(geometry.settingNm)}`
+      : `no grating angle delivers ${formatNm(geometry.settingNm)}`,
+  ];
+  if (geometry.rays.length > 0) {
+    parts.push(`rays drawn for ${geometry.rays.map((r) => formatNm(r.wavelengthNm)).join(', ')}`);
+  }
+  if (geometry.unreachable.length > 0) {
+    parts.push(`not drawn: ${geometry.unreachable.map((r) => formatNm(r.wavelengthNm)).join(', ')}`);
+  }
+  return `${parts.join('; ')}.`;
+}
