@@ -1,75 +1,66 @@
-import { clearDraft, loadDraft, saveDraft, type Draft } from '@/features/workbench';
+import { z } from 'zod';
+import { persistedState } from '@/features/ui/persisted-state';
+import { draftSchema } from '@/features/workbench';
 
 /**
- * Unsaved edits of a notebook, one per user and design, kept by the workbench's draft storage.
- * Beside the draft we keep the version it was started from, so a reload after someone else saved
- * still knows to offer a rebase instead of saving on top blindly.
+ * Unsaved edits of a notebook, one entry per user and design. Beside the draft we keep the
+ * version it was started from, so a reload after someone else saved still knows to offer a
+ * rebase instead of saving on top blindly.
  */
 export function notebookDraftKey(userId: string, designId: string): string {
-  return `blazebook.notebook.v1.${userId}.${designId}`;
+  return `blazebook.notebook-edits.${userId}.${designId}`;
 }
 
-const memory = new Map<string, string>();
-const store = {
-  read(key: string): string | null {
-    try {
-      return globalThis.localStorage?.getItem(key) ?? memory.get(key) ?? null;
-    } catch {
-      return memory.get(key) ?? null;
-    }
-  },
-  write(key: string, value: string) {
-    memory.set(key, value);
-    try {
-      globalThis.localStorage?.setItem(key, value);
-    } catch {
-      // Private mode or a full store: the in-memory copy still covers this session.
-    }
-  },
-  remove(key: string) {
-    memory.delete(key);
-    try {
-      globalThis.localStorage?.removeItem(key);
-    } catch {
-      // Nothing to do: the entry could not have been written either.
-    }
-  },
-};
+/** Releases before one entry per notebook kept the draft and the rest under two keys. */
+function legacyKeys(key: string): { draft: string; meta: string } | null {
+  const ids = key.slice('blazebook.notebook-edits.'.length);
+  if (ids === key || ids === '') return null;
+  const draft = `blazebook.notebook.v1.${ids}`;
+  return { draft, meta: `${draft}.meta` };
+}
 
-export type StoredEdits = { draft: Draft; baseVersion: number; notes: string; message: string };
+const storedEditsSchema = z.object({
+  draft: draftSchema,
+  baseVersion: z.number().int().min(1),
+  notes: z.string(),
+  message: z.string(),
+});
 
-function readMeta(key: string): Omit<StoredEdits, 'draft'> | null {
-  try {
-    const meta = JSON.parse(store.read(`${key}.meta`) ?? 'null') as Partial<StoredEdits> | null;
-    if (!meta || !Number.isInteger(meta.baseVersion) || (meta.baseVersion ?? 0) < 1) return null;
+export type StoredEdits = z.infer<typeof storedEditsSchema>;
+
+const legacyMetaSchema = z.object({
+  baseVersion: z.number().int().min(1),
+  notes: z.string().catch(''),
+  message: z.string().catch(''),
+});
+
+const edits = persistedState({
+  version: 1,
+  schema: storedEditsSchema,
+  legacy: (key, readOld) => {
+    const old = legacyKeys(key);
+    if (!old) return null;
+    const draft = readOld(old.draft);
+    const meta = readOld(old.meta);
+    if (draft === undefined && meta === undefined) return null;
+    // Edits made on no known version were never offered back; they stay dropped.
+    const parsedMeta = legacyMetaSchema.safeParse(meta);
     return {
-      baseVersion: meta.baseVersion as number,
-      notes: typeof meta.notes === 'string' ? meta.notes : '',
-      message: typeof meta.message === 'string' ? meta.message : '',
+      value: parsedMeta.success ? { draft, ...parsedMeta.data } : null,
+      keys: [old.draft, old.meta],
     };
-  } catch {
-    return null;
-  }
-}
+  },
+});
 
-/** The kept edits, or null when there are none (or they were made on no known version). */
+/** The kept edits, or null when there are none (or they cannot be read). */
 export function loadEdits(key: string): StoredEdits | null {
-  const meta = readMeta(key);
-  if (!meta) return null;
-  let found = true;
-  const draft = loadDraft(key, () => {
-    found = false;
-    return null as unknown as Draft;
-  });
-  return found ? { draft, ...meta } : null;
+  return edits.read(key);
 }
 
-export function saveEdits(key: string, edits: StoredEdits): void {
-  saveDraft(edits.draft, key);
-  store.write(`${key}.meta`, JSON.stringify({ baseVersion: edits.baseVersion, notes: edits.notes, message: edits.message }));
+export function saveEdits(key: string, value: StoredEdits): void {
+  edits.write(key, value);
 }
 
 export function clearEdits(key: string): void {
-  clearDraft(key);
-  store.remove(`${key}.meta`);
+  edits.remove(key);
 }

@@ -1,15 +1,19 @@
 import { z } from 'zod';
 import type { Design } from '@/shared/design';
+// Not the ui index: that would pull React Native components into the unit tests.
+import { persistedState } from '@/features/ui/persisted-state';
 import { designToForm, formValuesSchema } from './form-model';
 import { defaultPreset } from './presets';
-import { draftStorage } from './storage';
 
-/** Where the scratch design lives until notebooks exist; versioned so a format change can migrate. */
-export const DRAFT_KEY = 'blazebook.scratch-design.v1';
+/** Where the workbench keeps its scratch design; the entry carries its own version. */
+export const SCRATCH_KEY = 'blazebook.scratch-design';
+/** Where releases before the versioned entries kept it, as a bare draft. */
+const LEGACY_SCRATCH_KEY = 'blazebook.scratch-design.v1';
 
 const text = z.string().max(200);
 
-const draftSchema = z.object({
+/** One workbench draft: what notebooks keep beside their own fields, too. */
+export const draftSchema = z.object({
   values: formValuesSchema,
   /** The wavelength the summary card shows, as typed. */
   selectedNm: text,
@@ -31,25 +35,20 @@ export function initialDraft(): Draft {
   return draftFromDesign(defaultPreset.design, defaultPreset.id);
 }
 
-/**
- * The draft kept under `key`, or `fallback` when there is none or it cannot be read. Notebooks
- * keep one per user and design, so a reload or a lost connection loses no unsaved edit.
- */
-export function loadDraft(key: string = DRAFT_KEY, fallback: () => Draft = initialDraft): Draft {
-  const raw = draftStorage.read(key);
-  if (!raw) return fallback();
-  try {
-    const parsed = draftSchema.safeParse(JSON.parse(raw));
-    return parsed.success ? parsed.data : fallback();
-  } catch {
-    return fallback();
-  }
+const scratch = persistedState({
+  version: 1,
+  schema: draftSchema,
+  legacy: (_key, readOld) => {
+    const value = readOld(LEGACY_SCRATCH_KEY);
+    return value === undefined ? null : { value, keys: [LEGACY_SCRATCH_KEY] };
+  },
+});
+
+/** The scratch design as it was left, or the default preset when there is none (or it is unreadable). */
+export function loadDraft(): Draft {
+  return scratch.read(SCRATCH_KEY) ?? initialDraft();
 }
 
-export function saveDraft(draft: Draft, key: string = DRAFT_KEY): boolean {
-  return draftStorage.write(key, JSON.stringify(draft));
-}
-
-export function clearDraft(key: string): void {
-  draftStorage.remove(key);
+export function saveDraft(draft: Draft): boolean {
+  return scratch.write(SCRATCH_KEY, draft);
 }

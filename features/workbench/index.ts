@@ -1,6 +1,6 @@
 export { Workbench, type WorkbenchProps } from './components/workbench';
 export { WorkbenchScreen } from './components/workbench-screen';
-export { clearDraft, draftFromDesign, loadDraft, saveDraft, type Draft } from './draft';
+export { draftFromDesign, draftSchema, loadDraft, saveDraft, type Draft } from './draft';
 export { designToForm, formToDesign, type FormResult, type FormValues } from './form-model';
 export { presets, type Preset } from './presets';
 export { rangeTableCsv } from './csv';

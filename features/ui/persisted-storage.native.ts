@@ -1,10 +1,10 @@
 /**
- * Native builds keep the scratch design for the session only: the product ships on the web
- * target first, and no persistent store is bundled for native yet.
+ * Native builds keep persisted state for the session only: the product ships on the web target
+ * first, and no persistent store is bundled for native yet.
  */
 const memory = new Map<string, string>();
 
-export const draftStorage = {
+export const persistedStorage = {
   read(key: string): string | null {
     return memory.get(key) ?? null;
   },
