@@ -1,17 +1,20 @@
 import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { DatabaseHandle } from '../db/client';
-import { createAuth, originCheck, type RateLimits } from './auth/index';
+import { apiRoutes } from '../shared/contract/index';
+import { createAuth, originCheck, signedIn, type RateLimits } from './auth/index';
 import type { Clock } from './clock';
-import { devRouter } from './dev/router';
-import { healthRouter } from './health/router';
+import { outboxRoute } from './dev/router';
+import { healthRoute } from './health/router';
+import { mountContract } from './http/contract';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
 import { createNotebooks } from './notebooks/index';
 import { createReviews } from './reviews/index';
-import { solveRouter } from './solve/router';
+import { openApiRoute } from './openapi';
+import { solveRoute } from './solve/router';
 import { createTeams } from './teams/index';
 
 export type AppDeps = {
@@ -37,11 +40,11 @@ export type AppDeps = {
 };
 
 /**
- * State-changing routes that skip the Origin check. `POST /api/solve` is a pure computation: it
- * reads no cookie and writes nothing, so a forged cross-site call gains nothing, and lab scripts
- * (curl, Python) send no Origin.
+ * State-changing routes that skip the Origin check, as the contract marks them: `POST /api/solve`
+ * is a pure computation that reads no cookie and writes nothing, so a forged cross-site call gains
+ * nothing, and lab scripts (curl, Python) send no Origin.
  */
-export const originExempt = ['POST /api/solve'] as const;
+export const originExempt = apiRoutes.filter((entry) => entry.meta.originExempt).map((entry) => `${entry.method} /api${entry.path}`);
 
 export const bodyLimit = '1mb';
 
@@ -98,16 +101,26 @@ export function createApp(deps: AppDeps) {
     rateLimits: deps.rateLimits,
   });
   apiRouter.use(auth.sessions);
-  apiRouter.use(healthRouter(deps));
-  apiRouter.use(solveRouter(deps.rateLimits));
-  apiRouter.use(auth.router);
   const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
-  apiRouter.use(teams.router);
-  apiRouter.use(createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock }).router);
-  apiRouter.use(createReviews({ db: deps.database.db, clock: deps.clock }).router);
-  if (deps.nodeEnv !== 'production') {
-    apiRouter.use(devRouter(createOutboxRepository(deps.database.db, deps.clock), { trustedOrigin: deps.trustedOrigin }));
-  }
+  const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock });
+  const reviews = createReviews({ db: deps.database.db, clock: deps.clock });
+  apiRouter.use(
+    mountContract(
+      {
+        accounts: auth.router,
+        teams: teams.router,
+        notebooks: notebooks.router,
+        reviews: reviews.router,
+        platform: {
+          solve: solveRoute(deps.rateLimits),
+          health: healthRoute(deps),
+          openapi: openApiRoute(deps.version),
+          outbox: deps.nodeEnv === 'production' ? null : outboxRoute(createOutboxRepository(deps.database.db, deps.clock), { trustedOrigin: deps.trustedOrigin }),
+        },
+      },
+      { signedIn },
+    ),
+  );
   apiRouter.use(apiNotFound);
   app.use('/api', apiRouter);
 

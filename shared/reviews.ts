@@ -47,7 +47,3 @@ export const reviewListResponseSchema = z.object({ reviews: z.array(reviewSchema
 export const reviewResponseSchema = z.object({ review: reviewSchema });
 
 export const reviewParamsSchema = versionParamsSchema;
-
-export const reviewPaths = {
-  reviews: (id: string, n: number) => `/api/designs/${encodeURIComponent(id)}/versions/${n}/reviews`,
-} as const;

@@ -1,2 +1,2 @@
-export { api, ApiError } from './client';
+export { ApiError, call, groupKey, routeKey, urlFor, withParams } from './client';
 export { createQueryClient, staleTime } from './query-client';

@@ -10,4 +10,4 @@ export { FormField } from './components/form-field';
 export { TextLink } from './components/text-link';
 export { useApiForm } from './hooks/use-api-form';
 export { safeNextPath } from './next-path';
-export { authKeys, useResendVerificationMutation, useSessionQuery, useSignOutMutation } from './queries';
+export { useResendVerificationMutation, useSessionQuery, useSignOutMutation } from './queries';

@@ -1,1 +1,1 @@
-export { healthKeys, useHealthQuery } from './queries';
+export { useHealthQuery } from './queries';

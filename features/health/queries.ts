@@ -1,15 +1,13 @@
 import { useQuery } from '@tanstack/react-query';
-import { healthSchema } from '@/shared/health';
-import { api, staleTime } from '@/features/api';
+import { apiContract } from '@/shared/contract';
+import { call, routeKey, staleTime } from '@/features/api';
 
-export const healthKeys = {
-  all: ['health'] as const,
-};
+const health = apiContract.platform.health;
 
 export function useHealthQuery() {
   return useQuery({
-    queryKey: healthKeys.all,
-    queryFn: ({ signal }) => api('/health', healthSchema, { signal }),
+    queryKey: routeKey(health, {}),
+    queryFn: ({ signal }) => call(health, {}, { signal }),
     staleTime: staleTime.live,
   });
 }

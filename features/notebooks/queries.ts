@@ -1,22 +1,8 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
+import { apiContract } from '@/shared/contract';
 import {
-  compareResponseSchema,
-  createShareLinkResponseSchema,
-  designListResponseSchema,
-  designResponseSchema,
-  importResponseSchema,
-  notebookFileSchema,
-  notebookPaths,
-  notebookResponseSchema,
-  notebookWithVersionResponseSchema,
-  saveVersionResponseSchema,
-  shareLinkListResponseSchema,
-  sharedVersionResponseSchema,
   versionConflictCode,
   versionConflictDetailsSchema,
-  versionListResponseSchema,
-  versionResponseSchema,
   type CloneRequest,
   type CreateDesignRequest,
   type CreateShareLinkRequest,
@@ -26,36 +12,17 @@ import {
   type UpdateDesignRequest,
   type Version,
 } from '@/shared/notebooks';
-import { api, ApiError, staleTime } from '@/features/api';
+import { ApiError, call, routeKey, staleTime, withParams } from '@/features/api';
 
-export const notebookKeys = {
-  all: ['notebooks'] as const,
-  lists: () => [...notebookKeys.all, 'list'] as const,
-  list: (teamId: string, query: ListDesignsQuery) => [...notebookKeys.lists(), teamId, query] as const,
-  detail: (id: string) => [...notebookKeys.all, 'detail', id] as const,
-  versions: (id: string) => [...notebookKeys.detail(id), 'versions'] as const,
-  version: (id: string, n: number) => [...notebookKeys.detail(id), 'version', n] as const,
-  compare: (id: string, a: number, b: number) => [...notebookKeys.detail(id), 'compare', a, b] as const,
-  shareLinks: (id: string) => [...notebookKeys.detail(id), 'share-links'] as const,
-  shared: (token: string) => [...notebookKeys.all, 'shared', token] as const,
-};
-
-/** `notebookPaths` spell the whole `/api/…` path; the client adds `/api` itself. */
-const path = (full: string) => full.replace(/^\/api/, '');
-
-function listQueryString(query: ListDesignsQuery): string {
-  const params = new URLSearchParams();
-  for (const [key, value] of Object.entries(query)) {
-    if (value !== undefined && value !== '') params.set(key, String(value));
-  }
-  const text = params.toString();
-  return text ? `?${text}` : '';
-}
+const routes = apiContract.notebooks;
+const design = (id: string) => ({ params: { id } });
+/** Every cached answer about one design (it, its versions, comparisons and links). */
+const aboutDesign = (id: string) => withParams('notebooks', { id });
 
 export function useDesignListQuery(teamId: string, query: ListDesignsQuery) {
   return useQuery({
-    queryKey: notebookKeys.list(teamId, query),
-    queryFn: ({ signal }) => api(`${path(notebookPaths.teamDesigns(teamId))}${listQueryString(query)}`, designListResponseSchema, { signal }),
+    queryKey: routeKey(routes.list, { params: { teamId }, query }),
+    queryFn: ({ signal }) => call(routes.list, { params: { teamId }, query }, { signal }),
     enabled: teamId !== '',
     placeholderData: keepPreviousData,
     staleTime: staleTime.stable,
@@ -64,15 +31,15 @@ export function useDesignListQuery(teamId: string, query: ListDesignsQuery) {
 
 export function useNotebookQuery(id: string) {
   return useQuery({
-    queryKey: notebookKeys.detail(id),
-    queryFn: ({ signal }) => api(path(notebookPaths.design(id)), notebookResponseSchema, { signal }),
+    queryKey: routeKey(routes.get, design(id)),
+    queryFn: ({ signal }) => call(routes.get, design(id), { signal }),
   });
 }
 
 export function useVersionsQuery(id: string) {
   return useQuery({
-    queryKey: notebookKeys.versions(id),
-    queryFn: ({ signal }) => api(path(notebookPaths.versions(id)), versionListResponseSchema, { signal }),
+    queryKey: routeKey(routes.versions, design(id)),
+    queryFn: ({ signal }) => call(routes.versions, design(id), { signal }),
     select: (data) => data.versions,
   });
 }
@@ -80,8 +47,8 @@ export function useVersionsQuery(id: string) {
 /** Versions never change once saved, so a fetched one is fresh for good. */
 export function useVersionQuery(id: string, n: number | null) {
   return useQuery({
-    queryKey: notebookKeys.version(id, n ?? 0),
-    queryFn: ({ signal }) => api(path(notebookPaths.version(id, n ?? 0)), versionResponseSchema, { signal }),
+    queryKey: routeKey(routes.version, { params: { id, n: n ?? 0 } }),
+    queryFn: ({ signal }) => call(routes.version, { params: { id, n: n ?? 0 } }, { signal }),
     select: (data) => data.version,
     enabled: n !== null && n > 0,
     staleTime: Infinity,
@@ -90,8 +57,8 @@ export function useVersionQuery(id: string, n: number | null) {
 
 export function useCompareQuery(id: string, a: number, b: number) {
   return useQuery({
-    queryKey: notebookKeys.compare(id, a, b),
-    queryFn: ({ signal }) => api(path(notebookPaths.compare(id, a, b)), compareResponseSchema, { signal }),
+    queryKey: routeKey(routes.compare, { params: { id }, query: { a, b } }),
+    queryFn: ({ signal }) => call(routes.compare, { params: { id }, query: { a, b } }, { signal }),
     enabled: a > 0 && b > 0,
     staleTime: Infinity,
   });
@@ -99,8 +66,8 @@ export function useCompareQuery(id: string, a: number, b: number) {
 
 export function useShareLinksQuery(id: string, enabled: boolean) {
   return useQuery({
-    queryKey: notebookKeys.shareLinks(id),
-    queryFn: ({ signal }) => api(path(notebookPaths.shareLinks(id)), shareLinkListResponseSchema, { signal }),
+    queryKey: routeKey(routes.shareLinks, design(id)),
+    queryFn: ({ signal }) => call(routes.shareLinks, design(id), { signal }),
     select: (data) => data.links,
     enabled,
   });
@@ -108,8 +75,8 @@ export function useShareLinksQuery(id: string, enabled: boolean) {
 
 export function useSharedVersionQuery(token: string) {
   return useQuery({
-    queryKey: notebookKeys.shared(token),
-    queryFn: ({ signal }) => api(path(notebookPaths.shared(token)), sharedVersionResponseSchema, { signal }),
+    queryKey: routeKey(routes.shared, { params: { token } }),
+    queryFn: ({ signal }) => call(routes.shared, { params: { token } }, { signal }),
     retry: false,
   });
 }
@@ -117,21 +84,19 @@ export function useSharedVersionQuery(token: string) {
 export function useCreateDesignMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateDesignRequest) =>
-      api(path(notebookPaths.teamDesigns(teamId)), notebookWithVersionResponseSchema, { method: 'POST', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: notebookKeys.lists() }),
+    mutationFn: (body: CreateDesignRequest) => call(routes.create, { params: { teamId }, body }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
   });
 }
 
 export function useUpdateDesignMutation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, body }: { id: string; body: UpdateDesignRequest }) =>
-      api(path(notebookPaths.design(id)), designResponseSchema, { method: 'PATCH', body }),
+    mutationFn: ({ id, body }: { id: string; body: UpdateDesignRequest }) => call(routes.update, { ...design(id), body }),
     onSuccess: (_data, { id }) =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: notebookKeys.lists() }),
-        queryClient.invalidateQueries({ queryKey: notebookKeys.detail(id) }),
+        queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
+        queryClient.invalidateQueries({ predicate: aboutDesign(id) }),
       ]),
   });
 }
@@ -150,15 +115,14 @@ export class VersionConflict extends Error {
  * edits, so a conflict costs one request.
  */
 export async function saveVersion(id: string, body: SaveVersionRequest) {
-  const to = path(notebookPaths.versions(id));
   try {
-    return await api(to, saveVersionResponseSchema, { method: 'POST', body });
+    return await call(routes.saveVersion, { ...design(id), body });
   } catch (error) {
     if (error instanceof ApiError && error.status === 409 && error.code === versionConflictCode) {
       // Parsed like every other answer, so a server that drifted fails here, not in the card.
       const details = versionConflictDetailsSchema.safeParse(error.details);
       if (!details.success) {
-        throw new ApiError(409, 'bad_response', `The server's answer to ${to} did not match what this app expects.`);
+        throw new ApiError(409, 'bad_response', "The server's answer to notebooks.saveVersion did not match what this app expects.");
       }
       throw new VersionConflict(details.data.latest);
     }
@@ -171,15 +135,15 @@ export function useSaveVersionMutation(id: string) {
   return useMutation({
     mutationFn: (body: SaveVersionRequest) => saveVersion(id, body),
     onSuccess: (data) => {
-      queryClient.setQueryData(notebookKeys.version(id, data.version.number), { version: data.version });
+      queryClient.setQueryData(routeKey(routes.version, { params: { id, n: data.version.number } }), { version: data.version });
       // The screen moves to the new version at once, without a stale moment of "someone saved".
-      queryClient.setQueryData(notebookKeys.detail(id), { design: data.design, version: data.version });
+      queryClient.setQueryData(routeKey(routes.get, design(id)), { design: data.design, version: data.version });
     },
     onSettled: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: notebookKeys.detail(id), exact: true }),
-        queryClient.invalidateQueries({ queryKey: notebookKeys.versions(id) }),
-        queryClient.invalidateQueries({ queryKey: notebookKeys.lists() }),
+        queryClient.invalidateQueries({ queryKey: routeKey(routes.get, design(id)), exact: true }),
+        queryClient.invalidateQueries({ queryKey: routeKey(routes.versions, design(id)) }),
+        queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
       ]),
   });
 }
@@ -187,19 +151,19 @@ export function useSaveVersionMutation(id: string) {
 export function useCloneMutation(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: CloneRequest) => api(path(notebookPaths.clone(id)), notebookWithVersionResponseSchema, { method: 'POST', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: notebookKeys.lists() }),
+    mutationFn: (body: CloneRequest) => call(routes.clone, { ...design(id), body }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
   });
 }
 
 export function useBaselineMutation(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (version: number | null) => api(path(notebookPaths.baseline(id)), z.unknown(), { method: 'PUT', body: { version } }),
+    mutationFn: (version: number | null) => call(routes.setBaseline, { ...design(id), body: { version } }),
     onSettled: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: notebookKeys.detail(id), exact: true }),
-        queryClient.invalidateQueries({ queryKey: notebookKeys.lists() }),
+        queryClient.invalidateQueries({ queryKey: routeKey(routes.get, design(id)), exact: true }),
+        queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
       ]),
   });
 }
@@ -207,29 +171,28 @@ export function useBaselineMutation(id: string) {
 export function useCreateShareLinkMutation(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateShareLinkRequest) =>
-      api(path(notebookPaths.shareLinks(id)), createShareLinkResponseSchema, { method: 'POST', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: notebookKeys.shareLinks(id) }),
+    mutationFn: (body: CreateShareLinkRequest) => call(routes.createShareLink, { ...design(id), body }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.shareLinks, design(id)) }),
   });
 }
 
 export function useRevokeShareLinkMutation(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (linkId: string) => api(path(notebookPaths.shareLink(id, linkId)), z.unknown(), { method: 'DELETE' }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: notebookKeys.shareLinks(id) }),
+    mutationFn: (linkId: string) => call(routes.revokeShareLink, { params: { id, linkId } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.shareLinks, design(id)) }),
   });
 }
 
 /** The notebook file as the server writes it; parsed so a malformed export never reaches disk. */
 export function fetchNotebookFile(id: string) {
-  return api(path(notebookPaths.exportFile(id)), notebookFileSchema);
+  return call(routes.exportFile, design(id));
 }
 
 export function useImportMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (file: NotebookFileInput) => api(path(notebookPaths.importInto(teamId)), importResponseSchema, { method: 'POST', body: file }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: notebookKeys.lists() }),
+    mutationFn: (file: NotebookFileInput) => call(routes.importFile, { params: { teamId }, body: file }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
   });
 }

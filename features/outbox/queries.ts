@@ -1,16 +1,13 @@
 import { useQuery } from '@tanstack/react-query';
-import { outboxResponseSchema } from '@/shared/outbox';
-import { api, staleTime } from '@/features/api';
+import { apiContract } from '@/shared/contract';
+import { call, routeKey, staleTime } from '@/features/api';
 
-export const outboxKeys = {
-  all: ['outbox'] as const,
-  list: () => [...outboxKeys.all, 'list'] as const,
-};
+const outbox = apiContract.platform.outbox;
 
 export function useOutboxQuery() {
   return useQuery({
-    queryKey: outboxKeys.list(),
-    queryFn: ({ signal }) => api('/dev/outbox', outboxResponseSchema, { signal }),
+    queryKey: routeKey(outbox, {}),
+    queryFn: ({ signal }) => call(outbox, {}, { signal }),
     select: (data) => data.messages,
     staleTime: staleTime.live,
     refetchInterval: 5_000,

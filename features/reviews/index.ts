@@ -1,2 +1,2 @@
 export { ReviewPanel } from './components/review-panel';
-export { reviewKeys, useReviewsQuery } from './queries';
+export { useReviewsQuery } from './queries';

@@ -1,25 +1,16 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import {
-  reviewListResponseSchema,
-  reviewPaths,
-  reviewResponseSchema,
-  type CreateReviewRequest,
-} from '@/shared/reviews';
-import { api, staleTime } from '@/features/api';
+import { apiContract } from '@/shared/contract';
+import type { CreateReviewRequest, Review } from '@/shared/reviews';
+import { call, routeKey, staleTime } from '@/features/api';
 
-export const reviewKeys = {
-  all: ['reviews'] as const,
-  design: (designId: string) => [...reviewKeys.all, designId] as const,
-  version: (designId: string, n: number) => [...reviewKeys.design(designId), n] as const,
-};
-
-/** `reviewPaths` spell the whole `/api/…` path; the client adds `/api` itself. */
-const path = (full: string) => full.replace(/^\/api/, '');
+const routes = apiContract.reviews;
+const versionInput = (designId: string, n: number) => ({ params: { id: designId, n } });
 
 export function useReviewsQuery(designId: string, n: number) {
+  const input = versionInput(designId, n);
   return useQuery({
-    queryKey: reviewKeys.version(designId, n),
-    queryFn: ({ signal }) => api(path(reviewPaths.reviews(designId, n)), reviewListResponseSchema, { signal }),
+    queryKey: routeKey(routes.list, input),
+    queryFn: ({ signal }) => call(routes.list, input, { signal }),
     select: (data) => data.reviews,
     // Colleagues comment while the screen is open; a short freshness keeps the list near live.
     staleTime: staleTime.live,
@@ -28,13 +19,13 @@ export function useReviewsQuery(designId: string, n: number) {
 
 export function useCreateReviewMutation(designId: string, n: number) {
   const queryClient = useQueryClient();
-  const key = reviewKeys.version(designId, n);
+  const input = versionInput(designId, n);
+  const key = routeKey(routes.list, input);
   return useMutation({
-    mutationFn: (body: CreateReviewRequest) =>
-      api(path(reviewPaths.reviews(designId, n)), reviewResponseSchema, { method: 'POST', body }),
+    mutationFn: (body: CreateReviewRequest) => call(routes.create, { ...input, body }),
     onSuccess: ({ review }) => {
       // Show one's own comment at once; the refetch below brings in anyone else's.
-      queryClient.setQueryData(key, (old: { reviews: (typeof review)[] } | undefined) => ({
+      queryClient.setQueryData(key, (old: { reviews: Review[] } | undefined) => ({
         reviews: [...(old?.reviews ?? []), review],
       }));
     },

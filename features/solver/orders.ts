@@ -4,6 +4,8 @@
  * Source: Palmer & Loewen, Diffraction Grating Handbook, ch. 2 (overlapping orders, free spectral range).
  */
 
+import { MAX_LISTED_OVERLAPS } from '../../shared/solve-limits';
+
 export interface Overlap {
   /** The other order, same sign as the working order. */
   order: number;
@@ -12,11 +14,12 @@ export interface Overlap {
 }
 
 /**
- * How many overlapping orders are listed at one wavelength. A wide source in a high order has far
- * more (order 1000 at 1 nm with a 0.001 nm–10 mm source: about a million); listing 20 keeps one
- * answer bounded, and `overlapCount` still says how many there are.
+ * How many overlapping orders are listed at one wavelength (a shared limit: the API contract
+ * states it). A wide source in a high order has far more (order 1000 at 1 nm with a 0.001 nm–10 mm
+ * source: about a million); listing 20 keeps one answer bounded, and `overlapCount` still says how
+ * many there are.
  */
-export const MAX_LISTED_OVERLAPS = 20;
+export { MAX_LISTED_OVERLAPS };
 
 /** The shared empty list (frozen), so most wavelengths allocate nothing for overlaps. */
 export const NO_OVERLAPS: readonly Overlap[] = Object.freeze([]);

@@ -1,68 +1,52 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import {
-  acceptInvitationResponseSchema,
-  invitationListResponseSchema,
-  invitationPreviewSchema,
-  invitationResponseSchema,
-  memberListResponseSchema,
-  memberResponseSchema,
-  teamListResponseSchema,
-  teamResponseSchema,
-  type InviteRequest,
-  type Role,
-} from '@/shared/teams';
-import { api, staleTime } from '@/features/api';
+import { apiContract } from '@/shared/contract';
+import type { InviteRequest, Role } from '@/shared/teams';
+import { call, groupKey, routeKey, staleTime, withParams } from '@/features/api';
 
-export const teamKeys = {
-  all: ['teams'] as const,
-  list: () => [...teamKeys.all, 'list'] as const,
-  detail: (teamId: string) => [...teamKeys.all, 'detail', teamId] as const,
-  members: (teamId: string) => [...teamKeys.detail(teamId), 'members'] as const,
-  invitations: (teamId: string) => [...teamKeys.detail(teamId), 'invitations'] as const,
-  invitation: (token: string) => [...teamKeys.all, 'invitation', token] as const,
-};
-
-const team = (id: string) => `/teams/${encodeURIComponent(id)}`;
+const routes = apiContract.teams;
 
 export function useTeamsQuery() {
   return useQuery({
-    queryKey: teamKeys.list(),
-    queryFn: ({ signal }) => api('/teams', teamListResponseSchema, { signal }),
+    queryKey: routeKey(routes.list, {}),
+    queryFn: ({ signal }) => call(routes.list, {}, { signal }),
     select: (data) => data.teams,
     staleTime: staleTime.stable,
   });
 }
 
 export function useTeamQuery(teamId: string) {
+  const input = { params: { teamId } };
   return useQuery({
-    queryKey: teamKeys.detail(teamId),
-    queryFn: ({ signal }) => api(team(teamId), teamResponseSchema, { signal }),
+    queryKey: routeKey(routes.get, input),
+    queryFn: ({ signal }) => call(routes.get, input, { signal }),
     select: (data) => data.team,
   });
 }
 
 export function useMembersQuery(teamId: string) {
+  const input = { params: { teamId } };
   return useQuery({
-    queryKey: teamKeys.members(teamId),
-    queryFn: ({ signal }) => api(`${team(teamId)}/members`, memberListResponseSchema, { signal }),
+    queryKey: routeKey(routes.members, input),
+    queryFn: ({ signal }) => call(routes.members, input, { signal }),
     select: (data) => data.members,
   });
 }
 
 export function useInvitationsQuery(teamId: string, enabled: boolean) {
+  const input = { params: { teamId } };
   return useQuery({
-    queryKey: teamKeys.invitations(teamId),
-    queryFn: ({ signal }) => api(`${team(teamId)}/invitations`, invitationListResponseSchema, { signal }),
+    queryKey: routeKey(routes.invitations, input),
+    queryFn: ({ signal }) => call(routes.invitations, input, { signal }),
     select: (data) => data.invitations,
     enabled,
   });
 }
 
 export function useInvitationPreviewQuery(token: string) {
+  const input = { params: { token } };
   return useQuery({
-    queryKey: teamKeys.invitation(token),
-    queryFn: ({ signal }) => api(`/invitations/${encodeURIComponent(token)}`, invitationPreviewSchema, { signal }),
+    queryKey: routeKey(routes.previewInvitation, input),
+    queryFn: ({ signal }) => call(routes.previewInvitation, input, { signal }),
     retry: false,
   });
 }
@@ -70,49 +54,47 @@ export function useInvitationPreviewQuery(token: string) {
 export function useCreateTeamMutation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (name: string) => api('/teams', teamResponseSchema, { method: 'POST', body: { name } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.list() }),
+    mutationFn: (name: string) => call(routes.create, { body: { name } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
   });
 }
 
 export function useChangeRoleMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ userId, role }: { userId: string; role: Role }) =>
-      api(`${team(teamId)}/members/${encodeURIComponent(userId)}`, memberResponseSchema, { method: 'PATCH', body: { role } }),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: teamKeys.detail(teamId) }),
+    mutationFn: ({ userId, role }: { userId: string; role: Role }) => call(routes.changeRole, { params: { teamId, userId }, body: { role } }),
+    onSettled: () => queryClient.invalidateQueries({ predicate: withParams('teams', { teamId }) }),
   });
 }
 
 export function useRemoveMemberMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (userId: string) => api(`${team(teamId)}/members/${encodeURIComponent(userId)}`, z.unknown(), { method: 'DELETE' }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.all }),
+    mutationFn: (userId: string) => call(routes.removeMember, { params: { teamId, userId } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: groupKey('teams') }),
   });
 }
 
 export function useInviteMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: InviteRequest) => api(`${team(teamId)}/invitations`, invitationResponseSchema, { method: 'POST', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.invitations(teamId) }),
+    mutationFn: (body: InviteRequest) => call(routes.invite, { params: { teamId }, body }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.invitations, { params: { teamId } }) }),
   });
 }
 
 export function useRevokeInvitationMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (invitationId: string) =>
-      api(`${team(teamId)}/invitations/${encodeURIComponent(invitationId)}`, z.unknown(), { method: 'DELETE' }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.invitations(teamId) }),
+    mutationFn: (invitationId: string) => call(routes.revokeInvitation, { params: { teamId, invitationId } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.invitations, { params: { teamId } }) }),
   });
 }
 
 export function useAcceptInvitationMutation(token: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => api(`/invitations/${encodeURIComponent(token)}/accept`, acceptInvitationResponseSchema, { method: 'POST' }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.all }),
+    mutationFn: () => call(routes.acceptInvitation, { params: { token } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: groupKey('teams') }),
   });
 }

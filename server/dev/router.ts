@@ -1,5 +1,5 @@
-import { Router } from 'express';
-import type { OutboxMessage } from '../../shared/outbox';
+import type { apiContract } from '../../shared/contract/index';
+import type { Implementation } from '../http/contract';
 import { HttpError } from '../http/errors';
 import { isLoopbackAddress, isLoopbackHost } from '../http/loopback';
 import type { OutboxRepository } from '../mail/outbox-repository';
@@ -17,19 +17,15 @@ export const outboxLocalOnly = new HttpError(
  * it can reset anyone's password, so it answers only requests that arrive over loopback (the
  * socket's address) for a loopback host name (or PUBLIC_URL's, when that is configured).
  */
-export function devRouter(outbox: OutboxRepository, options: { trustedOrigin?: string } = {}) {
-  const router = Router();
+export function outboxRoute(
+  outbox: OutboxRepository,
+  options: { trustedOrigin?: string } = {},
+): Implementation<typeof apiContract.platform.outbox> {
   const publicHostname = options.trustedOrigin ? new URL(options.trustedOrigin).hostname : null;
-  router.get('/dev/outbox', async (req, res, next) => {
-    try {
-      if (!isLoopbackAddress(req.socket.remoteAddress) || !isLoopbackHost(req.get('host'), publicHostname)) {
-        throw outboxLocalOnly;
-      }
-      const messages: OutboxMessage[] = (await outbox.list()).map((m) => ({ ...m, createdAt: m.createdAt.toISOString() }));
-      res.json({ messages });
-    } catch (error) {
-      next(error);
+  return async (_input, req) => {
+    if (!isLoopbackAddress(req.socket.remoteAddress) || !isLoopbackHost(req.get('host'), publicHostname)) {
+      throw outboxLocalOnly;
     }
-  });
-  return router;
+    return { messages: (await outbox.list()).map((m) => ({ ...m, createdAt: m.createdAt.toISOString() })) };
+  };
 }

@@ -1,8 +1,7 @@
-import { Router } from 'express';
+import type { apiContract } from '../../shared/contract/index';
 import { evaluateDesign } from '../../features/solver/index';
-import { solveRequestSchema } from '../../shared/design';
 import { createSolveRateLimiter, defaultRateLimits, type RateLimits } from '../auth/rate-limit';
-import { handle } from '../http/validate';
+import type { Implementation } from '../http/contract';
 
 /**
  * `POST /api/solve`: the solver for scripts and other tools, no sign-in needed. It runs the same
@@ -18,14 +17,9 @@ import { handle } from '../http/validate';
  *   the thread (`npm run bench:solver` prints it).
  * - 120 calls per minute per IP (`solvePerIp`, `solveWindowMs`); the next is a 429 `rate_limited`.
  */
-export function solveRouter(rateLimits: Partial<RateLimits> = {}) {
-  const router = Router();
-  router.post(
-    '/solve',
-    createSolveRateLimiter({ ...defaultRateLimits, ...rateLimits }),
-    handle({ body: solveRequestSchema }, ({ body }) =>
-      evaluateDesign(body.design, { wavelengthsNm: body.at, points: body.points }),
-    ),
-  );
-  return router;
+export function solveRoute(rateLimits: Partial<RateLimits> = {}): Implementation<typeof apiContract.platform.solve> {
+  return {
+    use: [createSolveRateLimiter({ ...defaultRateLimits, ...rateLimits })],
+    handle: ({ body }) => evaluateDesign(body.design, { wavelengthsNm: body.at, points: body.points }),
+  };
 }

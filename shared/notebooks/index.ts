@@ -23,4 +23,3 @@ export * from './clone';
 export * from './baseline';
 export * from './share-links';
 export * from './notebook-file';
-export * from './paths';

@@ -59,7 +59,7 @@ describe('a compressed body that is not what it says it is', () => {
   it.each(encodings)(
     'is refused with 4xx on every state-changing route (Content-Encoding: %s)',
     async (encoding) => {
-      const routes = listRoutes(fx.ctx.app).filter((r) => /^(POST|PUT|PATCH|DELETE) /.test(r));
+      const routes = listRoutes((entry) => entry.method !== 'GET');
       expect(routes.length).toBeGreaterThan(15);
       for (const route of routes) {
         const [method, pattern] = route.split(' ') as [string, string];

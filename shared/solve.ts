@@ -1,0 +1,94 @@
+import { z } from 'zod';
+import { LAYOUT_KINDS } from './design';
+
+/**
+ * The answer of `POST /api/solve`, described for the API contract and its OpenAPI document. The
+ * solver's own types (features/solver/results.ts) are the source; `tests/shared/solve.test.ts`
+ * parses real evaluations with these strict objects, so a field added or renamed on one side
+ * fails there. Units are in the names; angle-dependent figures of an unreachable wavelength are
+ * null, never NaN.
+ */
+const nullableNumber = z.number().nullable();
+
+export const slitFunctionSchema = z.strictObject({
+  shape: z.enum(['triangle', 'trapezoid']),
+  baseNm: z.number(),
+  topNm: z.number(),
+});
+
+export const overlapSchema = z.strictObject({ order: z.int(), wavelengthNm: z.number() });
+
+export const wavelengthPointSchema = z.strictObject({
+  wavelengthNm: z.number(),
+  reachable: z.boolean(),
+  reason: z.string().nullable(),
+  incidenceDeg: nullableNumber,
+  diffractionDeg: nullableNumber,
+  gratingRotationDeg: nullableNumber,
+  angularDispersionDegPerNm: nullableNumber,
+  linearDispersionMmPerNm: nullableNumber,
+  reciprocalDispersionNmPerMm: nullableNumber,
+  anamorphicMagnification: nullableNumber,
+  bandpassNm: nullableNumber,
+  slitFunction: slitFunctionSchema.nullable(),
+  diffractionLimitNm: z.number(),
+  resolvingPower: nullableNumber,
+  theoreticalResolvingPower: z.number(),
+  freeSpectralRangeNm: z.number(),
+  blazeEfficiency: nullableNumber,
+  overlaps: z.array(overlapSchema).readonly(),
+  overlapCount: z.int(),
+  overlapsTruncated: z.boolean(),
+  scanSensitivityNmPerArcsec: nullableNumber,
+});
+
+export const aberrationSummarySchema = z.strictObject({
+  comaFreeCameraOffAxisDeg: nullableNumber,
+  cameraOffAxisInUseDeg: nullableNumber,
+  comaResidualAtStartDeg: nullableNumber,
+  comaResidualAtCentreDeg: nullableNumber,
+  comaResidualAtEndDeg: nullableNumber,
+  collimatorAstigmatismMm: nullableNumber,
+  cameraAstigmatismMm: nullableNumber,
+});
+
+export const detectorCoverageSchema = z.strictObject({
+  widthMm: z.number(),
+  startNm: nullableNumber,
+  endNm: nullableNumber,
+  coverageNm: nullableNumber,
+  coversRange: z.boolean(),
+  nmPerPixel: z.number(),
+  pixelsPerBandpass: z.number(),
+});
+
+export const designSummarySchema = z.strictObject({
+  kind: z.enum(LAYOUT_KINDS),
+  grooveSpacingNm: z.number(),
+  illuminatedGrooves: z.number(),
+  halfDeviationDeg: z.number(),
+  centreWavelengthNm: z.number(),
+  reachableMinNm: z.number(),
+  reachableMaxNm: z.number(),
+  gratingRotationStartDeg: nullableNumber,
+  gratingRotationEndDeg: nullableNumber,
+  fNumberProjectedWidth: nullableNumber,
+  fNumberHeight: z.number(),
+  blazeWavelengthInMountNm: nullableNumber,
+  aberrations: aberrationSummarySchema,
+  detector: detectorCoverageSchema.nullable(),
+});
+
+export const warningCodes = ['unreachable', 'near-grazing', 'below-diffraction-limit', 'undersampled', 'order-overlap', 'low-efficiency'] as const;
+
+export const designWarningSchema = z.strictObject({
+  code: z.enum(warningCodes),
+  message: z.string(),
+  wavelengthNm: z.number().optional(),
+});
+
+export const solveResponseSchema = z.strictObject({
+  points: z.array(wavelengthPointSchema),
+  design: designSummarySchema,
+  warnings: z.array(designWarningSchema),
+});
