@@ -1,18 +1,19 @@
 import type { KeyboardEvent } from 'react';
 
 /**
- * Web (and default): an option listens for keys itself, and moving the choice moves the focus.
+ * Web (and default): an option listens for keys itself. `onKey` chooses and answers the index
+ * of the option it moved to (null to let the key through); the focus follows the choice.
  * React Native's types have no `onKeyDown`; react-native-web's Pressable passes it to the element.
  */
-export function radioKeyProps(onKey: (key: string) => boolean): { onKeyDown?: (event: KeyboardEvent) => void } {
+export function radioKeyProps(onKey: (key: string) => number | null): { onKeyDown?: (event: KeyboardEvent) => void } {
   return {
     onKeyDown(event) {
-      // Space would scroll the page and the arrows a scrolling row.
-      if (onKey(event.key)) event.preventDefault();
+      const target = onKey(event.key);
+      if (target === null) return;
+      // Space would scroll the page, and the arrows a scrolling row.
+      event.preventDefault();
+      const group = (event.currentTarget as HTMLElement).closest('[role="radiogroup"]');
+      group?.querySelectorAll<HTMLElement>('[role="radio"]')[target]?.focus();
     },
   };
-}
-
-export function focusOption(node: unknown): void {
-  (node as { focus?: () => void } | null)?.focus?.();
 }

@@ -1,6 +1,5 @@
-import { useRef } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, View, type StyleProp, type ViewStyle } from 'react-native';
-import { focusOption, radioKeyProps } from '../radio-keys';
+import { radioKeyProps } from '../radio-keys';
 import { nextIndex, tabStopIndex } from '../radio-navigation';
 import { colors, fonts, minTouch, radius, space, type } from '../theme';
 
@@ -52,7 +51,6 @@ export function RadioGroup<T extends string>({
   optionTestID,
   style,
 }: Props<T>) {
-  const nodes = useRef<unknown[]>([]);
   const checkedIndex = options.findIndex((option) => option.value === value);
   const tabStop = tabStopIndex(checkedIndex, options.length);
   const segmented = look === 'segmented';
@@ -61,14 +59,12 @@ export function RadioGroup<T extends string>({
     const option = options[index];
     if (option && option.value !== value) onChange(option.value);
   };
-  const onKey = (index: number, key: string): boolean => {
+  const onKey = (index: number, key: string): number | null => {
     // Enter already presses a focused Pressable on the web; choosing here too would choose twice.
-    if (disabled || key === 'Enter') return false;
+    if (disabled || key === 'Enter') return null;
     const target = nextIndex(key, index, options.length);
-    if (target === null) return false;
-    choose(target);
-    focusOption(nodes.current[target]);
-    return true;
+    if (target !== null) choose(target);
+    return target;
   };
 
   const items = options.map((option, index) => {
@@ -76,9 +72,6 @@ export function RadioGroup<T extends string>({
     return (
       <Pressable
         key={option.value}
-        ref={(node) => {
-          nodes.current[index] = node;
-        }}
         role="radio"
         aria-checked={checked}
         aria-disabled={disabled}
