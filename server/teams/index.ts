@@ -6,7 +6,7 @@ import { createRoleDirectory } from './roles';
 import { teamsRouter } from './router';
 import { createTeamsService } from './service';
 
-export { createTeamAccess, type TeamAccess } from './access';
+export { allow, createTeamAccess, teamNotFound, type TeamAccess } from './access';
 export type { RoleDirectory } from './roles';
 export type { TeamsService } from './service';
 
