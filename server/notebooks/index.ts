@@ -4,15 +4,13 @@ import type { RoleDirectory } from '../teams/index';
 import { createNotebooksRepository } from './repository';
 import { notebooksRouter } from './router';
 import { createNotebooksService } from './service';
+import { createNotebooksStore } from './store';
 
 export type { NotebooksService } from './service';
 export { summarizeVersion } from './summary';
 
 export function createNotebooks(deps: { db: Database; roles: RoleDirectory; clock: Clock }) {
-  const service = createNotebooksService({
-    repository: createNotebooksRepository(deps.db),
-    roles: deps.roles,
-    clock: deps.clock,
-  });
+  const store = createNotebooksStore({ repository: createNotebooksRepository(deps.db), roles: deps.roles });
+  const service = createNotebooksService({ store, roles: deps.roles, clock: deps.clock });
   return { service, router: notebooksRouter(service) };
 }

@@ -6,8 +6,10 @@ import type { DesignSort, VersionSummary } from '../../shared/notebooks';
 import type { Role } from '../../shared/teams';
 
 export type DesignRow = typeof designs.$inferSelect;
+export type DesignInsert = typeof designs.$inferInsert;
 export type VersionInsert = typeof designVersions.$inferInsert & { summary: VersionSummary };
 export type ShareLinkRow = typeof shareLinks.$inferSelect;
+export type ShareLinkInsert = typeof shareLinks.$inferInsert;
 
 const creator = alias(users, 'creator');
 const author = alias(users, 'author');
@@ -263,7 +265,7 @@ function queries(db: Database) {
       return rows.map((row) => row.tag);
     },
 
-    async insertDesign(design: typeof designs.$inferInsert, versions: VersionInsert[]) {
+    async insertDesign(design: DesignInsert, versions: VersionInsert[]) {
       await db.insert(designs).values(design);
       await db.insert(designVersions).values(versions);
     },
@@ -310,7 +312,7 @@ function queries(db: Database) {
       await db.update(designs).set(patch).where(eq(designs.id, designId));
     },
 
-    async insertShareLink(link: typeof shareLinks.$inferInsert) {
+    async insertShareLink(link: ShareLinkInsert) {
       await db.insert(shareLinks).values(link);
     },
 

@@ -2,14 +2,12 @@ import { randomUUID } from 'node:crypto';
 import type { z } from 'zod';
 import type { User } from '../../shared/auth';
 import type { createReviewRequestSchema, Review } from '../../shared/reviews';
-import { can, type Capability } from '../../shared/teams';
+import type { Capability } from '../../shared/teams';
 import type { Clock } from '../clock';
-import { forbidden, notFound } from '../http/errors';
+// The notebook routes' words, so an outsider cannot tell a real design from a made-up one.
+import { designNotFound, versionNotFound } from '../notebooks/service';
+import { allow } from '../teams/index';
 import type { ReviewsRepository, ReviewView } from './repository';
-
-// The same words as the notebook routes, so an outsider cannot tell a real design from a made-up one.
-const designNotFound = () => notFound('No such design.');
-const versionNotFound = (n: number) => notFound(`This design has no version ${n}.`);
 
 function toReview(row: ReviewView): Review {
   return {
@@ -29,11 +27,8 @@ export function createReviewsService({ repository, clock }: ReviewsServiceDeps) 
   /** Outsiders and made-up ids: 404. Members without the capability: 403. Then the version must exist. */
   async function requireVersion(user: User, designId: string, n: number, capabilities: Capability[]) {
     const access = await repository.versionAccess(designId, n, user.id);
-    if (!access || !access.role) throw designNotFound();
-    const role = access.role;
-    if (!capabilities.every((capability) => can(role, capability)))
-      throw forbidden(`A ${role} of this team may not do that.`);
-    if (!access.versionExists) throw versionNotFound(n);
+    allow(access?.role, capabilities, designNotFound);
+    if (!access!.versionExists) throw versionNotFound(n);
   }
 
   return {
