@@ -111,8 +111,7 @@ export function describe(procedure: Route) {
 }
 
 /** Values a caller sends (before parsing); what a handler receives (after); what the answer holds. */
-/* eslint-disable @typescript-eslint/no-explicit-any -- the error map and meta positions are not read here */
+/* The error map and meta positions are not read here, so they match anything. */
 export type RouteInput<R> = R extends ContractProcedure<infer I extends Part, any, any, any> ? z.input<I> : never;
 export type RouteArgs<R> = R extends ContractProcedure<infer I extends Part, any, any, any> ? z.output<I> : never;
 export type RouteAnswer<R> = R extends ContractProcedure<any, infer O extends Part, any, any> ? z.output<O> : never;
-/* eslint-enable @typescript-eslint/no-explicit-any */
