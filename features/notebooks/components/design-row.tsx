@@ -1,0 +1,131 @@
+import { useRouter, type Href } from 'expo-router';
+import { Pressable, StyleSheet, View, type TextStyle } from 'react-native';
+import type { Notebook } from '@/shared/notebooks';
+import { Button, Text, colors, fonts, space } from '@/features/ui';
+import { formatDay } from '../format';
+import { Badge } from './history-table';
+
+/** Title, owner, updated, latest version, actions: the wide table's columns. */
+export const columnStyle: TextStyle[] = [
+  { flex: 3, minWidth: 0 },
+  { flex: 1.2, minWidth: 0 },
+  { width: 110 },
+  { width: 70 },
+  { width: 250 },
+];
+
+type Props = {
+  design: Notebook;
+  /** A table row on wide screens, a stacked block on phones. */
+  wide: boolean;
+  /** Owners may rename, tag and archive. */
+  owner: boolean;
+  onEdit: () => void;
+  onArchive: () => void;
+  archiving: boolean;
+};
+
+/** One design in the team's list. */
+export function DesignRow({ design, wide, ...actions }: Props) {
+  if (wide) {
+    return (
+      <View role="row" style={[styles.row, styles.tableRow]} testID={`design-${design.title}`}>
+        <View role="cell" style={columnStyle[0]}>
+          <TitleCell design={design} />
+        </View>
+        <Text role="cell" variant="small" style={columnStyle[1]}>
+          {design.createdBy?.displayName ?? 'Former member'}
+        </Text>
+        <Text role="cell" variant="small" tone="muted" style={columnStyle[2]}>
+          {formatDay(design.updatedAt)}
+        </Text>
+        <Text role="cell" variant="number" style={columnStyle[3]}>
+          v{design.latestVersion}
+        </Text>
+        <View role="cell" style={columnStyle[4]}>
+          <RowActions design={design} {...actions} />
+        </View>
+      </View>
+    );
+  }
+  const createdBy = design.createdBy?.displayName ?? 'Former member';
+  return (
+    <View role="row" style={styles.block} testID={`design-${design.title}`}>
+      <TitleCell design={design} />
+      <Text role="cell" variant="small" tone="muted">
+        {`${createdBy} · updated ${formatDay(design.updatedAt)} · v${design.latestVersion}`}
+      </Text>
+      <RowActions design={design} {...actions} />
+    </View>
+  );
+}
+
+/** The title as a link to the notebook, its baseline and tags, and where it was cloned from. */
+function TitleCell({ design }: { design: Notebook }) {
+  const router = useRouter();
+  return (
+    <View style={styles.titleCell}>
+      <Pressable
+        role="link"
+        onPress={() => router.push(`/notebooks/${design.id}` as Href)}
+        testID={`open-${design.title}`}
+      >
+        <Text weight="semibold" style={styles.link}>
+          {design.title}
+        </Text>
+      </Pressable>
+      <View style={styles.marks}>
+        {design.baselineVersion !== null ? (
+          <Badge label={`Baseline v${design.baselineVersion}`} tone="accent" />
+        ) : null}
+        {design.tags.map((t) => (
+          <Badge key={t} label={t} tone="primary" />
+        ))}
+      </View>
+      {design.clonedFrom ? (
+        <Text variant="caption" tone="muted">
+          from {design.clonedFrom.title} v{design.clonedFrom.version}
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
+function RowActions({ design, owner, onEdit, onArchive, archiving }: Omit<Props, 'wide'>) {
+  if (!owner) return null;
+  return (
+    <View style={styles.rowActions}>
+      <Button
+        kind="quiet"
+        label="Rename / tag"
+        accessibilityLabel={`Rename or tag ${design.title}`}
+        onPress={onEdit}
+        testID={`rename-${design.id}`}
+      />
+      <Button
+        kind="quiet"
+        label={design.archived ? 'Restore' : 'Archive'}
+        accessibilityLabel={`${design.archived ? 'Restore' : 'Archive'} ${design.title}`}
+        onPress={onArchive}
+        disabled={archiving}
+        testID={`archive-${design.id}`}
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
+  tableRow: {
+    flexWrap: 'nowrap',
+    gap: space.md,
+    paddingVertical: space.sm,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
+  block: { gap: space.xxs, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
+  titleCell: { gap: space.xxs, alignItems: 'flex-start' },
+  marks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  link: { color: colors.primary, textDecorationLine: 'underline', fontFamily: fonts.semibold },
+  rowActions: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'flex-start' },
+});
