@@ -1,5 +1,5 @@
 import type { Design } from '../../shared/design';
-import { formatDeg, formatNm, formatNumberShort } from './sketch-format';
+import { formatDeg, formatNm, formatSketchNumber } from './sketch-format';
 import type { SketchGeometry } from './sketch-types';
 
 /** One line naming the mount and its main figures, for screen readers and file titles. */
@@ -13,10 +13,10 @@ export function describeSketch(geometry: SketchGeometry, design: Design): string
   const { grating, layout } = design;
   const parts = [
     `${name} layout to scale`,
-    `${formatNumberShort(grating.grooveDensityPerMm)} grooves/mm grating ${formatNumberShort(grating.ruledWidthMm)} mm wide`,
+    `${formatSketchNumber(grating.grooveDensityPerMm)} grooves/mm grating ${formatSketchNumber(grating.ruledWidthMm)} mm wide`,
     geometry.kind === 'littrow'
-      ? `lens of ${formatNumberShort(layout.collimatorFocalMm)} mm focal length`
-      : `collimator ${formatNumberShort(layout.collimatorFocalMm)} mm, camera ${formatNumberShort(layout.cameraFocalMm)} mm`,
+      ? `lens of ${formatSketchNumber(layout.collimatorFocalMm)} mm focal length`
+      : `collimator ${formatSketchNumber(layout.collimatorFocalMm)} mm, camera ${formatSketchNumber(layout.cameraFocalMm)} mm`,
     geometry.settingReachable
       ? `grating turned ${formatDeg(geometry.rotationDeg)} for ${formatNm(geometry.settingNm)}`
       : `no grating angle delivers ${formatNm(geometry.settingNm)}`,
