@@ -2,7 +2,7 @@ import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { DatabaseHandle } from '../db/client';
 import { apiRoutes } from '../shared/contract/index';
-import { createAuth, originCheck, signedIn, type RateLimits } from './auth/index';
+import { createAuth, originCheck, signedIn, type PasswordHasher, type RateLimits } from './auth/index';
 import type { Clock } from './clock';
 import { outboxRoute } from './dev/router';
 import { healthRoute } from './health/router';
@@ -37,6 +37,8 @@ export type AppDeps = {
   trustedOrigin?: string;
   /** Sign-in, sign-up, reset and solve limits; tests inject small ones. */
   rateLimits?: Partial<RateLimits>;
+  /** argon2id for account passwords; left out, OWASP's minimum cost (server/index.ts leaves it out). */
+  passwords?: PasswordHasher;
 };
 
 /**
@@ -99,6 +101,7 @@ export function createApp(deps: AppDeps) {
     publicUrl,
     secureCookies: deps.https ?? false,
     rateLimits: deps.rateLimits,
+    passwords: deps.passwords,
   });
   apiRouter.use(auth.sessions);
   const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });

@@ -2,6 +2,7 @@ import type { Database } from '../../db/client';
 import type { Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
 import { createLucia } from './lucia';
+import { passwordHasher, type PasswordHasher } from './password';
 import { createRateLimiters, defaultRateLimits, type RateLimits } from './rate-limit';
 import { createAuthRepository } from './repository';
 import { authRouter } from './router';
@@ -9,6 +10,7 @@ import { createAuthService } from './service';
 import { sessionMiddleware } from './session';
 
 export { originCheck } from './origin';
+export { createPasswordHasher, productionArgon2Cost, type PasswordHasher } from './password';
 export { defaultRateLimits, type RateLimits } from './rate-limit';
 export { currentUser, requireUser, signedIn } from './session';
 export { createToken, hashToken } from './tokens';
@@ -21,12 +23,14 @@ export type AuthDeps = {
   publicUrl: () => string;
   secureCookies: boolean;
   rateLimits?: Partial<RateLimits>;
+  /** Production's argon2id cost unless a test injects a cheaper one. */
+  passwords?: PasswordHasher;
 };
 
 /** Wires accounts and sessions: the service (for seeding), the session middleware and `/api/auth`. */
-export function createAuth({ db, mailer, clock, publicUrl, secureCookies, rateLimits }: AuthDeps) {
+export function createAuth({ db, mailer, clock, publicUrl, secureCookies, rateLimits, passwords = passwordHasher }: AuthDeps) {
   const lucia = createLucia(db, { secure: secureCookies });
-  const service = createAuthService({ repository: createAuthRepository(db), lucia, mailer, clock, publicUrl });
+  const service = createAuthService({ repository: createAuthRepository(db), lucia, mailer, clock, publicUrl, passwords });
   return {
     service,
     sessions: sessionMiddleware(service),

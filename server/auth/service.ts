@@ -8,7 +8,7 @@ import { passwordResetMessage, verifyEmailMessage } from '../mail/templates';
 import { unauthenticated } from './errors';
 import { createReadCache } from '../read-cache';
 import { sessionLifetimeMs, type AppLucia } from './lucia';
-import { hashPassword, isCommonPassword, verifyAgainstDummy, verifyPassword } from './password';
+import { isCommonPassword, type PasswordHasher } from './password';
 import type { AuthRepository, UserRow } from './repository';
 import { createToken, hashToken } from './tokens';
 
@@ -31,13 +31,14 @@ export type AuthServiceDeps = {
   mailer: Mailer;
   clock: Clock;
   publicUrl: () => string;
+  passwords: PasswordHasher;
 };
 
 export function toUser(row: Pick<UserRow, 'id' | 'email' | 'displayName' | 'emailVerifiedAt'>): User {
   return { id: row.id, email: row.email, displayName: row.displayName, emailVerified: row.emailVerifiedAt !== null };
 }
 
-export function createAuthService({ repository, lucia, mailer, clock, publicUrl }: AuthServiceDeps) {
+export function createAuthService({ repository, lucia, mailer, clock, publicUrl, passwords }: AuthServiceDeps) {
   // Checking a session costs a database round trip on every API request; most are repeats. Every
   // sign-out, reset and verification below forgets the sessions it touches.
   const checkedSessions = createReadCache<SessionAuth & { expiresAt: number }>({ max: 10_000 });
@@ -90,7 +91,7 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
           id: generateIdFromEntropySize(10),
           email: input.email,
           displayName: input.displayName,
-          passwordHash: await hashPassword(input.password),
+          passwordHash: await passwords.hash(input.password),
           createdAt: now,
         },
         { id: randomUUID(), name: `${input.displayName}’s workspace` },
@@ -103,7 +104,7 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
 
     async signIn(input: SignInRequest & { email: string }): Promise<SignedIn> {
       const row = await repository.findUserByEmail(input.email);
-      const ok = row ? await verifyPassword(row.passwordHash, input.password) : await verifyAgainstDummy(input.password);
+      const ok = row ? await passwords.verify(row.passwordHash, input.password) : await passwords.verifyAgainstDummy(input.password);
       if (!row || !ok) throw unauthenticated(wrongCredentials);
       return { user: toUser(row), setCookie: await startSession(row.id) };
     },
@@ -153,7 +154,7 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl 
       }
       const used = await repository.consumeToken(tokenHash, 'reset-password');
       if (!used || !live(used)) throw badRequest(badLink, { token: 'has expired or was already used' });
-      await repository.setPasswordHash(used.userId, await hashPassword(password));
+      await repository.setPasswordHash(used.userId, await passwords.hash(password));
       // Following the link proves the address is theirs.
       await repository.markEmailVerified(used.userId, clock.now());
       await lucia.invalidateUserSessions(used.userId);

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { generateIdFromEntropySize } from 'lucia';
 import type { DatabaseHandle } from '../../db/client';
 import type { Role } from '../../shared/teams';
-import { hashPassword } from '../auth/password';
+import { passwordHasher } from '../auth/password';
 import { createAuthRepository } from '../auth/repository';
 import type { Clock } from '../clock';
 import { createTeamsRepository } from '../teams/repository';
@@ -30,7 +30,7 @@ export async function seedDemoData({ database, clock }: { database: DatabaseHand
   const auth = createAuthRepository(database.db);
   const teams = createTeamsRepository(database.db);
   const now = clock.now();
-  const passwordHash = await hashPassword(demoPassword);
+  const passwordHash = await passwordHasher.hash(demoPassword);
   const ids: string[] = [];
   for (const person of demoUsers) {
     const row = await auth.insertUserWithWorkspace(

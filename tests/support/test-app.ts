@@ -2,6 +2,7 @@ import express from 'express';
 import request from 'supertest';
 import type { DatabaseHandle } from '../../db/client';
 import { createApp, type AppDeps } from '../../server/app';
+import { createPasswordHasher } from '../../server/auth/index';
 import { createFixedClock } from '../../server/clock';
 import { createMemoryMailer, createOutboxMailer } from '../../server/mail/mailer';
 import { createOutboxRepository } from '../../server/mail/outbox-repository';
@@ -22,7 +23,16 @@ type TestAppOptions = {
    * opened it closes it; this app's `close` leaves it open.
    */
   database?: DatabaseHandle;
+  /** Hash at OWASP's cost, as every real app does, instead of the tests' cheap one. */
+  productionPasswordCost?: boolean;
 } & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'webRoot'>>;
+
+/**
+ * argon2id at its lowest cost (8 KiB, 1 pass: ≈ 0.3 ms against ≈ 15–45 ms). The tests check what
+ * is done with a hash, not how hard it is to crack; password-hashing.test.ts checks that an app
+ * given no hasher, as `npm start` builds it, hashes at OWASP's cost.
+ */
+export const testPasswordHasher = createPasswordHasher({ memoryCost: 8, timeCost: 1, parallelism: 1 });
 
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
 export async function createTestApp(options: TestAppOptions = {}) {
@@ -41,6 +51,7 @@ export async function createTestApp(options: TestAppOptions = {}) {
     publicUrl: () => testOrigin,
     trustedOrigin: options.trustedOrigin === null ? undefined : (options.trustedOrigin ?? testOrigin),
     rateLimits: options.rateLimits,
+    passwords: options.productionPasswordCost ? undefined : testPasswordHasher,
     log: options.log ?? ((error) => errors.push(error)),
   });
   const close = options.database ? async () => {} : () => database.close();
