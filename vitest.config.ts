@@ -40,7 +40,7 @@ export default defineConfig({
           name: 'browser',
           environment: 'node',
           include: ['tests/browser/**/*.test.ts'],
-          globalSetup: ['tests/support/web-build.ts'],
+          globalSetup: ['tests/support/web-build.ts', 'tests/support/db-template.ts'],
           fileParallelism: false,
           testTimeout: 60_000,
           hookTimeout: 240_000,

@@ -1,12 +1,11 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { cpSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { cpSync, mkdtempSync, rmSync } from 'node:fs';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { networkInterfaces, tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { restoreDataDir } from '../../db/client';
 import { gracefulShutdown } from '../../server/shutdown';
 
 const rootDir = fileURLToPath(new URL('../..', import.meta.url));
@@ -14,16 +13,10 @@ const scratch = mkdtempSync(path.join(tmpdir(), 'blazebook-shutdown-'));
 const emptyWebRoot = mkdtempSync(path.join(scratch, 'web-'));
 const running = new Set<ChildProcess>();
 
-let templateDir: string | undefined;
-
-/** A copy of a data directory holding the migrated template: the server reopens it, no initdb. */
-async function newDataDir(): Promise<string> {
-  if (!templateDir) {
-    templateDir = mkdtempSync(path.join(scratch, 'template-'));
-    await restoreDataDir(templateDir, new Blob([readFileSync(inject('dbTemplatePath'))]));
-  }
+/** A copy of the migrated template's data directory: the server reopens it, no initdb. */
+function newDataDir(): string {
   const dataDir = mkdtempSync(path.join(scratch, 'data-'));
-  cpSync(templateDir, dataDir, { recursive: true });
+  cpSync(inject('dataDirTemplate'), dataDir, { recursive: true });
   return dataDir;
 }
 
@@ -133,7 +126,7 @@ describe('the server process', { timeout: 180_000 }, () => {
     let dataDir: string;
     let server: Server;
     beforeAll(async () => {
-      dataDir = await newDataDir();
+      dataDir = newDataDir();
       server = await startServer(dataDir);
     }, 180_000);
 
@@ -176,7 +169,7 @@ describe('the server process', { timeout: 180_000 }, () => {
   });
 
   it('answers a write in flight at SIGTERM, exits as soon as it is answered, and keeps the write', async () => {
-    const dataDir = await newDataDir();
+    const dataDir = newDataDir();
     const server = await startServer(dataDir);
     const agent = new http.Agent({ keepAlive: true });
     const body = JSON.stringify(credentials);
@@ -232,7 +225,7 @@ describe('the server process', { timeout: 180_000 }, () => {
   });
 
   it('keeps every acknowledged write when the process is killed outright, and starts again after it', async () => {
-    const dataDir = await newDataDir();
+    const dataDir = newDataDir();
     const server = await startServer(dataDir);
     const accounts = ['killed.one', 'killed.two', 'killed.three'].map((name) => ({
       email: `${name}@example.com`,

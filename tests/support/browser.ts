@@ -1,9 +1,10 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { inject } from 'vitest';
 
 const rootDir = fileURLToPath(new URL('../..', import.meta.url));
 export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
@@ -20,12 +21,15 @@ export type RunningServer = { url: string; dataDir: string; output: () => string
 
 /**
  * Starts the real server (`server/index.ts`) on a free port with its own temporary data directory,
- * and resolves once it prints its ready line.
+ * and resolves once it prints its ready line. The directory starts as a copy of the migrated
+ * template (db-template.ts), as a fresh one would be after its first start, without the initdb.
+ * `node --import tsx`, as `npm start` runs it: the tsx command would add a second Node process.
  */
 export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
+  cpSync(inject('dataDirTemplate'), dataDir, { recursive: true });
   let log = '';
-  const child: ChildProcess = spawn(path.join(rootDir, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: rootDir,
     env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, NODE_ENV: 'test', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
