@@ -2,7 +2,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../shared/api-error';
 import { exampleDesign, MAX_SOLVE_WAVELENGTHS, type Design } from '../../shared/design';
+import type { DatabaseHandle } from '../../db/client';
 import { createTestApp } from '../support/test-app';
+import { openTestDatabase } from '../support/test-db';
 
 /**
  * Order 1000 with a source from 0.001 nm to 10 mm (the schema's widest): about a million other
@@ -21,12 +23,19 @@ function wavelengthsNm(count: number, fromNm: number, toNm: number): number[] {
 
 const TWO_MB = 2 * 1024 * 1024;
 
+// Solving reads and writes no data: one database for the file, and a new app (so new rate limits)
+// where a case needs one. Each copy of the database takes seconds to open.
+let database: DatabaseHandle;
+beforeAll(async () => {
+  database = await openTestDatabase();
+});
+afterAll(() => database?.close());
+
 describe('POST /api/solve', () => {
   let ctx: Awaited<ReturnType<typeof createTestApp>>;
   beforeAll(async () => {
-    ctx = await createTestApp();
+    ctx = await createTestApp({ database });
   });
-  afterAll(() => ctx.close());
 
   it('evaluates a design at the wavelengths asked for, without signing in', async () => {
     const res = await request(ctx.app)
@@ -141,7 +150,7 @@ describe('POST /api/solve', () => {
 
 describe('POST /api/solve rate limit', () => {
   it('answers the 121st call in a minute from one address with 429 and the usual error shape', async () => {
-    const ctx = await createTestApp();
+    const ctx = await createTestApp({ database });
     try {
       for (let i = 0; i < 120; i++) {
         await request(ctx.app).post('/api/solve').send({ design: exampleDesign, at: [500] }).expect(200);
@@ -158,7 +167,7 @@ describe('POST /api/solve rate limit', () => {
   });
 
   it('takes its limit and window from AppDeps.rateLimits', async () => {
-    const ctx = await createTestApp({ rateLimits: { solvePerIp: 2, solveWindowMs: 60_000 } });
+    const ctx = await createTestApp({ database, rateLimits: { solvePerIp: 2, solveWindowMs: 60_000 } });
     try {
       for (let i = 0; i < 2; i++) await request(ctx.app).post('/api/solve').send({ design: exampleDesign, points: 2 }).expect(200);
       await request(ctx.app).post('/api/solve').send({ design: exampleDesign, points: 2 }).expect(429);
