@@ -1,9 +1,10 @@
 import { LRUCache } from 'lru-cache';
 
 /**
- * A small in-process cache for hot reads (sessions, roles, design lists). The embedded database
- * is one process's, and every write goes through this server's services, so a service that
- * writes can forget what it changed and the cache stays exact. The time limit is only a backstop.
+ * A small in-process cache for hot reads (sessions, roles, and the notebooks store's versions,
+ * design teams and list pages). The embedded database is one process's, and every write goes
+ * through this server, so the code that writes forgets what it changed and the cache stays exact
+ * (in the notebooks store, each write declares it). The time limit is only a backstop.
  *
  * `load` guards against a read that raced a write: a load that began before any `forget` stores
  * nothing, so an answer read just before a change can never outlive it. Misses (null) are never

@@ -1,5 +1,5 @@
 import type { User } from '../../shared/auth';
-import { designSchema, type Design } from '../../shared/design';
+import { designSchema } from '../../shared/design';
 import {
   notebookFileKind,
   notebookFormatVersion,
