@@ -42,6 +42,10 @@ export default defineConfig({
           include: ['tests/server/**/*.test.ts'],
           globalSetup: ['tests/support/db-template.ts'],
           maxWorkers: workers,
+          // A worker keeps the modules it loaded (Express, Drizzle, PGlite, zod) for its next file
+          // instead of loading them again: nine API files back to back, 34.7 s isolated, 20.8 s not.
+          // Safe because no API test mocks a module or stubs a global, and each closes what it opens.
+          isolate: false,
           testTimeout: 20_000,
           hookTimeout: 30_000,
         },
