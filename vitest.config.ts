@@ -31,6 +31,8 @@ export default defineConfig({
           environment: 'node',
           include: ['tests/**/*.test.ts'],
           exclude: ['tests/server/**', 'tests/browser/**'],
+          // The backup tests start from the migrated template's data directory.
+          globalSetup: ['tests/support/db-template.ts'],
           maxWorkers: workers,
         },
       },

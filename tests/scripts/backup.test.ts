@@ -1,10 +1,10 @@
 import { execFile } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { asc } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { openDatabase, type DatabaseHandle } from '../../db/client';
 import { users } from '../../db/schema';
 
@@ -64,6 +64,8 @@ describe('npm run backup and npm run restore', { timeout: 240_000 }, () => {
   let source: DatabaseHandle | undefined;
 
   beforeAll(async () => {
+    // The migrated template's data directory, as a first start would leave it, without the initdb.
+    cpSync(inject('dataDirTemplate'), sourceDir, { recursive: true });
     source = await openDatabase({ dataDir: sourceDir });
     await source.db.insert(users).values(rows);
   }, 240_000);
