@@ -1,5 +1,15 @@
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { TestProject } from 'vitest/node';
@@ -60,7 +70,8 @@ export default async function setup(project: TestProject) {
   }
   for (const entry of readdirSync(cacheDir)) {
     const old = path.join(cacheDir, entry);
-    if (entry !== key && Date.now() - statSync(old).mtimeMs > day) rmSync(old, { recursive: true, force: true });
+    if (entry !== key && Date.now() - statSync(old).mtimeMs > day)
+      rmSync(old, { recursive: true, force: true });
   }
   project.provide('dbTemplatePath', path.join(dir, 'template.tar'));
   project.provide('dataDirTemplate', path.join(dir, 'data'));

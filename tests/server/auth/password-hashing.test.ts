@@ -20,10 +20,19 @@ describe('password hashing', () => {
   it("stores argon2id at OWASP's minimum cost (19 MiB, 2 passes, 1 lane) in an app given no hasher, as npm start builds it", async () => {
     expect(productionArgon2Cost).toEqual({ memoryCost: 19_456, timeCost: 2, parallelism: 1 });
     const agent = browserAgent(ctx.app);
-    const res = await agent.post('/api/auth/sign-up').send({ email: 'cost@example.com', displayName: 'Cost', password }).expect(201);
-    const [row] = await ctx.database.db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, res.body.user.id));
+    const res = await agent
+      .post('/api/auth/sign-up')
+      .send({ email: 'cost@example.com', displayName: 'Cost', password })
+      .expect(201);
+    const [row] = await ctx.database.db
+      .select({ passwordHash: users.passwordHash })
+      .from(users)
+      .where(eq(users.id, res.body.user.id));
     expect(row?.passwordHash.startsWith(encodedCost(productionArgon2Cost))).toBe(true);
-    await browserAgent(ctx.app).post('/api/auth/sign-in').send({ email: 'cost@example.com', password }).expect(200);
+    await browserAgent(ctx.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'cost@example.com', password })
+      .expect(200);
   });
 
   it('reads the cost from each hash, so a hash made at another cost still verifies', async () => {
