@@ -1,3 +1,5 @@
+import { afterEach, beforeEach, vi } from 'vitest';
+
 /** A Storage stand-in for unit tests (Node has no localStorage); `refuse` makes writes throw like a full store. */
 export function fakeLocalStorage() {
   const items = new Map<string, string>();
@@ -22,4 +24,21 @@ export function fakeLocalStorage() {
       refuse = value;
     },
   };
+}
+
+/**
+ * One fake local storage for a test file, emptied and installed as `localStorage` before each
+ * test and taken away after it.
+ */
+export function withFakeLocalStorage() {
+  const local = fakeLocalStorage();
+  beforeEach(() => {
+    local.items.clear();
+    local.refuseWrites(false);
+    vi.stubGlobal('localStorage', local.storage);
+  });
+  afterEach(() => {
+    vi.unstubAllGlobals();
+  });
+  return local;
 }

@@ -1,20 +1,13 @@
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { exampleDesign } from '@/shared/design';
 import { draftFromDesign } from '@/features/workbench/draft';
 import { clearEdits, loadEdits, notebookDraftKey, saveEdits } from '@/features/notebooks/draft-store';
-import { fakeLocalStorage } from '../../support/fake-local-storage';
+import { withFakeLocalStorage } from '../../support/fake-local-storage';
 
 // The workbench's door also exports its screens; React Native cannot load in Node.
 vi.mock('@/features/workbench', async () => ({ draftSchema: (await import('@/features/workbench/draft')).draftSchema }));
 
-let local: ReturnType<typeof fakeLocalStorage>;
-beforeEach(() => {
-  local = fakeLocalStorage();
-  vi.stubGlobal('localStorage', local.storage);
-});
-afterEach(() => {
-  vi.unstubAllGlobals();
-});
+const local = withFakeLocalStorage();
 
 describe('unsaved notebook edits', () => {
   const key = notebookDraftKey('user-1', 'design-1');

@@ -1,18 +1,11 @@
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { z } from 'zod';
 import { persistedState } from '@/features/ui/persisted-state';
-import { fakeLocalStorage } from '../../support/fake-local-storage';
+import { withFakeLocalStorage } from '../../support/fake-local-storage';
 
 const pointSchema = z.object({ x: z.number(), y: z.number() });
 
-let local: ReturnType<typeof fakeLocalStorage>;
-beforeEach(() => {
-  local = fakeLocalStorage();
-  vi.stubGlobal('localStorage', local.storage);
-});
-afterEach(() => {
-  vi.unstubAllGlobals();
-});
+const local = withFakeLocalStorage();
 
 const stored = (key: string) => JSON.parse(local.items.get(key) ?? 'null') as unknown;
 

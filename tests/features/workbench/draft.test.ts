@@ -1,16 +1,9 @@
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { SCRATCH_KEY, draftFromDesign, initialDraft, loadDraft, saveDraft } from '@/features/workbench/draft';
 import { exampleDesign } from '@/shared/design';
-import { fakeLocalStorage } from '../../support/fake-local-storage';
+import { withFakeLocalStorage } from '../../support/fake-local-storage';
 
-let local: ReturnType<typeof fakeLocalStorage>;
-beforeEach(() => {
-  local = fakeLocalStorage();
-  vi.stubGlobal('localStorage', local.storage);
-});
-afterEach(() => {
-  vi.unstubAllGlobals();
-});
+const local = withFakeLocalStorage();
 
 describe('the scratch draft', () => {
   const draft = { ...draftFromDesign(exampleDesign), selectedNm: '612.5' };
