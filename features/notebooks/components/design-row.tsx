@@ -6,6 +6,19 @@ import { formatDay } from '../format';
 import { Badge } from './history-table';
 
 /** Title, owner, updated, latest version, actions: the wide table's columns. */
+/** A row of the wide design table, shared by the header and every design. */
+export const tableRowStyle = StyleSheet.create({
+  row: {
+    flexDirection: 'row',
+    flexWrap: 'nowrap',
+    gap: space.md,
+    alignItems: 'center',
+    paddingVertical: space.sm,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
+}).row;
+
 export const columnStyle: TextStyle[] = [
   { flex: 3, minWidth: 0 },
   { flex: 1.2, minWidth: 0 },
@@ -29,7 +42,7 @@ type Props = {
 export function DesignRow({ design, wide, ...actions }: Props) {
   if (wide) {
     return (
-      <View role="row" style={[styles.row, styles.tableRow]} testID={`design-${design.title}`}>
+      <View role="row" style={tableRowStyle} testID={`design-${design.title}`}>
         <View role="cell" style={columnStyle[0]}>
           <TitleCell design={design} />
         </View>
@@ -115,14 +128,6 @@ function RowActions({ design, owner, onEdit, onArchive, archiving }: Omit<Props,
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
-  tableRow: {
-    flexWrap: 'nowrap',
-    gap: space.md,
-    paddingVertical: space.sm,
-    borderBottomWidth: 1,
-    borderBottomColor: colors.line,
-  },
   block: { gap: space.xxs, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
   titleCell: { gap: space.xxs, alignItems: 'flex-start' },
   marks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },

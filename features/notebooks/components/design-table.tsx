@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Notebook } from '@/shared/notebooks';
-import { Text, colors, space } from '@/features/ui';
+import { Text, space } from '@/features/ui';
 import { useUpdateDesignMutation } from '../queries';
-import { DesignRow, columnStyle } from './design-row';
+import { DesignRow, columnStyle, tableRowStyle } from './design-row';
 import { DesignRowEditor } from './design-row-editor';
 
 type Props = {
@@ -24,7 +24,7 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
   return (
     <View role="table" aria-label="Designs" testID="design-table">
       {wide ? (
-        <View role="row" style={[styles.row, styles.tableRow, styles.headerRow]}>
+        <View role="row" style={[tableRowStyle, styles.headerRow]}>
           {['Title', 'Owner', 'Updated', 'Latest', ''].map((title, i) => (
             <Text
               key={title || 'actions'}
@@ -70,14 +70,6 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, alignItems: 'center' },
-  tableRow: {
-    flexWrap: 'nowrap',
-    gap: space.md,
-    paddingVertical: space.sm,
-    borderBottomWidth: 1,
-    borderBottomColor: colors.line,
-  },
   headerRow: { borderBottomWidth: 2 },
   empty: { paddingVertical: space.md },
 });
