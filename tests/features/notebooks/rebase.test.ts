@@ -1,19 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { editedCopy, plainDesign } from '../../support/design-edits';
 import type { Design } from '../../../shared/design';
 import { conflictRows, reapplyEdits } from '../../../features/notebooks/rebase';
 
-// Invented demo design.
-const base: Design = {
-  grating: { grooveDensityPerMm: 1200, order: 1, blazeWavelengthNm: 500, ruledWidthMm: 25, ruledHeightMm: 25 },
-  layout: { kind: 'czerny-turner', deviationAngleDeg: 24, collimatorFocalMm: 150, cameraFocalMm: 150 },
-  slits: { entranceWidthUm: 50, exitWidthUm: 50, heightMm: 4 },
-  range: { startNm: 380, endNm: 780 },
-};
-const edit = (changes: (d: Design) => void): Design => {
-  const copy = structuredClone(base);
-  changes(copy);
-  return copy;
-};
+const base = plainDesign;
+const edit = (changes: (d: Design) => void): Design => editedCopy(changes);
 
 describe('rebasing unsaved edits on a newer version', () => {
   it('keeps the newer version’s changes and re-applies mine where we touched different fields', () => {
