@@ -1,24 +1,14 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshot, startServer, viewports, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { liveServerAndBrowser, screenshot, viewports } from '../support/browser';
 
 describe('landing screen in Chromium', () => {
-  let server: RunningServer;
-  let browser: Browser;
-  beforeAll(async () => {
-    server = await startServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const live = liveServerAndBrowser();
 
   it.each(['phone', 'wide'] as const)('shows its heading in the shipped font at %s size', async (size) => {
-    const page = await browser.newPage({ viewport: viewports[size] });
+    const page = await live.browser.newPage({ viewport: viewports[size] });
     const errors: string[] = [];
     page.on('pageerror', (error) => errors.push(error.message));
-    await page.goto(server.url);
+    await page.goto(live.server.url);
     const heading = page.getByRole('heading', { level: 1 });
     await heading.waitFor();
     expect(await heading.textContent()).toBe('Design monochromators you can defend.');
@@ -45,8 +35,8 @@ describe('landing screen in Chromium', () => {
   });
 
   it('answers a deep link with the app, which shows its not-found page', async () => {
-    const page = await browser.newPage({ viewport: viewports.phone });
-    const res = await page.goto(`${server.url}/no/such/page`);
+    const page = await live.browser.newPage({ viewport: viewports.phone });
+    const res = await page.goto(`${live.server.url}/no/such/page`);
     expect(res?.status()).toBe(200);
     await page.getByRole('heading', { name: 'No page at this address' }).waitFor();
     await page.close();

@@ -1,6 +1,6 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, startServer, viewports, type RunningServer } from '../support/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { liveServerAndBrowser, viewports } from '../support/browser';
 
 /**
  * The pages run under a Content-Security-Policy without 'unsafe-eval'. Nothing of ours may need
@@ -8,19 +8,10 @@ import { launchBrowser, startServer, viewports, type RunningServer } from '../su
  * as a console error on every page. The browser also must not complain about our headers.
  */
 describe('pages under the Content-Security-Policy', () => {
-  let server: RunningServer;
-  let browser: Browser;
-  beforeAll(async () => {
-    server = await startServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const live = liveServerAndBrowser();
 
   async function visit(path: string, ready: (page: Page) => Promise<unknown>) {
-    const page = await browser.newPage({ viewport: viewports.phone });
+    const page = await live.browser.newPage({ viewport: viewports.phone });
     const console: string[] = [];
     page.on('console', (message) => {
       if (message.type() === 'error' || message.type() === 'warning') console.push(message.text());
@@ -33,7 +24,7 @@ describe('pages under the Content-Security-Policy', () => {
         seen.push(`${event.effectiveDirective} ${event.blockedURI} ${event.sourceFile}:${event.lineNumber}`);
       });
     });
-    const response = await page.goto(`${server.url}${path}`);
+    const response = await page.goto(`${live.server.url}${path}`);
     await ready(page);
     // Let lazy chunks (the unit parser) load and parse their first schemas.
     await page.waitForTimeout(500);

@@ -1,14 +1,7 @@
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { presets } from '../../features/workbench/presets';
-import {
-  launchBrowser,
-  screenshot,
-  startServer,
-  viewports,
-  type RunningServer,
-  type ViewportName,
-} from '../support/browser';
+import { liveServerAndBrowser, screenshot, viewports, type ViewportName } from '../support/browser';
 
 const field = (page: Page, path: string) => page.getByTestId(`field-${path}`);
 
@@ -18,25 +11,16 @@ const sketchMarkup = (page: Page) => page.getByTestId('ray-sketch').evaluate((el
 const readout = async (page: Page, id: string) => ((await page.getByTestId(id).textContent()) ?? '').trim();
 
 describe('design workbench in Chromium', () => {
-  let server: RunningServer;
-  let browser: Browser;
-  beforeAll(async () => {
-    server = await startServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const live = liveServerAndBrowser();
 
   async function open(
     size: ViewportName,
   ): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
-    const context = await browser.newContext({ viewport: viewports[size] });
+    const context = await live.browser.newContext({ viewport: viewports[size] });
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (error) => errors.push(error.message));
-    await page.goto(`${server.url}/workbench`);
+    await page.goto(`${live.server.url}/workbench`);
     await page.getByTestId('readout-bandpass').waitFor();
     return { context, page, errors };
   }

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
-import { inject } from 'vitest';
+import { afterAll, beforeAll, inject } from 'vitest';
 
 const rootDir = fileURLToPath(new URL('../..', import.meta.url));
 export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
@@ -95,4 +95,21 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const file = path.join(artifactsDir, `${name}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;
+}
+
+/**
+ * The real server and Chromium for the enclosing `describe`: started before its first test and
+ * stopped after its last. Read them as `live.server` and `live.browser` inside the tests.
+ */
+export function liveServerAndBrowser(env: Record<string, string> = {}): { readonly server: RunningServer; readonly browser: Browser } {
+  const live = {} as { server: RunningServer; browser: Browser };
+  beforeAll(async () => {
+    live.server = await startServer(env);
+    live.browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await live.browser?.close();
+    await live.server?.stop();
+  });
+  return live;
 }
