@@ -1,7 +1,8 @@
 import { fileURLToPath } from 'node:url';
-import { ensureWebBuild } from './web-build';
+import { ensureWebBuild, webRoot } from './web-build';
 
 const rootDir = fileURLToPath(new URL('..', import.meta.url));
 
 ensureWebBuild(rootDir);
+process.env.WEB_ROOT ??= webRoot(rootDir);
 await import('../server/index');

@@ -29,9 +29,17 @@ function newestMtimeMs(target: string): number {
   return newest;
 }
 
-/** Why the export in `dist/` must be rebuilt, or null when it is newer than every source. */
+/**
+ * Where the web export goes: `dist/`, or `BLAZEBOOK_WEB_ROOT` so that two checkouts' test runs on
+ * one machine do not rebuild the same folder under each other. The server reads it as `WEB_ROOT`.
+ */
+export function webRoot(rootDir: string): string {
+  return process.env.BLAZEBOOK_WEB_ROOT ?? path.join(rootDir, 'dist');
+}
+
+/** Why the export must be rebuilt, or null when it is newer than every source. */
 export function staleReason(rootDir: string): string | null {
-  const index = path.join(rootDir, 'dist', 'index.html');
+  const index = path.join(webRoot(rootDir), 'index.html');
   if (!existsSync(index)) return 'no web build yet';
   const builtAt = statSync(index).mtimeMs;
   const sourcesAt = Math.max(...sourceEntries.map((entry) => newestMtimeMs(path.join(rootDir, entry))));
@@ -52,7 +60,7 @@ export function ensureWebBuild(rootDir: string, log: (line: string) => void = co
   if (!reason) return;
   log(`Exporting the web app (${reason})…`);
   const started = Date.now();
-  const result = spawnSync(path.join(rootDir, 'node_modules', '.bin', 'expo'), ['export', '-p', 'web'], {
+  const result = spawnSync(path.join(rootDir, 'node_modules', '.bin', 'expo'), ['export', '-p', 'web', '--output-dir', webRoot(rootDir)], {
     cwd: rootDir,
     stdio: ['ignore', 'inherit', 'inherit'],
     env: { ...process.env, ...webExportEnv },

@@ -5,6 +5,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, inject } from 'vitest';
+import { webRoot } from '../../scripts/web-build';
 
 const rootDir = fileURLToPath(new URL('../..', import.meta.url));
 export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
@@ -31,7 +32,15 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   let log = '';
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: rootDir,
-    env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, NODE_ENV: 'test', ...env },
+    env: {
+      ...process.env,
+      PORT: '0',
+      HOST: '127.0.0.1',
+      DATA_DIR: dataDir,
+      NODE_ENV: 'test',
+      WEB_ROOT: webRoot(rootDir),
+      ...env,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   const url = await new Promise<string>((resolve, reject) => {
