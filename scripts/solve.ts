@@ -20,7 +20,7 @@ import { fieldErrors, formatFieldErrors } from '../shared/validation';
 // The CLI keeps the HTTP API's limits (one schema for both), so a script that works here also
 // works against POST /api/solve.
 export const USAGE = `usage: npm run --silent solve -- <design.json | -> [--at 400,500,600] [--points N]
-  --at      wavelengths in nm, at most ${MAX_SOLVE_WAVELENGTHS}
+  --at      wavelengths in nm as decimal numbers (500, 532.1, 5e2), at most ${MAX_SOLVE_WAVELENGTHS}
   --points  evenly spaced wavelengths over the design range, ${MIN_SOLVE_POINTS} to ${MAX_SOLVE_WAVELENGTHS} (default ${DEFAULT_POINTS})
 Each wavelength lists at most ${MAX_LISTED_OVERLAPS} overlapping orders (those nearest the working order);
 overlapCount is the full number and overlapsTruncated is true when the list was cut.
@@ -61,8 +61,8 @@ export function parseSolveArgs(argv: readonly string[]): SolveArgs {
   const at = typeof values.at === 'string' ? values.at.split(',').map(wavelength) : undefined;
   let points: number | undefined;
   if (typeof values.points === 'string') {
-    points = Number(values.points);
-    if (!Number.isFinite(points)) throw new UsageError(`--points: "${values.points}" is not a number`);
+    points = decimal(values.points);
+    if (points === null) throw new UsageError(`--points: "${values.points}" is not a decimal number`);
   }
   const [input, extra] = positionals;
   if (extra !== undefined) throw new UsageError(`unexpected argument ${extra}`);
@@ -71,9 +71,24 @@ export function parseSolveArgs(argv: readonly string[]): SolveArgs {
   return { input, at, points };
 }
 
+/**
+ * Plain decimal notation, optionally with a power of ten: `500`, `-5`, `.5`, `532.1`, `5e2`.
+ * `Number()` alone also reads `0x1F4`, `0b1`, `0o7`, `Infinity` and `''` (as 0), so a typo
+ * would silently become a wavelength; we check the spelling first.
+ */
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/** The number a decimal string spells, or null when it is not one (or not finite). */
+export function decimal(text: string): number | null {
+  const trimmed = text.trim();
+  if (!DECIMAL.test(trimmed)) return null;
+  const n = Number(trimmed);
+  return Number.isFinite(n) ? n : null;
+}
+
 function wavelength(text: string): number {
-  const n = Number(text.trim());
-  if (text.trim() === '' || !Number.isFinite(n)) throw new UsageError(`--at: "${text}" is not a wavelength in nm`);
+  const n = decimal(text);
+  if (n === null) throw new UsageError(`--at: "${text}" is not a wavelength in nm (a decimal number)`);
   return n;
 }
 

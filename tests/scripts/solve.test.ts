@@ -51,6 +51,8 @@ describe('solve CLI', () => {
       { argv: ['-', '--points', '7'], args: { input: '-', at: undefined, points: 7 } },
       // A negative wavelength is read, then refused by the schema with its reason (below).
       { argv: ['d.json', '--at', '-5'], args: { input: 'd.json', at: [-5], points: undefined } },
+      // Decimal notation in its usual spellings, a power of ten included.
+      { argv: ['d.json', '--at', '.5,532.,5e2,+6E+2'], args: { input: 'd.json', at: [0.5, 532, 500, 600], points: undefined } },
     ] satisfies readonly { argv: string[]; args: SolveArgs }[])('reads $argv', ({ argv, args }) => {
       expect(parseSolveArgs(argv)).toEqual(args);
     });
@@ -58,9 +60,19 @@ describe('solve CLI', () => {
     it.each([
       { name: 'an unknown flag', argv: ['d.json', '--wat'], message: 'unknown option --wat' },
       { name: 'an unknown short flag', argv: ['d.json', '-x'], message: 'unknown option -x' },
-      { name: 'a non-numeric --at', argv: ['d.json', '--at', '400,abc'], message: '--at: "abc" is not a wavelength in nm' },
-      { name: 'an empty item in --at', argv: ['d.json', '--at', '400,,500'], message: '--at: "" is not a wavelength in nm' },
-      { name: 'a non-numeric --points', argv: ['d.json', '--points', 'many'], message: '--points: "many" is not a number' },
+      { name: 'a non-numeric --at', argv: ['d.json', '--at', '400,abc'], message: '--at: "abc" is not a wavelength in nm (a decimal number)' },
+      { name: 'an empty item in --at', argv: ['d.json', '--at', '400,,500'], message: '--at: "" is not a wavelength in nm (a decimal number)' },
+      // Number() reads all of these; a lab script that typed them meant something else.
+      { name: 'a hexadecimal --at', argv: ['d.json', '--at', '0x1F4'], message: '--at: "0x1F4" is not a wavelength in nm (a decimal number)' },
+      { name: 'a binary --at', argv: ['d.json', '--at', '0b1'], message: '--at: "0b1" is not a wavelength in nm (a decimal number)' },
+      { name: 'an octal --at', argv: ['d.json', '--at', '500,0o7'], message: '--at: "0o7" is not a wavelength in nm (a decimal number)' },
+      { name: 'an exponent without digits', argv: ['d.json', '--at', '1e'], message: '--at: "1e" is not a wavelength in nm (a decimal number)' },
+      { name: 'Infinity in --at', argv: ['d.json', '--at', 'Infinity'], message: '--at: "Infinity" is not a wavelength in nm (a decimal number)' },
+      { name: 'a blank item in --at', argv: ['d.json', '--at', '400, ,500'], message: '--at: " " is not a wavelength in nm (a decimal number)' },
+      { name: 'a finite-looking overflow in --at', argv: ['d.json', '--at', '1e999'], message: '--at: "1e999" is not a wavelength in nm (a decimal number)' },
+      { name: 'a non-numeric --points', argv: ['d.json', '--points', 'many'], message: '--points: "many" is not a decimal number' },
+      { name: 'a hexadecimal --points', argv: ['d.json', '--points', '0x10'], message: '--points: "0x10" is not a decimal number' },
+      { name: 'an infinite --points', argv: ['d.json', '--points', '-Infinity'], message: '--points: "-Infinity" is not a decimal number' },
       { name: 'a missing value', argv: ['d.json', '--points'], message: '--points needs a value' },
       { name: 'an empty inline value', argv: ['d.json', '--at='], message: '--at needs a value' },
       { name: 'both --at and --points', argv: ['d.json', '--at', '500', '--points', '3'], message: 'use either --at or --points, not both' },
@@ -79,7 +91,7 @@ describe('solve CLI', () => {
 
   it('states the limits in its help', () => {
     expect(USAGE).toMatch(/^usage: npm run --silent solve/);
-    expect(USAGE).toMatch(/--at +wavelengths in nm, at most 1000/);
+    expect(USAGE).toMatch(/--at +wavelengths in nm as decimal numbers .*, at most 1000/);
     expect(USAGE).toMatch(/2 to 1000/);
     expect(USAGE).toMatch(/at most 20 overlapping orders/);
     expect(USAGE).toMatch(/overlapsTruncated/);
