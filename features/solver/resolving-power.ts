@@ -16,12 +16,22 @@ export function diffractionLimitNm(wavelengthNm: number, order: number, grooves:
 }
 
 /**
- * Resolving power the instrument delivers, `λ / bandpass`. When the slits are narrower than the
- * diffraction limit the grating sets the resolution, so the diffraction limit replaces the
- * bandpass: the figure never exceeds `|m| N`.
+ * Width of the instrument's resolution element, nm: the slit-limited bandpass and the diffraction
+ * limit added in quadrature, `√(bandpass² + (λ/|m|N)²)`. The instrument function is the slit
+ * function convolved with the grating's diffraction pattern, and the FWHMs of convolved
+ * near-Gaussian profiles add in quadrature (common practice). Taking the larger of the two instead
+ * would claim up to √2 too much where they are equal.
+ */
+export function resolutionElementNm(bandpassNm: number, limitNm: number): number {
+  return Math.hypot(bandpassNm, limitNm);
+}
+
+/**
+ * Resolving power the instrument delivers, `λ / √(bandpass² + (λ/|m|N)²)` (see
+ * `resolutionElementNm`). It stays below `|m| N` and approaches it as the slits close.
  */
 export function resolvingPower(wavelengthNm: number, bandpassNm: number, limitNm: number): number {
-  return wavelengthNm / Math.max(bandpassNm, limitNm);
+  return wavelengthNm / resolutionElementNm(bandpassNm, limitNm);
 }
 
 /** Free spectral range `λ / |m|`, in nm. Source: Palmer & Loewen, Diffraction Grating Handbook, ch. 2. */

@@ -27,7 +27,10 @@ export interface WavelengthPoint {
   bandpassNm: number | null;
   slitFunction: SlitFunction | null;
   diffractionLimitNm: number;
-  /** `λ / max(bandpass, diffraction limit)`. */
+  /**
+   * `λ / √(bandpass² + diffraction limit²)`: slit and diffraction widths added in quadrature, as for
+   * near-Gaussian profiles (common practice). Always below `theoreticalResolvingPower`.
+   */
   resolvingPower: number | null;
   theoreticalResolvingPower: number;
   freeSpectralRangeNm: number;

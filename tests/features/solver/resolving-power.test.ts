@@ -4,6 +4,8 @@ import {
   evaluateDesign,
   freeSpectralRangeNm,
   grooveCount,
+  resolutionElementNm,
+  resolvingPower,
   theoreticalResolvingPower,
 } from '@/features/solver';
 import { expectClose } from './close-to';
@@ -24,10 +26,39 @@ describe('resolving power', () => {
     expectClose(freeSpectralRangeNm(600, -3), 200, 1e-12);
   });
 
-  it('delivered resolving power is λ / bandpass when the slits set the resolution', () => {
+  it('delivered resolving power adds the slit bandpass and the diffraction limit in quadrature', () => {
+    // Common practice: FWHMs of convolved near-Gaussian profiles add in quadrature.
     const p = evaluateDesign(makeDesign(), { wavelengthsNm: [500] }).points[0]!;
-    expectClose(p.resolvingPower, 500 / (p.bandpassNm ?? NaN), 1e-12);
+    const b = p.bandpassNm ?? NaN;
+    expectClose(p.resolvingPower, 500 / Math.sqrt(b * b + p.diffractionLimitNm ** 2), 1e-12);
+    // Wide slits: the slits set the resolution, within a fraction of a per cent of λ / bandpass.
+    expectClose(p.resolvingPower, 500 / b, 0.01 * (500 / b));
     expect(p.resolvingPower!).toBeLessThan(p.theoreticalResolvingPower);
+  });
+
+  it('where the bandpass equals the diffraction limit, R is |m|N / √2, not |m|N', () => {
+    // The case the larger-of-the-two rule got wrong by √2 (common practice: quadrature sum).
+    expectClose(resolutionElementNm(0.01, 0.01), 0.01 * Math.SQRT2, 1e-15);
+    expectClose(resolvingPower(600, 0.01, 0.01), 60000 / Math.SQRT2, 1e-9);
+  });
+
+  it('the quadrature sum is the FWHM of two convolved Gaussians (numerical convolution)', () => {
+    // Independent check: convolve two Gaussians of FWHM 3 and 4 on a grid and measure the FWHM
+    // of the result; for Gaussians the quadrature rule is exact (5).
+    const step = 0.005;
+    const xs = Array.from({ length: 6001 }, (_, i) => (i - 3000) * step);
+    const gauss = (fwhm: number) => xs.map((x) => Math.exp((-4 * Math.LN2 * x * x) / (fwhm * fwhm)));
+    const a = gauss(3);
+    const g = gauss(4);
+    const conv = xs.map((_, i) => {
+      let sum = 0;
+      for (let j = Math.max(0, i - 3000); j <= Math.min(6000, i + 3000); j++) sum += a[j]! * g[i - j + 3000]!;
+      return sum;
+    });
+    const peak = Math.max(...conv);
+    const above = xs.filter((_, i) => conv[i]! >= peak / 2);
+    const fwhm = above[above.length - 1]! - above[0]!;
+    expectClose(fwhm, resolutionElementNm(3, 4), 2 * step);
   });
 
   it('slits below the diffraction limit: the grating sets the resolution and both figures are reported', () => {
@@ -44,8 +75,9 @@ describe('resolving power', () => {
     const p = evaluation.points[0]!;
     expect(p.bandpassNm!).toBeLessThan(p.diffractionLimitNm);
     expectClose(p.diffractionLimitNm, 0.2, 1e-12);
-    // Never claims more than the grating can do.
-    expectClose(p.resolvingPower, p.theoreticalResolvingPower, 1e-12);
+    // Never claims more than the grating can do: close to |m|N, below it.
+    expect(p.resolvingPower!).toBeLessThan(p.theoreticalResolvingPower);
+    expect(p.resolvingPower!).toBeGreaterThan(0.99 * p.theoreticalResolvingPower);
     const warning = evaluation.warnings.find((w) => w.code === 'below-diffraction-limit');
     expect(warning?.wavelengthNm).toBe(600);
     expect(warning?.message).toContain('diffraction limit 0.2 nm');
