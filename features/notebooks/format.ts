@@ -1,4 +1,4 @@
-import { describeDesignPath, fieldTableName } from '@/shared/design-fields';
+import { describeDesignPath, describedFieldByPath, describedSections, fieldTableName } from '@/shared/design-fields';
 import { NONE, formatInteger, formatNumber, formatPercent } from '@/shared/format';
 import type { FigureKey, VersionSummary } from '@/shared/notebooks';
 
@@ -53,6 +53,11 @@ export function summaryFigures(summary: VersionSummary) {
   };
 }
 
+/** "a reviewer", "an owner", "an editor": the indefinite article by the word's first letter (enough for role names). */
+export function withArticle(word: string): string {
+  return `${/^[aeiou]/i.test(word) ? 'an' : 'a'} ${word}`;
+}
+
 /** `slits.exitWidthUm` → "Slits: exit width (µm)"; a whole section → "Detector". */
 export const describePath = describeDesignPath;
 
@@ -68,4 +73,30 @@ export function formatParam(value: unknown): string {
       .join(', ');
   }
   return String(value);
+}
+
+/**
+ * A field path in the editor's own words, for tables a person compares by eye: the editor's
+ * label with the unit its box shows ("Exit slit width (µm)", "Mount type"); a section path
+ * gives the editor's heading ("Mount"). Unknown paths are shown as they are.
+ */
+export function editorFieldName(path: string): string {
+  const field = describedFieldByPath.get(path);
+  if (field) return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
+  return describedSections.find((section) => section.id === path)?.title ?? path;
+}
+
+/** The editor's heading of the section a path is in ("Mount" for `layout.kind`). */
+export function editorSectionTitle(path: string): string {
+  const id = path.split('.')[0] ?? path;
+  return describedSections.find((section) => section.id === id)?.title ?? id;
+}
+
+/** A stored value at a path as the editor shows it: a choice by its label ("Czerny–Turner"), the rest as `formatParam`. */
+export function formatParamAt(path: string, value: unknown): string {
+  const field = describedFieldByPath.get(path);
+  if (field?.kind === 'choice' && typeof value === 'string') {
+    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
+  }
+  return formatParam(value);
 }

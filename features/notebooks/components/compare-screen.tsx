@@ -1,5 +1,5 @@
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
-import { useCallback, useMemo, useState } from 'react';
+import { Fragment, useCallback, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { flattenDesign } from '@/shared/design-diff';
 import type { CompareResponse, Version } from '@/shared/notebooks';
@@ -9,10 +9,11 @@ import { Card, Heading, Screen, Text, colors, fonts, space, useLayout } from '@/
 import { compareSeries, type ComparedMetric } from '../compare-series';
 import {
   changeTone,
-  describePath,
+  editorFieldName,
+  editorSectionTitle,
   figureLabels,
   formatFigure,
-  formatParam,
+  formatParamAt,
   formatRelativeChange,
 } from '../format';
 import { useCompareQuery, useNotebookQuery } from '../queries';
@@ -99,31 +100,42 @@ function ParametersTable({ data }: { data: CompareResponse }) {
       </Text>
       <View role="table" aria-label="Parameters" testID="compare-params">
         <HeaderRow titles={['Parameter', `v${data.a.number}`, `v${data.b.number}`]} />
-        {rows.map((path) => {
+        {rows.map((path, i) => {
           const differs = changed.has(path) || changed.has(path.split('.')[0] ?? '') || a[path] !== b[path];
+          // Rows come section by section; each section opens under the editor's heading for it.
+          const section = editorSectionTitle(path);
+          const opensSection = i === 0 || editorSectionTitle(rows[i - 1] ?? '') !== section;
           return (
-            <View
-              key={path}
-              role="row"
-              style={[styles.row, differs && styles.changedRow]}
-              testID={differs ? `changed-${path}` : `same-${path}`}
-            >
-              <Text
-                role="cell"
-                variant="small"
-                weight={differs ? 'semibold' : 'regular'}
-                style={styles.wideCell}
+            <Fragment key={path}>
+              {opensSection ? (
+                <View role="row" style={styles.sectionRow}>
+                  <Text role="rowheader" variant="caption" weight="semibold" tone="muted">
+                    {section.toUpperCase()}
+                  </Text>
+                </View>
+              ) : null}
+              <View
+                role="row"
+                style={[styles.row, differs && styles.changedRow]}
+                testID={differs ? `changed-${path}` : `same-${path}`}
               >
-                {differs ? '● ' : ''}
-                {describePath(path)}
-              </Text>
-              <Text role="cell" variant="number" style={[styles.cell, styles.num]}>
-                {formatParam(a[path])}
-              </Text>
-              <Text role="cell" variant="number" style={[styles.cell, styles.num, differs && styles.after]}>
-                {formatParam(b[path])}
-              </Text>
-            </View>
+                <Text
+                  role="cell"
+                  variant="small"
+                  weight={differs ? 'semibold' : 'regular'}
+                  style={styles.wideCell}
+                >
+                  {differs ? '● ' : ''}
+                  {editorFieldName(path)}
+                </Text>
+                <Text role="cell" variant="number" style={[styles.cell, styles.num]}>
+                  {formatParamAt(path, a[path])}
+                </Text>
+                <Text role="cell" variant="number" style={[styles.cell, styles.num, differs && styles.after]}>
+                  {formatParamAt(path, b[path])}
+                </Text>
+              </View>
+            </Fragment>
           );
         })}
       </View>
@@ -323,6 +335,7 @@ const styles = StyleSheet.create({
     borderBottomColor: colors.line,
   },
   headerRow: { borderBottomWidth: 2 },
+  sectionRow: { paddingTop: space.sm, paddingBottom: space.xxs, paddingHorizontal: space.xs },
   changedRow: { backgroundColor: '#FFF2E6' },
   wideCell: { flex: 2, minWidth: 0 },
   cell: { flex: 1, minWidth: 0 },

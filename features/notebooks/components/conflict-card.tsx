@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Design } from '@/shared/design';
 import type { Version } from '@/shared/notebooks';
 import { Button, Card, Text, colors, radius, space } from '@/features/ui';
-import { formatParam, formatWhen } from '../format';
+import { editorFieldName, formatParamAt, formatWhen } from '../format';
 import { conflictRows } from '../rebase';
 
 type Props = {
@@ -50,13 +50,13 @@ export function ConflictCard({ latest, baseVersion, mine, myNotes, busy, onReapp
           rows.map((row) => (
             <View key={row.path} role="row" style={styles.row} testID={`conflict-${row.path}`}>
               <Text role="cell" variant="small" style={styles.path}>
-                {row.label}
+                {editorFieldName(row.path)}
               </Text>
               <Text role="cell" variant="number" style={styles.value}>
-                {formatParam(row.latest)}
+                {formatParamAt(row.path, row.latest)}
               </Text>
               <Text role="cell" variant="number" style={[styles.value, styles.mine]}>
-                {formatParam(row.mine)}
+                {formatParamAt(row.path, row.mine)}
               </Text>
             </View>
           ))
@@ -64,7 +64,7 @@ export function ConflictCard({ latest, baseVersion, mine, myNotes, busy, onReapp
       </View>
       {notesDiffer ? (
         <Text variant="small" tone="muted">
-          The notes differ too; yours are kept in the notes box below whichever way you go on.
+          The notes differ too; yours are kept in the notes box under “Save version” whichever way you go on.
         </Text>
       ) : null}
       <View style={styles.actions}>

@@ -9,7 +9,7 @@ import { ReviewPanel } from '@/features/reviews';
 import { Button, Card, Text, colors, space } from '@/features/ui';
 import { draftFromDesign, formToDesign, Workbench, type Draft, type FormResult } from '@/features/workbench';
 import { clearEdits, loadEdits, notebookDraftKey, saveEdits, type StoredEdits } from '../draft-store';
-import { formatWhen } from '../format';
+import { formatWhen, withArticle } from '../format';
 import { useSaveVersionMutation, useVersionQuery, VersionConflict } from '../queries';
 import { reapplyEdits } from '../rebase';
 import { ConflictCard } from './conflict-card';
@@ -155,7 +155,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
   };
 
   const readOnlyWhy = !can(design.role, 'designs.edit')
-    ? `You are ${roleLabels[design.role].toLowerCase()} of this team: you can read, compare and clone this design, not change it.`
+    ? `You are ${withArticle(roleLabels[design.role].toLowerCase())} of this team: you can read, compare and clone this design, not change it.`
     : design.archived
       ? 'This design is archived; bring it back from the list to edit it.'
       : null;

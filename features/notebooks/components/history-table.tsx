@@ -63,7 +63,7 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
             {version.number !== current ? (
               <Pressable role="link" onPress={() => onOpen(version.number)} testID={`open-v${version.number}`} style={styles.linkBox}>
                 <Text weight="semibold" style={styles.link}>
-                  Open
+                  Open v{version.number}
                 </Text>
               </Pressable>
             ) : null}

@@ -66,7 +66,7 @@ export function MembersScreen() {
         </Heading>
         {role ? (
           <Text tone="muted" testID="my-role">
-            You are {roleLabels[role].toLowerCase()} of this {team.data?.personal ? 'workspace' : 'team'}.
+            You are {/^[aeiou]/i.test(roleLabels[role]) ? 'an' : 'a'} {roleLabels[role].toLowerCase()} of this {team.data?.personal ? 'workspace' : 'team'}.
           </Text>
         ) : null}
       </View>

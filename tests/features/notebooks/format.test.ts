@@ -1,5 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { changeTone, describePath, formatFigure, formatParam, formatRelativeChange } from '../../../features/notebooks/format';
+import { describedFieldByPath, layoutKindOptions } from '../../../shared/design-fields';
+import {
+  changeTone,
+  describePath,
+  editorFieldName,
+  editorSectionTitle,
+  formatFigure,
+  formatParam,
+  formatParamAt,
+  formatRelativeChange,
+  withArticle,
+} from '../../../features/notebooks/format';
 
 describe('changes between versions, in words', () => {
   it.each([
@@ -37,5 +48,32 @@ describe('changes between versions, in words', () => {
   it('names parameter paths the way the editor labels them', () => {
     expect(describePath('slits.exitWidthUm')).toBe('Slits: exit width (µm)');
     expect(describePath('detector')).toBe('Detector');
+  });
+});
+
+describe('the compare table in the editor’s words', () => {
+  it('names each field by the editor’s label and unit, and each section by its heading', () => {
+    const field = describedFieldByPath.get('slits.exitWidthUm');
+    expect(field?.kind).toBe('quantity');
+    expect(editorFieldName('slits.exitWidthUm')).toBe(`${field?.label} (µm)`);
+    expect(editorFieldName('layout.kind')).toBe('Mount type');
+    expect(editorSectionTitle('layout.kind')).toBe('Mount');
+    expect(editorFieldName('layout')).toBe('Mount');
+  });
+
+  it('shows every mount kind by the label its editor chip carries, never the stored value', () => {
+    for (const option of layoutKindOptions) {
+      expect(formatParamAt('layout.kind', option.value)).toBe(option.label);
+      expect(formatParamAt('layout.kind', option.value)).not.toBe(option.value);
+    }
+    expect(formatParamAt('layout.kind', 'czerny-turner')).toBe('Czerny–Turner');
+    expect(formatParamAt('layout.deviationAngleDeg', -12.5)).toBe('\u221212.5');
+  });
+
+  it('puts the right article before a role', () => {
+    expect(withArticle('reviewer')).toBe('a reviewer');
+    expect(withArticle('owner')).toBe('an owner');
+    expect(withArticle('editor')).toBe('an editor');
+    expect(withArticle('viewer')).toBe('a viewer');
   });
 });
