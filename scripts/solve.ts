@@ -61,8 +61,9 @@ export function parseSolveArgs(argv: readonly string[]): SolveArgs {
   const at = typeof values.at === 'string' ? values.at.split(',').map(wavelength) : undefined;
   let points: number | undefined;
   if (typeof values.points === 'string') {
-    points = decimal(values.points);
-    if (points === null) throw new UsageError(`--points: "${values.points}" is not a decimal number`);
+    const n = decimal(values.points);
+    if (n === null) throw new UsageError(`--points: "${values.points}" is not a decimal number`);
+    points = n;
   }
   const [input, extra] = positionals;
   if (extra !== undefined) throw new UsageError(`unexpected argument ${extra}`);
