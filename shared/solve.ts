@@ -52,6 +52,14 @@ export const aberrationSummarySchema = z.strictObject({
   cameraAstigmatismMm: nullableNumber,
 });
 
+export const detectorSampleSchema = z.strictObject({
+  position: z.enum(['start', 'centre', 'end']),
+  wavelengthNm: z.number(),
+  entranceImageUm: z.number(),
+  diffractionSpotUm: z.number(),
+  pixelsPerResolutionElement: z.number(),
+});
+
 export const detectorCoverageSchema = z.strictObject({
   widthMm: z.number(),
   startNm: nullableNumber,
@@ -60,6 +68,8 @@ export const detectorCoverageSchema = z.strictObject({
   coversRange: z.boolean(),
   nmPerPixel: z.number(),
   pixelsPerBandpass: z.number(),
+  pixelsPerResolutionElement: z.number(),
+  samples: z.array(detectorSampleSchema),
 });
 
 export const designSummarySchema = z.strictObject({

@@ -244,6 +244,7 @@ export function summarizeDesign(design: Design, plan: PreparedDesign = prepareDe
       range,
       centrePoint.reciprocalDispersionNmPerMm ?? 0,
       centrePoint.bandpassNm ?? 0,
+      { collimatorFocalMm: layout.collimatorFocalMm, entranceWidthMm: plan.entranceWidthMm, grooves: plan.grooves },
     );
   }
 

@@ -9,8 +9,14 @@ import type { DesignSummary, Warning, WavelengthPoint } from './results';
 
 /** Beyond this angle from the grating normal, efficiency and imaging degrade fast (common practice). */
 export const NEAR_GRAZING_DEG = 80;
-/** Fewer detector pixels per bandpass than this undersample the line shape (common practice: 2–3). */
-export const MIN_PIXELS_PER_BANDPASS = 2;
+/**
+ * Fewer detector pixels across one resolution element than this undersample the line shape
+ * (Nyquist: two samples per resolution element; common practice asks 2–3).
+ */
+export const MIN_PIXELS_PER_ELEMENT = 2;
+const POSITION_WORDS = { start: 'range start', centre: 'centre', end: 'range end' } as const;
+
+const listFormat = new Intl.ListFormat('en', { style: 'long', type: 'conjunction' });
 /** Blaze efficiency, relative to its peak, below which a wavelength is flagged. */
 export const LOW_EFFICIENCY = 0.2;
 
@@ -144,15 +150,20 @@ export function collectWarnings(
     });
   }
   const detector = summary.detector;
-  if (detector && detector.pixelsPerBandpass < MIN_PIXELS_PER_BANDPASS) {
+  const undersampled = detector?.samples.filter((x) => x.pixelsPerResolutionElement < MIN_PIXELS_PER_ELEMENT) ?? [];
+  if (undersampled.length > 0) {
+    const worst = undersampled.reduce((a, b) => (b.pixelsPerResolutionElement < a.pixelsPerResolutionElement ? b : a));
+    const at = undersampled.map((x) => `${formatNumber(x.wavelengthNm)} nm (${POSITION_WORDS[x.position]})`);
     warnings.push({
       code: 'undersampled',
-      wavelengthNm: summary.centreWavelengthNm,
+      wavelengthNm: worst.wavelengthNm,
       message:
-        `The bandpass at ${formatNumber(summary.centreWavelengthNm)} nm spans only ` +
-        `${formatNumber(detector.pixelsPerBandpass, 3)} detector pixels; sample it with at least ` +
-        `${MIN_PIXELS_PER_BANDPASS} (2–3 is common practice). Use smaller pixels, a longer camera ` +
-        'focal length or wider slits.',
+        `At ${listFormat.format(at)} a resolution element spans fewer than ${MIN_PIXELS_PER_ELEMENT} detector pixels: ` +
+        `only ${formatNumber(worst.pixelsPerResolutionElement, 3)} at ${formatNumber(worst.wavelengthNm)} nm ` +
+        `(entrance-slit image ${formatNumber(worst.entranceImageUm, 3)} µm, diffraction-limited line ` +
+        `${formatNumber(worst.diffractionSpotUm, 3)} µm on the detector; the exit slit plays no part in a ` +
+        `spectrograph). Sample it with at least ${MIN_PIXELS_PER_ELEMENT} pixels (Nyquist, common practice): ` +
+        'use smaller pixels, a longer camera focal length or a wider entrance slit.',
     });
   }
   return warnings;
