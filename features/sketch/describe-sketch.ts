@@ -1,5 +1,5 @@
 import type { Design } from '../../shared/design';
-import { formatDeg, formatNm, formatSketchNumber } from './sketch-format';
+import { formatDeg, formatMm, formatNm, formatSketchNumber } from './sketch-format';
 import type { SketchGeometry } from './sketch-types';
 
 /** One line naming the mount and its main figures, for screen readers and file titles. */
@@ -11,12 +11,16 @@ export function describeSketch(geometry: SketchGeometry, design: Design): string
         ? 'Littrow'
         : 'Ebert–Fastie';
   const { grating, layout } = design;
+  const optics =
+    geometry.kind === 'littrow'
+      ? `lens of ${formatMm(layout.collimatorFocalMm)} focal length`
+      : geometry.kind === 'ebert-fastie'
+        ? `one mirror of ${formatMm(layout.collimatorFocalMm)} focal length, used twice`
+        : `collimator ${formatMm(layout.collimatorFocalMm)}, camera ${formatMm(layout.cameraFocalMm)}`;
   const parts = [
     `${name} layout to scale`,
-    `${formatSketchNumber(grating.grooveDensityPerMm)} grooves/mm grating ${formatSketchNumber(grating.ruledWidthMm)} mm wide`,
-    geometry.kind === 'littrow'
-      ? `lens of ${formatSketchNumber(layout.collimatorFocalMm)} mm focal length`
-      : `collimator ${formatSketchNumber(layout.collimatorFocalMm)} mm, camera ${formatSketchNumber(layout.cameraFocalMm)} mm`,
+    `${formatSketchNumber(grating.grooveDensityPerMm)} grooves/mm grating ${formatMm(grating.ruledWidthMm)} wide`,
+    optics,
     geometry.settingReachable
       ? `grating turned ${formatDeg(geometry.rotationDeg)} for ${formatNm(geometry.settingNm)}`
       : `no grating angle delivers ${formatNm(geometry.settingNm)}`,

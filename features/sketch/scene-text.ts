@@ -1,5 +1,5 @@
 // The ui index would pull React components into the server; the theme file is plain constants.
-import { formatInteger, formatNumber } from '../../shared/format';
+import { formatInteger, formatNumber, withUnit } from '../../shared/format';
 import { colors } from '../ui/theme';
 import type { PointMm } from './sketch-types';
 import { FOOTER_PX, r, type SceneCanvas } from './scene-canvas';
@@ -16,7 +16,7 @@ export function textWidthPx(text: string, fontSize: number, weight: TextWeight):
 
 /** A length for a label: whole millimetres from 100 mm up, else three significant figures. */
 export function mmLabel(valueMm: number): string {
-  return `${valueMm >= 100 ? formatInteger(valueMm) : formatNumber(valueMm, 3)} mm`;
+  return withUnit(valueMm >= 100 ? formatInteger(valueMm) : formatNumber(valueMm, 3), 'mm');
 }
 
 /**

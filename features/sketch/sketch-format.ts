@@ -1,6 +1,12 @@
-import { formatFixed, formatNumber } from '../../shared/format';
+import { formatFixed, formatNumber, withUnit } from '../../shared/format';
 
-// The sketch's number labels, by the app's one formatting rule (true minus, grouping).
+// The sketch's number labels, by the app's one formatting rule (true minus, grouping, a
+// no-break space before the unit).
+
+/** A length in millimetres, in the sketch's figures. */
+export function formatMm(lengthMm: number): string {
+  return withUnit(formatSketchNumber(lengthMm), 'mm');
+}
 
 /**
  * Four significant figures, but never coarser than 0.1 from 1000 up, so the three rays of a
@@ -12,10 +18,10 @@ export function formatSketchNumber(value: number): string {
 }
 
 export function formatNm(wavelengthNm: number): string {
-  return `${formatSketchNumber(wavelengthNm)} nm`;
+  return withUnit(formatSketchNumber(wavelengthNm), 'nm');
 }
 
 /** Angles read against the drawing: two decimals, one from 100° up. */
 export function formatDeg(angleDeg: number): string {
-  return `${formatFixed(angleDeg, Math.abs(angleDeg) >= 100 ? 1 : 2)}°`;
+  return withUnit(formatFixed(angleDeg, Math.abs(angleDeg) >= 100 ? 1 : 2), '°');
 }

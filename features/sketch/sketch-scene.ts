@@ -7,6 +7,7 @@
 import { angleArcLayer } from './scene-arcs';
 import { diffractedRays, entranceBeam, referenceLines } from './scene-beams';
 import { sceneCanvas } from './scene-canvas';
+import { declutterTexts } from './scene-declutter';
 import { footerLayer } from './scene-footer';
 import { gratingLayer, opticsLayer } from './scene-optics';
 import { exitPlaneShape, slitsLayer } from './scene-slits';
@@ -26,20 +27,27 @@ export function buildSketchScene(geometry: SketchGeometry, options: SceneOptions
     ...entranceBeam(geometry, canvas),
     ...diffractedRays(geometry, canvas),
   ];
+  const arcs = angleArcLayer(geometry, canvas);
+  const optics = opticsLayer(geometry, canvas);
+  const grating = gratingLayer(geometry, canvas);
+  const slits = slitsLayer(geometry, canvas);
   const layers: SceneLayer[] = [
     { shapes: beams, texts: [] },
-    angleArcLayer(geometry, canvas),
-    opticsLayer(geometry, canvas),
-    gratingLayer(geometry, canvas),
+    arcs,
+    optics,
+    grating,
     { shapes: exitPlane ? [exitPlane] : [], texts: [] },
-    slitsLayer(geometry, canvas),
+    slits,
     footer,
   ];
+  // No label lands on another: the parts' names keep their places first, then the angle values
+  // move out of their way; the footer stays where it is.
+  const texts = declutterTexts([...optics.texts, ...grating.texts, ...slits.texts, ...arcs.texts], footer.texts, canvas);
   return {
     widthPx: canvas.widthPx,
     heightPx: canvas.heightPx,
     pxPerMm: canvas.pxPerMm,
     scaleBarMm: footer.scaleBarMm,
-    shapes: [...layers.flatMap((layer) => layer.shapes), ...layers.flatMap((layer) => layer.texts)],
+    shapes: [...layers.flatMap((layer) => layer.shapes), ...texts, ...footer.texts],
   };
 }

@@ -187,7 +187,7 @@ describe('sketchGeometry against the solver', () => {
     expect(g.settingReachable).toBe(false);
     expect(g.rays).toEqual([]);
     expect(g.unreachable).toHaveLength(3);
-    expect(g.unreachable[0]?.reason).toMatch(/cannot be set for 5000 nm/);
+    expect(g.unreachable[0]?.reason).toMatch(/cannot be set for 5000\snm/);
     expect(g.arcs).toEqual([]);
   });
 

@@ -66,7 +66,7 @@ describe('sketchSvgDocument', () => {
     }
     const bar = /id="sketch-scale-bar" data-length-mm="(\d+)"/.exec(svg);
     expect(bar).not.toBeNull();
-    expect(svg).toContain(`>${bar?.[1]} mm</text>`);
+    expect(svg).toContain(`>${bar?.[1]}\u00A0mm</text>`);
     expect(elements.filter((name) => name === 'path').length).toBeGreaterThan(10);
   });
 
@@ -74,7 +74,7 @@ describe('sketchSvgDocument', () => {
     const far: Design = { ...exampleDesign, range: { startNm: 500, endNm: 2500 } };
     const text = sketchSvgDocument(far, { settingNm: 600 });
     expect(parseElements(text)[0]).toBe('svg');
-    expect(text).toMatch(/<desc>[^<]*Not drawn: 2500 nm/);
+    expect(text).toMatch(/<desc>[^<]*Not drawn: 2500\snm/);
   });
 
   it('escapes markup characters in text', () => {
