@@ -28,14 +28,19 @@ export type QuantityDescription = Names & {
   step: number | readonly number[];
   /** Smallest value the stepper goes down to. */
   min?: number;
+  /** Largest value the stepper goes up to (the schema's bound, on the step grid). */
+  max?: number;
   help: string;
 };
 
 export type IntegerDescription = Names & {
   kind: 'integer';
+  /** Stepper increment (ArrowUp/ArrowDown; ×10 with Shift). */
+  step: number;
   /** Whether 0 is skipped by the stepper (diffraction order). */
   skipZero?: boolean;
   min?: number;
+  max?: number;
   help: string;
 };
 
@@ -84,7 +89,11 @@ const designDescription: DesignDescription = {
         kind: 'integer',
         label: 'Diffraction order',
         short: 'order',
+        step: 1,
         skipZero: true,
+        // The schema's bounds (shared/design.ts).
+        min: -1000,
+        max: 1000,
         help: 'Whole number other than 0; negative orders are allowed.',
       },
       blazeWavelengthNm: {
@@ -141,6 +150,8 @@ const designDescription: DesignDescription = {
         unitLabel: '°',
         step: 1,
         min: 0,
+        // The schema refuses 180° and more.
+        max: 179,
         help: 'Full angle between incident and diffracted chief rays; 0 for Littrow.',
       },
       collimatorFocalMm: {
@@ -171,6 +182,8 @@ const designDescription: DesignDescription = {
         unitLabel: '°',
         step: 0.5,
         min: 0,
+        // The schema refuses 90° and more.
+        max: 89.5,
         help: 'Half the angle between the rays to and from the collimator.',
       },
       cameraOffAxisDeg: {
@@ -181,6 +194,8 @@ const designDescription: DesignDescription = {
         unitLabel: '°',
         step: 0.5,
         min: 0,
+        // The schema refuses 90° and more.
+        max: 89.5,
         help: 'Leave empty to see the coma-free angle.',
       },
     },
@@ -293,7 +308,9 @@ const designDescription: DesignDescription = {
         kind: 'integer',
         label: 'Pixel count',
         short: 'pixel count',
+        step: 1,
         min: 1,
+        max: 10_000_000,
         help: 'Pixels along the dispersion.',
       },
     },

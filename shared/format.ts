@@ -18,6 +18,13 @@ export const MINUS = '\u2212';
 export const NARROW_SPACE = '\u202F';
 /** Stands for a value that is missing or not finite. */
 export const NONE = '—';
+/**
+ * Between a number and its unit ("6 nm"): a no-break space, so a narrow column never puts the
+ * unit on a line of its own. A full-width space, as the SI Brochure writes a unit (§5.4.3, from memory).
+ */
+export const UNIT_SPACE = '\u00A0';
+/** Units written straight after the number, without a space: the plane-angle signs (SI Brochure §5.4.3, from memory). */
+const ATTACHED_UNITS = new Set(['°', '′', '″']);
 
 // Numbers: en-US gives a decimal point; the group separator and minus sign are replaced below.
 const numberFormats = new Map<string, Intl.NumberFormat>();
@@ -82,6 +89,43 @@ export function formatNumber(value: number | null | undefined, significant = 4):
     .join('');
   if (exponent === '0') return mantissa;
   return `${mantissa}×10${[...exponent].map((c) => superscripts[c] ?? c).join('')}`;
+}
+
+/**
+ * A value's text and its unit as one unbreakable run: "0.0689" + "nm" → "0.0689 nm" (no-break
+ * space), "12.5" + "°" → "12.5°". Every plain space inside the value is made unbreakable too, so
+ * a composed value such as "380 – 780" or "0.07 / 6" never wraps. The value alone when there is no
+ * unit, and "—" stays bare.
+ */
+export function withUnit(text: string, unit?: string | null): string {
+  const value = keepTogether(text);
+  if (!unit || text === NONE) return value;
+  return `${value}${unitSuffix(unit)}`;
+}
+
+/** What follows a value for its unit: " nm" with a no-break space, "°" with none. */
+export function unitSuffix(unit: string): string {
+  return ATTACHED_UNITS.has(unit) ? unit : `${UNIT_SPACE}${unit}`;
+}
+
+/** `formatNumber` with its unit, kept on one line: 578.9 nm → "578.9 nm" (no-break space). */
+export function formatQuantity(value: number | null | undefined, unit: string, significant = 4): string {
+  return withUnit(formatNumber(value, significant), unit);
+}
+
+/** The text with every plain space made a no-break space: for a value a line must not split. */
+export function keepTogether(text: string): string {
+  return text.replace(/ /g, UNIT_SPACE);
+}
+
+/**
+ * A signed number as typed (a form's text, "-2") written for reading ("−2", true minus); text
+ * that is not a plain decimal number is returned as it was.
+ */
+export function formatTypedNumber(text: string): string {
+  const trimmed = text.trim();
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)$/.test(trimmed)) return text;
+  return trimmed.replace(/^-/, MINUS).replace(/^\+/, '');
 }
 
 /** A whole count, grouped like every other number but never cut to significant figures. */

@@ -78,6 +78,7 @@ function speak(message: string): string {
 export function formToDesign(values: FormValues): FormResult {
   const errors: FieldErrors = {};
   const candidate: Record<string, Record<string, unknown>> = {};
+  const oneMirror = values.layout.kind === 'ebert-fastie';
   for (const section of describedSections) {
     const typed = section.fields.filter((field) => field.kind !== 'choice');
     const blank = typed.every((field) => read(values, field.path).trim() === '');
@@ -89,10 +90,13 @@ export function formToDesign(values: FormValues): FormResult {
         target[field.key] = read(values, field.path);
         continue;
       }
-      const parsed = parseField(field, read(values, field.path));
+      // An Ebert–Fastie's camera is its collimator mirror: the camera fields are hidden and take
+      // the collimator's values, whatever they held before the switch (kept for a switch back).
+      const source = oneMirror ? (MIRRORED_BY_COLLIMATOR[field.path] ?? field) : field;
+      const parsed = parseField(source, read(values, source.path));
       if (parsed.ok) {
         if (parsed.value !== undefined) target[field.key] = parsed.value;
-      } else {
+      } else if (source === field) {
         errors[field.path] = parsed.message;
       }
     }
@@ -106,6 +110,21 @@ export function formToDesign(values: FormValues): FormResult {
     }
   }
   return { ok: false, fields: errors };
+}
+
+/** The camera fields an Ebert–Fastie reads from its one mirror's (the collimator's) fields. */
+const MIRRORED_BY_COLLIMATOR: Readonly<Record<string, FieldSpec>> = {
+  'layout.cameraFocalMm': fieldByPathOrThrow('layout.collimatorFocalMm'),
+  'layout.cameraOffAxisDeg': fieldByPathOrThrow('layout.collimatorOffAxisDeg'),
+};
+
+/** The fields an Ebert–Fastie hides from the editor, because its one mirror sets them. */
+export const ONE_MIRROR_HIDDEN_PATHS: ReadonlySet<string> = new Set(Object.keys(MIRRORED_BY_COLLIMATOR));
+
+function fieldByPathOrThrow(path: string): FieldSpec {
+  const field = allFields.find((f) => f.path === path);
+  if (!field) throw new Error(`No described field ${path}`);
+  return field;
 }
 
 let lastRead: { key: string; result: FormResult } | null = null;
@@ -136,32 +155,47 @@ export function designToForm(design: Design): FormValues {
   return form as FormValues;
 }
 
-/** The value a stepper moves to from `text`, or null when the text is not a number yet. */
-export function stepValue(field: FieldSpec, text: string, direction: 1 | -1): string | null {
+/**
+ * The value a stepper (or ArrowUp/ArrowDown) moves to from `text`, or null when the text is not a
+ * number yet. `times` is how many steps at once (10 with Shift). The result stays within the
+ * field's min and max; a list of catalogue values is walked `times` entries along, stopping at its ends.
+ */
+export function stepValue(field: FieldSpec, text: string, direction: 1 | -1, times = 1): string | null {
   const parsed = parseField(field, text);
   if (!parsed.ok) return null;
   const current = parsed.value;
+  const clamp = (v: number) => Math.min(field.max ?? Infinity, Math.max(field.min ?? -Infinity, v));
   if (field.kind === 'integer') {
-    let next = (current ?? 0) + direction;
-    if (field.skipZero && next === 0) next += direction;
-    if (field.min !== undefined) next = Math.max(field.min, next);
-    return String(next);
+    const from = current ?? 0;
+    let next = from + direction * field.step * times;
+    // Stepping across 0 (orders): 0 is no order, so it is passed over, not landed on.
+    if (field.skipZero && (next === 0 || Math.sign(next) !== Math.sign(from))) {
+      if (next === 0 || from !== 0) next += direction;
+    }
+    return String(clamp(next));
   }
   if (Array.isArray(field.step)) {
     const list = field.step as readonly number[];
     const value = current ?? list[0] ?? 0;
-    const next =
-      direction > 0 ? list.find((v) => v > value + 1e-9) : [...list].reverse().find((v) => v < value - 1e-9);
-    return formatMachineNumber(next ?? value);
+    const ahead =
+      direction > 0 ? list.filter((v) => v > value + 1e-9) : [...list].reverse().filter((v) => v < value - 1e-9);
+    const next = ahead[Math.min(times, ahead.length) - 1];
+    return formatMachineNumber(clamp(next ?? value));
   }
   const step = field.step as number;
   const base = current ?? field.min ?? 0;
   // Snap to the step grid first, so 103 + 10 → 110 rather than 113.
   const snapped =
     direction > 0
-      ? Math.floor(base / step + 1e-9) * step + step
-      : Math.ceil(base / step - 1e-9) * step - step;
-  return formatMachineNumber(Math.max(field.min ?? -Infinity, snapped));
+      ? Math.floor(base / step + 1e-9) * step + step * times
+      : Math.ceil(base / step - 1e-9) * step - step * times;
+  return formatMachineNumber(clamp(snapped));
+}
+
+/** Whether typed text names its own unit ("0.5 m", "-25 µm"), so the field's unit suffix would repeat it. */
+export function carriesOwnUnit(text: string): boolean {
+  const trimmed = text.trim();
+  return trimmed !== '' && !/^[+\-\u2212]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(trimmed);
 }
 
 /** The canonical reading of a field's text when it differs from what was typed ("0.5 m" → "500"). */

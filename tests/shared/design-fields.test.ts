@@ -81,3 +81,20 @@ describe('the described design schema', () => {
     expect(layoutKindOptions.map((option) => option.value)).toEqual([...LAYOUT_KINDS]);
   });
 });
+
+describe('stepper bounds', () => {
+  it('gives every integer field a step, and keeps every max inside what the schema accepts', () => {
+    for (const field of describedFields) {
+      if (field.kind === 'integer') expect(field.step, field.path).toBeGreaterThan(0);
+      if (field.kind === 'choice' || field.max === undefined) continue;
+      const [section, key] = field.path.split('.') as [keyof typeof designSchema.shape, string];
+      const inner = designSchema.shape[section];
+      const shape = (inner instanceof z.ZodOptional ? inner.unwrap() : inner) as z.ZodObject;
+      const schema = shape.shape[key] as z.ZodType;
+      expect(schema.safeParse(field.max).success, `${field.path} max ${field.max}`).toBe(true);
+      // One more step would be refused: the max is the last value on the step grid.
+      const step = typeof field.step === 'number' ? field.step : 1;
+      expect(schema.safeParse(field.max + step).success, `${field.path} past max`).toBe(false);
+    }
+  });
+});

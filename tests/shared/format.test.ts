@@ -6,7 +6,10 @@ import {
   formatMachineNumber,
   formatNumber,
   formatPercent,
+  formatQuantity,
+  formatTypedNumber,
   formatWhen,
+  withUnit,
 } from '@/shared/format';
 
 const minus = '\u2212';
@@ -107,5 +110,33 @@ describe('dates', () => {
 
   it('writes a dash for a date that does not parse', () => {
     expect(formatDay('not a date', 'UTC')).toBe('—');
+  });
+});
+
+describe('numbers with units', () => {
+  const nbsp = '\u00A0';
+
+  it.each([
+    { text: '0.0689', unit: 'nm', out: `0.0689${nbsp}nm` },
+    { text: '12.50', unit: '°', out: '12.50°' },
+    { text: '0.07 / 6', unit: 'mm', out: `0.07${nbsp}/${nbsp}6${nbsp}mm` },
+    { text: '380 – 780', unit: 'nm', out: `380${nbsp}–${nbsp}780${nbsp}nm` },
+    { text: '—', unit: 'nm', out: '—' },
+    { text: '1.5', unit: '', out: '1.5' },
+  ] satisfies { text: string; unit: string; out: string }[])('"$text" with "$unit" reads "$out"', ({ text, unit, out }) => {
+    expect(withUnit(text, unit)).toBe(out);
+  });
+
+  it('leaves no place where a line could break between a number and its unit', () => {
+    const text = formatQuantity(-578.94, 'nm');
+    expect(text).toBe(`${minus}578.9${nbsp}nm`);
+    expect(text).not.toMatch(/ /);
+  });
+
+  it('writes a typed signed number with a true minus and leaves other text alone', () => {
+    expect(formatTypedNumber('-2')).toBe(`${minus}2`);
+    expect(formatTypedNumber(' +3 ')).toBe('3');
+    expect(formatTypedNumber('0.5 m')).toBe('0.5 m');
+    expect(formatTypedNumber('')).toBe('');
   });
 });

@@ -1,45 +1,57 @@
 import { memo, useState } from 'react';
-import { useController, type Control, type UseFormSetValue } from 'react-hook-form';
+import { useController, type Control } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { Text, space } from '@/features/ui';
+import type { LayoutKind } from '@/shared/design';
 import { layoutKindOptions } from '@/shared/design-fields';
+import { formatTypedNumber, withUnit } from '@/shared/format';
 import { fieldLabel, sections, type SectionId } from '../fields';
-import type { FormValues } from '../form-model';
+import { ONE_MIRROR_HIDDEN_PATHS, type FormValues } from '../form-model';
 import { markEditStart } from '../perf-marks';
 import { EditorSection } from './editor-section';
 import { ChoiceRow } from './choice-row';
 import { FieldInput } from './field-input';
 
+/** One line per folded section; numbers as typed, but with a true minus and units that never wrap. */
 function sectionSummary(id: SectionId, v: FormValues): string {
-  const or = (text: string, fallback: string) => (text.trim() === '' ? fallback : text);
+  const or = (text: string, fallback: string) => (text.trim() === '' ? fallback : formatTypedNumber(text));
   switch (id) {
     case 'grating':
-      return `${or(v.grating.grooveDensityPerMm, '?')}/mm · order ${or(v.grating.order, '?')}${v.grating.blazeWavelengthNm ? ` · blaze ${v.grating.blazeWavelengthNm} nm` : ''}`;
-    case 'layout':
-      return `${layoutKindOptions.find((k) => k.value === v.layout.kind)?.label ?? v.layout.kind} · ${or(v.layout.deviationAngleDeg, '?')}° · ${or(v.layout.collimatorFocalMm, '?')}/${or(v.layout.cameraFocalMm, '?')} mm`;
+      return `${or(v.grating.grooveDensityPerMm, '?')}/mm · order ${or(v.grating.order, '?')}${v.grating.blazeWavelengthNm ? ` · blaze ${withUnit(or(v.grating.blazeWavelengthNm, '?'), 'nm')}` : ''}`;
+    case 'layout': {
+      const kind = layoutKindOptions.find((k) => k.value === v.layout.kind)?.label ?? v.layout.kind;
+      const focal =
+        v.layout.kind === 'ebert-fastie'
+          ? withUnit(or(v.layout.collimatorFocalMm, '?'), 'mm')
+          : withUnit(`${or(v.layout.collimatorFocalMm, '?')}/${or(v.layout.cameraFocalMm, '?')}`, 'mm');
+      return `${kind} · ${withUnit(or(v.layout.deviationAngleDeg, '?'), '°')} · ${focal}`;
+    }
     case 'slits':
-      return `${or(v.slits.entranceWidthUm, '?')}/${or(v.slits.exitWidthUm, '?')} µm × ${or(v.slits.heightMm, '?')} mm`;
+      return `${withUnit(`${or(v.slits.entranceWidthUm, '?')}/${or(v.slits.exitWidthUm, '?')}`, 'µm')} × ${withUnit(or(v.slits.heightMm, '?'), 'mm')}`;
     case 'range':
-      return `${or(v.range.startNm, '?')}–${or(v.range.endNm, '?')} nm`;
+      return withUnit(`${or(v.range.startNm, '?')}–${or(v.range.endNm, '?')}`, 'nm');
     case 'source':
       return v.source.minNm || v.source.maxNm
-        ? `${or(v.source.minNm, '?')}–${or(v.source.maxNm, '?')} nm`
+        ? withUnit(`${or(v.source.minNm, '?')}–${or(v.source.maxNm, '?')}`, 'nm')
         : 'not set';
     case 'detector':
       return v.detector.pixelCount || v.detector.pixelPitchUm
-        ? `${or(v.detector.pixelCount, '?')} × ${or(v.detector.pixelPitchUm, '?')} µm`
+        ? `${or(v.detector.pixelCount, '?')} × ${withUnit(or(v.detector.pixelPitchUm, '?'), 'µm')}`
         : 'none (scanning)';
   }
 }
 
+/** Why an Ebert–Fastie shows no camera fields: one short line under the mount choice. */
+export const ONE_MIRROR_NOTE =
+  'Ebert–Fastie: one mirror is both collimator and camera, so the camera’s focal length and off-axis angle are the collimator’s.';
+
 type PickerProps = {
   control: Control<FormValues>;
-  setValue: UseFormSetValue<FormValues>;
-  collimatorFocalText: string;
+  onSwitchMount: (kind: LayoutKind) => void;
   readOnly: boolean;
 };
 
-function MountKindPicker({ control, setValue, collimatorFocalText, readOnly }: PickerProps) {
+function MountKindPicker({ control, onSwitchMount, readOnly }: PickerProps) {
   const { field } = useController({ control, name: 'layout.kind' });
   return (
     <ChoiceRow
@@ -50,11 +62,9 @@ function MountKindPicker({ control, setValue, collimatorFocalText, readOnly }: P
       testID="mount-kind"
       onChange={(kind) => {
         markEditStart();
-        field.onChange(kind);
-        // Each mount has one value it cannot do without; set it rather than leave an error behind.
-        if (kind === 'littrow') setValue('layout.deviationAngleDeg', '0', { shouldValidate: true });
-        if (kind === 'ebert-fastie')
-          setValue('layout.cameraFocalMm', collimatorFocalText, { shouldValidate: true });
+        // The new mount gets a deviation it can work with (the last one typed for it), never a
+        // Littrow 0 left behind on a two-mirror mount.
+        onSwitchMount(kind);
       }}
     />
   );
@@ -62,7 +72,7 @@ function MountKindPicker({ control, setValue, collimatorFocalText, readOnly }: P
 
 type Props = {
   control: Control<FormValues>;
-  setValue: UseFormSetValue<FormValues>;
+  onSwitchMount: (kind: LayoutKind) => void;
   values: FormValues;
   /** Sections fold on a phone. */
   collapsible: boolean;
@@ -73,7 +83,7 @@ type Props = {
 /** Every field of the design, grouped as a designer thinks about them. */
 export const DesignEditor = memo(function DesignEditor({
   control,
-  setValue,
+  onSwitchMount,
   values,
   collapsible,
   highlightedPath,
@@ -88,6 +98,7 @@ export const DesignEditor = memo(function DesignEditor({
     detector: false,
   });
   const highlightedSection = highlightedPath?.split('.')[0] as SectionId | undefined;
+  const oneMirror = values.layout.kind === 'ebert-fastie';
   return (
     <View style={styles.root} testID="design-editor">
       {sections.map((section) => {
@@ -108,14 +119,14 @@ export const DesignEditor = memo(function DesignEditor({
               </Text>
             ) : null}
             {section.id === 'layout' ? (
-              <MountKindPicker
-                control={control}
-                setValue={setValue}
-                collimatorFocalText={values.layout.collimatorFocalMm}
-                readOnly={readOnly}
-              />
+              <MountKindPicker control={control} onSwitchMount={onSwitchMount} readOnly={readOnly} />
             ) : null}
-            {section.fields.map((field) => (
+            {section.id === 'layout' && oneMirror ? (
+              <Text variant="small" tone="muted" testID="one-mirror-note">
+                {ONE_MIRROR_NOTE}
+              </Text>
+            ) : null}
+            {(oneMirror ? section.fields.filter((f) => !ONE_MIRROR_HIDDEN_PATHS.has(f.path)) : section.fields).map((field) => (
               <FieldInput
                 key={field.path}
                 control={control}

@@ -2,8 +2,10 @@ import { memo, useState } from 'react';
 import { useController, type Control } from 'react-hook-form';
 import { Button, TextField } from '@/features/ui';
 import type { FieldSpec } from '../fields';
-import { canonicalText, stepValue, type FormValues } from '../form-model';
+import { formatTypedNumber, withUnit } from '@/shared/format';
+import { canonicalText, carriesOwnUnit, stepValue, type FormValues } from '../form-model';
 import { markEditStart } from '../perf-marks';
+import { stepKeyProps } from '../step-keys';
 
 type Props = {
   control: Control<FormValues>;
@@ -16,18 +18,21 @@ type Path = Parameters<typeof useController<FormValues>>[0]['name'];
 
 /**
  * One design value: typed with any unit the field understands, shown with its canonical reading
- * ("= 500 mm"), nudged by touch-sized steppers, and normalised to the canonical number on blur.
+ * ("= 500 mm"), nudged by touch-sized steppers or ArrowUp/ArrowDown (×10 with Shift), and
+ * normalised to the canonical number on blur. The unit suffix steps aside while the text names
+ * its own unit, so "−25 µm" never reads "−25 µm µm".
  */
 export const FieldInput = memo(function FieldInput({ control, field, highlighted, readOnly = false }: Props) {
   const { field: input, fieldState } = useController({ control, name: field.path as Path });
   const text = typeof input.value === 'string' ? input.value : '';
   const canonical = field.kind === 'quantity' ? canonicalText(field, text) : null;
   const unitLabel = field.kind === 'quantity' ? field.unitLabel : undefined;
+  const suffix = unitLabel && !carriesOwnUnit(text) ? unitLabel : undefined;
   // While typing, say what the field wants; once it reads, say what it was read as.
   const [focused, setFocused] = useState(false);
   const hint =
     canonical !== null
-      ? `= ${canonical} ${unitLabel ?? ''}`.trim()
+      ? `= ${withUnit(formatTypedNumber(canonical), unitLabel)}`
       : focused
         ? field.help
         : field.optional && text === ''
@@ -37,9 +42,11 @@ export const FieldInput = memo(function FieldInput({ control, field, highlighted
     markEditStart();
     input.onChange(next);
   };
-  const step = (direction: 1 | -1) => {
-    const next = stepValue(field, text, direction);
-    if (next !== null) change(next);
+  const step = (direction: 1 | -1, times = 1): boolean => {
+    const next = stepValue(field, text, direction, times);
+    if (next === null) return false;
+    if (next !== text) change(next);
+    return true;
   };
   const stepperLabel = field.label.toLowerCase();
   return (
@@ -57,7 +64,8 @@ export const FieldInput = memo(function FieldInput({ control, field, highlighted
       editable={!readOnly}
       error={fieldState.error?.message ?? null}
       hint={hint}
-      unit={unitLabel}
+      unit={suffix}
+      {...(readOnly ? {} : stepKeyProps(step))}
       numeric
       highlighted={highlighted}
       inputMode={field.kind === 'integer' ? 'numeric' : 'text'}

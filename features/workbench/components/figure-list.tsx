@@ -1,9 +1,13 @@
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, space, type } from '@/features/ui';
+import { keepTogether, unitSuffix } from '@/shared/format';
 
 export type Figure = { label: string; value: string; unit?: string; testID?: string };
 
-/** Label on the left, value with unit on the right; wraps to two lines when the row is narrow. */
+/**
+ * Label on the left, value with unit on the right; the label wraps when the row is narrow, the
+ * value and its unit never do (one run joined by no-break spaces, `withUnit`).
+ */
 export function FigureList({ figures }: { figures: readonly Figure[] }) {
   return (
     <View style={styles.list}>
@@ -11,8 +15,10 @@ export function FigureList({ figures }: { figures: readonly Figure[] }) {
         <View key={figure.label} style={styles.row}>
           <Text style={styles.label}>{figure.label}</Text>
           <Text style={styles.value} testID={figure.testID}>
-            {figure.value}
-            {figure.unit && figure.value !== '—' ? <Text style={styles.unit}> {figure.unit}</Text> : null}
+            {keepTogether(figure.value)}
+            {figure.unit && figure.value !== '—' ? (
+              <Text style={styles.unit}>{unitSuffix(figure.unit)}</Text>
+            ) : null}
           </Text>
         </View>
       ))}

@@ -1,9 +1,9 @@
 import { memo, useState } from 'react';
-import { ScrollView, StyleSheet, Text, View } from 'react-native';
+import { ScrollView, StyleSheet, Text, View, type NativeScrollEvent, type NativeSyntheticEvent } from 'react-native';
 import type { WavelengthPoint } from '@/features/solver';
 import { Button, Card, colors, fonts, space, type, copyText } from '@/features/ui';
 import { rangeTableCsv } from '../csv';
-import { formatNumber, formatPercent } from '@/shared/format';
+import { formatInteger, formatNumber, formatPercent } from '@/shared/format';
 import { overlapsText } from '../overlaps';
 
 const columns = [
@@ -17,7 +17,7 @@ const columns = [
     title: 'other\norders',
     width: 84,
     cell: (p: WavelengthPoint) =>
-      p.overlapCount === 0 ? '—' : overlapsText(p, (o) => `${o.order}: ${formatNumber(o.wavelengthNm, 3)}`, ', '),
+      p.overlapCount === 0 ? '—' : overlapsText(p, (o) => `${formatInteger(o.order)}: ${formatNumber(o.wavelengthNm, 3)}`, ', '),
   },
 ] as const;
 
@@ -30,9 +30,35 @@ export const RangeTable = memo(function RangeTable({
   dimmed: boolean;
 }) {
   const [copied, setCopied] = useState<null | 'ok' | 'failed'>(null);
+  // On a phone the columns are wider than the card: say so, and which way the rest lies.
+  const [viewWidth, setViewWidth] = useState(0);
+  const [contentWidth, setContentWidth] = useState(0);
+  const [scrollX, setScrollX] = useState(0);
+  const overflow = contentWidth - viewWidth;
+  const scrolls = viewWidth > 0 && overflow > 1;
+  const atEnd = scrollX >= overflow - 2;
+  const onScroll = (event: NativeSyntheticEvent<NativeScrollEvent>) => setScrollX(event.nativeEvent.contentOffset.x);
   return (
     <Card title="Across the range" testID="range-table">
-      <ScrollView horizontal style={dimmed ? styles.dimmed : undefined}>
+      {scrolls ? (
+        <Text style={styles.cue} testID="range-table-scroll-cue">
+          {atEnd
+            ? `← Scroll back for the first columns (${columns.length} in all)`
+            : `Scroll sideways for all ${columns.length} columns →`}
+        </Text>
+      ) : null}
+      <ScrollView
+        horizontal
+        style={dimmed ? styles.dimmed : undefined}
+        onLayout={(event) => setViewWidth(event.nativeEvent.layout.width)}
+        onContentSizeChange={(width) => setContentWidth(width)}
+        onScroll={onScroll}
+        scrollEventThrottle={32}
+        // A keyboard user scrolls it with the arrow keys once it has focus (WCAG 2.1.1).
+        focusable={scrolls}
+        aria-label={scrolls ? 'Figures across the wavelength range, scrolls sideways' : undefined}
+        testID="range-table-scroll"
+      >
         <View role="table" aria-label="Figures across the wavelength range">
           <View role="row" style={[styles.row, styles.headRow]}>
             {columns.map((c) => (
@@ -103,4 +129,5 @@ const styles = StyleSheet.create({
   reason: { color: colors.danger, fontFamily: fonts.semibold },
   actions: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.md },
   copied: { ...type.small, color: colors.ok, fontFamily: fonts.regular },
+  cue: { ...type.caption, fontFamily: fonts.semibold, color: colors.primary },
 });

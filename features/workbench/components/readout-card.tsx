@@ -2,8 +2,12 @@ import { memo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Evaluation, WavelengthPoint } from '@/features/solver';
 import { Card, Text, TextField, space } from '@/features/ui';
-import { formatNumber, formatPercent } from '@/shared/format';
+import type { Design } from '@/shared/design';
+import { formatInteger, formatMachineNumber, formatNumber, formatPercent, formatQuantity } from '@/shared/format';
+import { carriesOwnUnit } from '../form-model';
 import { overlapsText } from '../overlaps';
+import { clampToRange } from '../readout-wavelength';
+import { stepKeyProps } from '../step-keys';
 import type { SelectedReadout } from '../hooks/use-workbench';
 import { markEditStart } from '../perf-marks';
 import { FigureList, type Figure } from './figure-list';
@@ -51,7 +55,7 @@ function pointFigures(p: WavelengthPoint): Figure[] {
       value:
         p.overlapCount === 0
           ? 'none'
-          : overlapsText(p, (o) => `m=${o.order}: ${formatNumber(o.wavelengthNm)} nm`, ', '),
+          : overlapsText(p, (o) => `m=${formatInteger(o.order)}: ${formatQuantity(o.wavelengthNm, 'nm')}`, ', '),
     },
     { label: 'Scan sensitivity', value: formatNumber(p.scanSensitivityNmPerArcsec, 3), unit: 'nm per arc-second' },
   ];
@@ -129,6 +133,10 @@ type Props = {
   selectedText: string;
   onChangeSelected: (text: string) => void;
   selected: SelectedReadout;
+  /** Why the read-out wavelength just moved (a range change); null when it did not. */
+  note: string | null;
+  /** The design's range: ArrowUp/ArrowDown step the read-out within it. */
+  range: Design['range'];
   dimmed: boolean;
 };
 
@@ -138,31 +146,48 @@ export const ReadoutCard = memo(function ReadoutCard({
   selectedText,
   onChangeSelected,
   selected,
+  note,
+  range,
   dimmed,
 }: Props) {
+  const change = (text: string) => {
+    markEditStart();
+    onChangeSelected(text);
+  };
+  // 1 nm a step (10 with Shift), within the range.
+  const step = (direction: 1 | -1, times: number): boolean => {
+    if (!selected.ok) return false;
+    const from = selected.wavelengthNm;
+    const next = clampToRange(direction > 0 ? Math.floor(from) + times : Math.ceil(from) - times, range);
+    change(formatMachineNumber(next));
+    return true;
+  };
   return (
     <Card title="At one wavelength" testID="readout-card">
       <TextField
         label="Wavelength to read out"
         value={selectedText}
-        onChangeText={(text) => {
-          markEditStart();
-          onChangeSelected(text);
-        }}
-        unit="nm"
+        onChangeText={change}
+        unit={carriesOwnUnit(selectedText) ? undefined : 'nm'}
         numeric
+        {...stepKeyProps(step)}
         error={selected.ok ? null : selected.message}
         hint="Type a wavelength, or tap a plot."
         autoCapitalize="none"
         testID="field-readout-wavelength"
       />
+      {note ? (
+        <Text variant="small" tone="warning" role="status" testID="readout-moved">
+          {note}
+        </Text>
+      ) : null}
       <View style={dimmed ? styles.dimmed : undefined}>
         {selected.ok ? (
           selected.point.reachable ? (
             <FigureList figures={pointFigures(selected.point)} />
           ) : (
             <Text tone="danger" testID="readout-unreachable">
-              {formatNumber(selected.wavelengthNm)} nm cannot be reached: {selected.point.reason}
+              {formatQuantity(selected.wavelengthNm, 'nm')} cannot be reached: {selected.point.reason}
             </Text>
           )
         ) : null}

@@ -125,7 +125,7 @@ export function Workbench({
       ) : null}
       <DesignEditor
         control={bench.form.control}
-        setValue={bench.form.setValue}
+        onSwitchMount={bench.switchMount}
         values={bench.values}
         collapsible={layout === 'phone'}
         highlightedPath={highlightedPath}
@@ -176,6 +176,8 @@ export function Workbench({
       dimmed={dimmed}
     />
   );
+      note={bench.readoutNote}
+      range={bench.design.range}
   const warnings = <WarningList warnings={deferredEvaluation.warnings} onShowField={showField} />;
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   const pad = { paddingBottom: insets.bottom + space.xxl };

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch, type FieldErrors as FormErrors, type Resolver } from 'react-hook-form';
 import {
   evaluateDesign,
@@ -8,11 +8,14 @@ import {
   type Evaluation,
   type WavelengthPoint,
 } from '@/features/solver';
-import type { Design } from '@/shared/design';
+import type { Design, LayoutKind } from '@/shared/design';
+import { formatMachineNumber } from '@/shared/format';
 import type { FieldErrors } from '@/shared/validation';
 import type { Draft } from '../draft';
 import { designToForm, formToDesign, readForm, type FormResult, type FormValues } from '../form-model';
+import { rememberDeviation, switchDeviation, type DeviationMemory } from '../mount-switch';
 import { defaultPreset, type Preset } from '../presets';
+import { followRange, outsideRangeMessage, withReadoutPoint } from '../readout-wavelength';
 
 /** Points along the range for the plots and the sketch's live redraw. */
 export const PLOT_POINTS = 200;
@@ -52,7 +55,16 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     resolver: designResolver,
   });
   const values = useWatch({ control: form.control }) as FormValues;
-  const [selectedText, setSelectedText] = useState(start.selectedNm);
+  const [selectedText, setSelectedTextState] = useState(start.selectedNm);
+  // The wavelength the user last chose (typed, tapped or from a preset); the read-out follows a
+  // range change away from it and back to it.
+  const [wantedNm, setWantedNm] = useState<number | null>(() => readNm(start.selectedNm));
+  const [readoutNote, setReadoutNote] = useState<string | null>(null);
+  const setSelectedText = useCallback((text: string) => {
+    setSelectedTextState(text);
+    setWantedNm(readNm(text));
+    setReadoutNote(null);
+  }, []);
   const [presetId, setPresetId] = useState<string | null>(start.presetId);
 
   // The unit parser arrives as its own chunk after the first paint; until then only plain numbers
@@ -82,17 +94,52 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
   if (result.ok && result.design !== lastValid) setLastValid(result.design);
 
   const shown = result.ok ? result.design : lastValid;
-  const evaluation: Evaluation = useMemo(() => evaluateDesign(shown, { points: PLOT_POINTS }), [shown]);
+
+  // A new range that no longer holds the read-out moves it to the nearer end, and says so.
+  const rangeKey = `${shown.range.startNm}|${shown.range.endNm}`;
+  const [rangeSeen, setRangeSeen] = useState(rangeKey);
+  if (rangeKey !== rangeSeen) {
+    setRangeSeen(rangeKey);
+    if (wantedNm !== null) {
+      const moved = followRange(wantedNm, readNm(selectedText), shown.range);
+      if (moved.note) {
+        setSelectedTextState(formatMachineNumber(moved.nm));
+        setReadoutNote(moved.note);
+      }
+    }
+  }
+
+  const sweep: Evaluation = useMemo(() => evaluateDesign(shown, { points: PLOT_POINTS }), [shown]);
   const table = useMemo(() => evaluateDesign(shown, { points: TABLE_ROWS }).points, [shown]);
 
   const selected: SelectedReadout = useMemo(() => {
     const parsed = parseQuantity(selectedText, 'nm');
     if (!parsed.ok) return { ok: false, message: parsed.message };
     if (parsed.value <= 0) return { ok: false, message: 'must be greater than 0' };
+    const outside = outsideRangeMessage(parsed.value, shown.range);
+    if (outside) return { ok: false, message: outside };
     const point = evaluateDesign(shown, { wavelengthsNm: [parsed.value] }).points[0] as WavelengthPoint;
     return { ok: true, wavelengthNm: parsed.value, point };
     // eslint-disable-next-line react-hooks/exhaustive-deps -- unitsReady changes how the same text reads
   }, [selectedText, shown, unitsReady]);
+
+  // The plots sample the range; the read-out's own wavelength joins their samples.
+  const evaluation = useMemo(() => withReadoutPoint(sweep, selected.ok ? selected.point : null), [sweep, selected]);
+
+  // Each mount keeps the last deviation typed for it, so a switch never leaves a two-mirror mount at 0.
+  const deviationMemory = useRef<DeviationMemory>(
+    rememberDeviation({}, start.values.layout.kind, start.values.layout.deviationAngleDeg),
+  );
+  const switchMount = useCallback(
+    (kind: LayoutKind) => {
+      const current = form.getValues('layout');
+      const next = switchDeviation(deviationMemory.current, current.kind, current.deviationAngleDeg, kind);
+      deviationMemory.current = next.memory;
+      form.setValue('layout.kind', kind, { shouldDirty: true });
+      form.setValue('layout.deviationAngleDeg', next.deviationText, { shouldValidate: true, shouldDirty: true });
+    },
+    [form],
+  );
 
   useEffect(() => {
     onDraftChange({ values, selectedNm: selectedText, presetId });
@@ -101,6 +148,11 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
   function applyPreset(preset: Preset) {
     const previous = form.getValues();
     form.reset(designToForm(preset.design));
+    deviationMemory.current = rememberDeviation(
+      deviationMemory.current,
+      preset.design.layout.kind,
+      String(preset.design.layout.deviationAngleDeg),
+    );
     setPresetId(preset.id);
     setSelectedText(String((preset.design.range.startNm + preset.design.range.endNm) / 2));
     return previous;
@@ -123,6 +175,9 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     selectedText,
     setSelectedText,
     selected,
+    /** Says why the read-out wavelength moved after a range change; null otherwise. */
+    readoutNote,
+    switchMount,
     presetId,
     applyPreset,
     restore,
@@ -130,3 +185,9 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
 }
 
 export type Workbench = ReturnType<typeof useWorkbench>;
+
+/** A plain wavelength in nm from the read-out's text, or null while it does not read as one. */
+function readNm(text: string): number | null {
+  const parsed = parseQuantity(text, 'nm');
+  return parsed.ok && parsed.value > 0 ? parsed.value : null;
+}

@@ -3,7 +3,9 @@ import { loadUnitParser } from '../../../features/solver';
 import { designSchema, exampleDesign } from '../../../shared/design';
 import { fieldByPath } from '../../../features/workbench/fields';
 import {
+  ONE_MIRROR_HIDDEN_PATHS,
   canonicalText,
+  carriesOwnUnit,
   designToForm,
   formToDesign,
   stepValue,
@@ -116,5 +118,78 @@ describe('field helpers', () => {
     expect(stepValue(field('slits.exitWidthUm'), '103', -1)).toBe('100');
     expect(stepValue(field('slits.exitWidthUm'), '5', -1)).toBe('5');
     expect(stepValue(field('slits.exitWidthUm'), 'abc', 1)).toBeNull();
+  });
+});
+
+describe('keyboard stepping (ArrowUp/ArrowDown, ×10 with Shift)', () => {
+  it.each([
+    { path: 'slits.exitWidthUm', text: '100', direction: 1, times: 10, next: '200' },
+    { path: 'slits.exitWidthUm', text: '103', direction: 1, times: 10, next: '200' },
+    { path: 'slits.exitWidthUm', text: '50', direction: -1, times: 10, next: '5' },
+    { path: 'layout.deviationAngleDeg', text: '175', direction: 1, times: 10, next: '179' },
+    { path: 'layout.collimatorOffAxisDeg', text: '89', direction: 1, times: 1, next: '89.5' },
+    { path: 'layout.collimatorOffAxisDeg', text: '89.5', direction: 1, times: 1, next: '89.5' },
+    { path: 'grating.order', text: '1', direction: -1, times: 10, next: '-10' },
+    { path: 'grating.order', text: '5', direction: -1, times: 10, next: '-6' },
+    { path: 'grating.order', text: '-3', direction: 1, times: 1, next: '-2' },
+    { path: 'grating.order', text: '995', direction: 1, times: 10, next: '1000' },
+    { path: 'detector.pixelCount', text: '1', direction: -1, times: 10, next: '1' },
+    { path: 'grating.grooveDensityPerMm', text: '600', direction: 1, times: 10, next: '3600' },
+    { path: 'grating.grooveDensityPerMm', text: '600', direction: -1, times: 10, next: '50' },
+  ] satisfies { path: string; text: string; direction: 1 | -1; times: number; next: string }[])(
+    '$path: $text stepped $direction × $times → $next',
+    ({ path, text, direction, times, next }) => {
+      expect(stepValue(field(path), text, direction, times)).toBe(next);
+    },
+  );
+
+  it('lands every stepped value inside what the schema accepts', () => {
+    for (const path of ['grating.order', 'layout.deviationAngleDeg', 'layout.cameraOffAxisDeg', 'detector.pixelCount']) {
+      for (const direction of [1, -1] as const) {
+        let values = designToForm(exampleDesign);
+        for (let i = 0; i < 300; i++) {
+          const [section, key] = path.split('.') as [keyof FormValues, string];
+          const text = (values[section] as Record<string, string>)[key] ?? '';
+          values = edit(values, path, stepValue(field(path), text, direction, 10) ?? text);
+        }
+        // Littrow aside, a deviation or angle at its stepper's end is still a valid design.
+        expect(formToDesign(values).ok, `${path} ${direction}`).toBe(true);
+      }
+    }
+  });
+});
+
+describe('the unit suffix', () => {
+  it.each([
+    { text: '-25', own: false },
+    { text: '\u221225', own: false },
+    { text: '0.5', own: false },
+    { text: '1e3', own: false },
+    { text: '', own: false },
+    { text: '-25 µm', own: true },
+    { text: '0.5 m', own: true },
+    { text: '1200/mm', own: true },
+  ] satisfies { text: string; own: boolean }[])('"$text" names its own unit: $own', ({ text, own }) => {
+    expect(carriesOwnUnit(text)).toBe(own);
+  });
+});
+
+describe('an Ebert–Fastie in the editor', () => {
+  it('takes the camera from its one mirror, whatever the hidden camera fields still hold', () => {
+    let values = edit(designToForm(exampleDesign), 'layout.kind', 'ebert-fastie');
+    values = edit(values, 'layout.cameraFocalMm', '450');
+    values = edit(values, 'layout.cameraOffAxisDeg', 'not a number');
+    const result = formToDesign(values);
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    expect(result.design.layout.cameraFocalMm).toBe(exampleDesign.layout.collimatorFocalMm);
+    expect(result.design.layout.cameraOffAxisDeg).toBe(exampleDesign.layout.collimatorOffAxisDeg);
+    expect(ONE_MIRROR_HIDDEN_PATHS).toEqual(new Set(['layout.cameraFocalMm', 'layout.cameraOffAxisDeg']));
+  });
+
+  it('keeps the camera fields for a switch back to Czerny–Turner', () => {
+    const values = edit(designToForm(exampleDesign), 'layout.cameraFocalMm', '450');
+    const result = formToDesign(values);
+    expect(result.ok && result.design.layout.cameraFocalMm).toBe(450);
   });
 });
