@@ -132,7 +132,8 @@ export const mailOutbox = pgTable('mail_outbox', {
 /**
  * A design notebook: one design's life in a team. `latestVersion` mirrors the highest version
  * number so lists and the save check read one row; it only changes inside the save transaction.
- * A clone keeps where it came from, with the source's title as it was then.
+ * A clone keeps where it came from, with the source's title as it was then; an imported notebook
+ * file, when it was imported (`importedAt`, the same instant as `createdAt`).
  */
 export const designs = pgTable(
   'designs',
@@ -150,6 +151,8 @@ export const designs = pgTable(
     clonedFromDesignId: text().references((): AnyPgColumn => designs.id, { onDelete: 'set null' }),
     clonedFromVersion: integer(),
     clonedFromTitle: text(),
+    /** When the design came from an imported notebook file; null for one made here (or a clone). */
+    importedAt: timestamp({ withTimezone: true, mode: 'date' }),
     createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true, mode: 'date' }).notNull().defaultNow(),
   },

@@ -41,6 +41,7 @@ const designColumns = {
   clonedFromDesignId: designs.clonedFromDesignId,
   clonedFromVersion: designs.clonedFromVersion,
   clonedFromTitle: designs.clonedFromTitle,
+  importedAt: designs.importedAt,
   createdAt: designs.createdAt,
   updatedAt: designs.updatedAt,
   creatorName: creator.displayName,
@@ -78,6 +79,7 @@ type SavedDesignRow = {
   cloned_from_design_id: string | null;
   cloned_from_version: number | null;
   cloned_from_title: string | null;
+  imported_at: string | null;
   created_at: string;
   updated_at: string;
   creator_name: string | null;
@@ -96,6 +98,7 @@ function fromSavedRow(row: SavedDesignRow): SavedDesign {
     clonedFromDesignId: row.cloned_from_design_id,
     clonedFromVersion: row.cloned_from_version,
     clonedFromTitle: row.cloned_from_title,
+    importedAt: row.imported_at === null ? null : new Date(row.imported_at),
     createdAt: new Date(row.created_at),
     updatedAt: new Date(row.updated_at),
     creatorName: row.creator_name,

@@ -305,6 +305,8 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
           tags: file.tags,
           baselineVersion: file.baselineVersion,
           clonedFrom: file.clonedFrom ? { designId: null, ...file.clonedFrom } : null,
+          // The file keeps its title: the list and the header tell the copy apart by this mark.
+          imported: true,
         },
         file.versions.map((v) => ({
           ...v,

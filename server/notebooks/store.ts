@@ -47,6 +47,7 @@ function toDesign(row: DesignRow & { creatorName: string | null }): DesignFields
       row.clonedFromTitle !== null && row.clonedFromVersion !== null
         ? { designId: row.clonedFromDesignId, title: row.clonedFromTitle, version: row.clonedFromVersion }
         : null,
+    importedAt: row.importedAt?.toISOString() ?? null,
   };
 }
 
@@ -84,6 +85,8 @@ export type NewDesign = {
   createdAt: Date;
   baselineVersion?: number | null;
   clonedFrom?: { designId: string | null; title: string; version: number } | null;
+  /** Made from an imported notebook file: its `importedAt` is its `createdAt`. */
+  imported?: boolean;
 };
 
 /** The summary is worked out once, here, so that no read runs the solver. */
@@ -114,6 +117,7 @@ function designRow(id: string, design: NewDesign, latestVersion: number): Design
     clonedFromDesignId: design.clonedFrom?.designId ?? null,
     clonedFromVersion: design.clonedFrom?.version ?? null,
     clonedFromTitle: design.clonedFrom?.title ?? null,
+    importedAt: design.imported ? design.createdAt : null,
     createdAt: design.createdAt,
     updatedAt: design.createdAt,
   };

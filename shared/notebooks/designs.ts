@@ -26,6 +26,11 @@ export const notebookSchema = z.object({
   /** The version an owner marked as the team's starting point; null when none. */
   baselineVersion: z.number().int().positive().nullable(),
   clonedFrom: provenanceSchema.nullable(),
+  /**
+   * When the design was made by importing a notebook file (shown as "Imported from a file on
+   * <date>"); null for one made here or cloned. Not written into exported files.
+   */
+  importedAt: z.iso.datetime().nullable(),
   /** The caller's role in the design's team (the client hides buttons with `can`). */
   role: roleSchema,
 });

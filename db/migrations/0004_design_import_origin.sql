@@ -1,0 +1,1 @@
+ALTER TABLE "designs" ADD COLUMN "imported_at" timestamp with time zone;
