@@ -193,6 +193,10 @@ export function useImportMutation(teamId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (file: NotebookFileInput) => call(routes.importFile, { params: { teamId }, body: file }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
+    onSuccess: (made) => {
+      // The answer is the new design with its latest version: the notebook opens without a fetch.
+      queryClient.setQueryData(routeKey(routes.get, design(made.design.id)), made);
+      return queryClient.invalidateQueries({ queryKey: routeKey(routes.list) });
+    },
   });
 }

@@ -1,8 +1,9 @@
-import { useRouter, type Href } from 'expo-router';
+import { Link, useRouter, type Href } from 'expo-router';
 import { Pressable, StyleSheet, View, type TextStyle } from 'react-native';
 import type { Notebook } from '@/shared/notebooks';
-import { Button, Text, colors, fonts, space } from '@/features/ui';
+import { Button, Text, colors, fonts, radius, space, type } from '@/features/ui';
 import { formatDay } from '../format';
+import { baselineChip, importedOriginText } from '../notices';
 import { Badge } from './history-table';
 
 /** Title, owner, updated, latest version, actions: the wide table's columns. */
@@ -88,9 +89,7 @@ function TitleCell({ design }: { design: Notebook }) {
         </Text>
       </Pressable>
       <View style={styles.marks}>
-        {design.baselineVersion !== null ? (
-          <Badge label={`Baseline v${design.baselineVersion}`} tone="accent" />
-        ) : null}
+        {design.baselineVersion !== null ? <BaselineLink design={design} version={design.baselineVersion} /> : null}
         {design.tags.map((t) => (
           <Badge key={t} label={t} tone="primary" />
         ))}
@@ -100,7 +99,27 @@ function TitleCell({ design }: { design: Notebook }) {
           from {design.clonedFrom.title} v{design.clonedFrom.version}
         </Text>
       ) : null}
+      {design.importedAt ? (
+        <Text variant="caption" tone="muted" testID={`imported-${design.id}`}>
+          {importedOriginText(design.importedAt)}
+        </Text>
+      ) : null}
     </View>
+  );
+}
+
+/** The baseline chip opens that version, the one colleagues start from, in one step. */
+function BaselineLink({ design, version }: { design: Notebook; version: number }) {
+  const chip = baselineChip(design.title, version);
+  return (
+    <Link
+      href={`/notebooks/${design.id}/v/${version}` as Href}
+      accessibilityLabel={chip.accessibleName}
+      style={styles.baselineLink}
+      testID={`baseline-${design.id}`}
+    >
+      {chip.label}
+    </Link>
   );
 }
 
@@ -132,5 +151,18 @@ const styles = StyleSheet.create({
   titleCell: { gap: space.xxs, alignItems: 'flex-start' },
   marks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   link: { color: colors.primary, textDecorationLine: 'underline', fontFamily: fonts.semibold },
+  // A chip that is also a link: the accent fill says "baseline", the underline says "opens";
+  // 24 px tall at least (WCAG 2.2 SC 2.5.8, target size minimum).
+  baselineLink: {
+    ...type.caption,
+    lineHeight: 20,
+    paddingVertical: 2,
+    paddingHorizontal: space.xs,
+    borderRadius: radius.sm,
+    backgroundColor: colors.accent,
+    color: colors.onPrimary,
+    fontFamily: fonts.semibold,
+    textDecorationLine: 'underline',
+  },
   rowActions: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'flex-start' },
 });

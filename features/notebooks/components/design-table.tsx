@@ -1,7 +1,9 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Notebook } from '@/shared/notebooks';
-import { Text, space } from '@/features/ui';
+import { Button, Text, colors, radius, space } from '@/features/ui';
+import { focusButton } from '../hooks/focus-button';
+import { archiveNoticeText, type ArchiveNotice } from '../notices';
 import { useUpdateDesignMutation } from '../queries';
 import { DesignRow, columnStyle, tableRowStyle } from './design-row';
 import { DesignRowEditor } from './design-row-editor';
@@ -21,8 +23,49 @@ type Props = {
 export function DesignTable({ designs, wide, owner, emptyText, error, loading }: Props) {
   const update = useUpdateDesignMutation();
   const [editing, setEditing] = useState<string | null>(null);
+  const [notice, setNotice] = useState<ArchiveNotice | null>(null);
+  const noticeBox = useRef<View>(null);
+
+  const setArchived = (design: Pick<Notebook, 'id' | 'title'>, archived: boolean) =>
+    update.mutate(
+      { id: design.id, body: { archived } },
+      {
+        onSuccess: () => setNotice({ kind: archived ? 'archived' : 'restored', id: design.id, title: design.title }),
+        onError: (error) => setNotice({ kind: 'failed', title: design.title, reason: error.message }),
+      },
+    );
+
+  // The row whose button had focus has left the list: focus goes to the way back.
+  useEffect(() => {
+    if (notice?.kind === 'archived') focusButton(noticeBox.current, 'Undo');
+  }, [notice]);
+
   return (
     <View role="table" aria-label="Designs" testID="design-table">
+      <View
+        ref={noticeBox}
+        role="status"
+        accessibilityLiveRegion="polite"
+        style={notice ? [styles.notice, notice.kind === 'failed' && styles.noticeFailed] : null}
+        testID="archive-status"
+      >
+        {notice ? (
+          <>
+            <Text tone={notice.kind === 'failed' ? 'danger' : 'default'} style={styles.noticeText}>
+              {archiveNoticeText(notice)}
+            </Text>
+            {notice.kind === 'archived' ? (
+              <Button
+                kind="secondary"
+                label="Undo"
+                onPress={() => setArchived(notice, false)}
+                disabled={update.isPending}
+                testID="undo-archive"
+              />
+            ) : null}
+          </>
+        ) : null}
+      </View>
       {wide ? (
         <View role="row" style={[tableRowStyle, styles.headerRow]}>
           {['Title', 'Owner', 'Updated', 'Latest', ''].map((title, i) => (
@@ -49,7 +92,7 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
             wide={wide}
             owner={owner}
             onEdit={() => setEditing(design.id)}
-            onArchive={() => update.mutate({ id: design.id, body: { archived: !design.archived } })}
+            onArchive={() => setArchived(design, !design.archived)}
             archiving={update.isPending}
           />
         ),
@@ -70,6 +113,18 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
 }
 
 const styles = StyleSheet.create({
+  notice: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    gap: space.sm,
+    padding: space.sm,
+    marginBottom: space.sm,
+    borderRadius: radius.md,
+    backgroundColor: colors.okSoft,
+  },
+  noticeFailed: { backgroundColor: colors.surfaceSunken },
+  noticeText: { flexShrink: 1 },
   headerRow: { borderBottomWidth: 2 },
   empty: { paddingVertical: space.md },
 });

@@ -1,9 +1,9 @@
-import { useLocalSearchParams } from 'expo-router';
+import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/shared/teams';
 import { TeamSwitcher, useTeamsQuery } from '@/features/teams';
-import { Button, Card, Heading, Screen, Text, space, useLayout } from '@/features/ui';
+import { Button, Card, Heading, Screen, Text, space, useDocumentTitle, useLayout } from '@/features/ui';
 import { useListView } from '../hooks/use-list-view';
 import { listQuery, type ListView } from '../list-view';
 import { useDesignListQuery, useImportMutation } from '../queries';
@@ -29,6 +29,13 @@ export function NotebookListScreen() {
   const [creating, setCreating] = useState(false);
   const list = useDesignListQuery(teamId, listQuery(view, pageSize));
   const importFile = useImportMutation(teamId);
+  const router = useRouter();
+  // The imported notebook opens at once; its header says it came from a file.
+  const importAndOpen = async (file: Parameters<typeof importFile.mutateAsync>[0]) => {
+    const made = await importFile.mutateAsync(file);
+    router.push(`/notebooks/${made.design.id}` as Href);
+  };
+  useDocumentTitle(teams.data && !team ? 'No such team' : team ? `Designs of ${team.personal ? 'your personal workspace' : team.name}` : 'Team designs');
 
   if (teams.data && !team) {
     return (
@@ -87,10 +94,11 @@ export function NotebookListScreen() {
       {owner ? (
         <Card title="Import">
           <Text tone="muted">
-            A notebook file exported from Blazebook: every version and its notes. Problems are listed with
-            their place in the file, and nothing is half-imported.
+            A notebook file exported from Blazebook: every version and its notes. It becomes a new design
+            here, marked as imported, and opens. Problems are listed with their place in the file, and
+            nothing is half-imported.
           </Text>
-          <ImportButton onImport={(file) => importFile.mutateAsync(file)} busy={importFile.isPending} />
+          <ImportButton onImport={importAndOpen} busy={importFile.isPending} />
         </Card>
       ) : null}
     </Screen>

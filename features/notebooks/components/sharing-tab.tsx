@@ -1,12 +1,13 @@
 import { useRouter, type Href } from 'expo-router';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import type { Notebook, Version } from '@/shared/notebooks';
+import type { Notebook, ShareLink, Version } from '@/shared/notebooks';
 import { exportFileName } from '@/shared/export-file-name';
 import { can } from '@/shared/teams';
 import { useTeamsQuery } from '@/features/teams';
 import { Button, Card, Screen, Text, TextField, colors, copyText, saveTextFile, space } from '@/features/ui';
 import { formatDay, formatWhen } from '../format';
+import { focusButton } from '../hooks/focus-button';
 import {
   fetchNotebookFile,
   useBaselineMutation,
@@ -210,6 +211,16 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
           ) : null}
         </View>
       ) : null}
+      {revoke.isError ? (
+        <Text role="alert" tone="danger">
+          {errorText(revoke.error)}
+        </Text>
+      ) : null}
+      {revoke.isSuccess ? (
+        <Text role="status" tone="ok" testID="revoke-status">
+          The link was revoked: it no longer opens.
+        </Text>
+      ) : null}
       {links.data && links.data.length > 0 ? (
         <View role="list" style={styles.links}>
           {links.data.map((link) => (
@@ -226,13 +237,7 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
                 </Text>
               </View>
               {link.active ? (
-                <Button
-                  kind="quiet"
-                  label="Revoke"
-                  accessibilityLabel={`Revoke the link to ${link.version === null ? 'the latest version' : `v${link.version}`}`}
-                  onPress={() => revoke.mutate(link.id)}
-                  disabled={revoke.isPending}
-                />
+                <RevokeControl link={link} onRevoke={() => revoke.mutate(link.id)} busy={revoke.isPending} />
               ) : (
                 <Text variant="small" tone="muted">
                   Inactive
@@ -243,6 +248,68 @@ function SharePanel({ design, version }: { design: Notebook; version: Version })
         </View>
       ) : null}
     </Card>
+  );
+}
+
+const linkName = (link: ShareLink) => `the link to ${link.version === null ? 'the latest version' : `v${link.version}`}`;
+
+/**
+ * Revoking cannot be undone (whoever holds the link loses it for good), so it asks first. Focus
+ * moves to the safe choice when the question appears, and back to "Revoke" when it is kept.
+ */
+function RevokeControl({ link, onRevoke, busy }: { link: ShareLink; onRevoke: () => void; busy: boolean }) {
+  const [asking, setAsking] = useState(false);
+  const box = useRef<View>(null);
+  const revokeName = `Revoke ${linkName(link)}`;
+  const [focusOn, setFocusOn] = useState<string | null>(null);
+  useEffect(() => {
+    if (focusOn) focusButton(box.current, focusOn);
+  }, [focusOn, asking]);
+
+  if (!asking) {
+    return (
+      <View ref={box}>
+        <Button
+          kind="quiet"
+          label="Revoke"
+          accessibilityLabel={revokeName}
+          onPress={() => {
+            setAsking(true);
+            setFocusOn('Keep link');
+          }}
+          disabled={busy}
+          testID={`revoke-${link.id}`}
+        />
+      </View>
+    );
+  }
+  return (
+    <View ref={box} role="group" aria-label={`Revoke ${linkName(link)}?`} style={styles.confirm} testID={`confirm-revoke-${link.id}`}>
+      <Text variant="small" weight="semibold">
+        Revoke {linkName(link)}? Whoever has it will no longer be able to open it.
+      </Text>
+      <View style={styles.row}>
+        <Button
+          label="Revoke link"
+          onPress={() => {
+            setAsking(false);
+            setFocusOn(null);
+            onRevoke();
+          }}
+          disabled={busy}
+          testID={`revoke-confirm-${link.id}`}
+        />
+        <Button
+          kind="secondary"
+          label="Keep link"
+          onPress={() => {
+            setAsking(false);
+            setFocusOn(revokeName);
+          }}
+          testID={`revoke-keep-${link.id}`}
+        />
+      </View>
+    </View>
   );
 }
 
@@ -313,6 +380,7 @@ const styles = StyleSheet.create({
   links: { gap: space.xs },
   link: {
     flexDirection: 'row',
+    flexWrap: 'wrap',
     alignItems: 'center',
     justifyContent: 'space-between',
     gap: space.md,
@@ -321,4 +389,6 @@ const styles = StyleSheet.create({
     borderTopColor: colors.line,
   },
   linkText: { flexShrink: 1, minWidth: 0, gap: space.xxs },
+  // On a phone the question takes the row's full width under the link's details.
+  confirm: { flexGrow: 1, flexBasis: 260, gap: space.xs },
 });
