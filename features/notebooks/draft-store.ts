@@ -64,3 +64,31 @@ export function saveEdits(key: string, value: StoredEdits): void {
 export function clearEdits(key: string): void {
   edits.remove(key);
 }
+
+/**
+ * Where the next version's edits start when none are kept: the version's parameters, with empty
+ * notes and message. A version's notes explain that version; carrying them over silently let one
+ * go out with its predecessor's reasoning, so they are only ever brought in on request
+ * (`startFromNotes`).
+ */
+export function freshEdits(draft: StoredEdits['draft'], baseVersion: number): StoredEdits {
+  return { draft, baseVersion, notes: '', message: '' };
+}
+
+/**
+ * The notes box after "Start from vN's notes": the earlier notes, with anything already typed
+ * kept below them; pressing it twice changes nothing.
+ */
+export function startFromNotes(typed: string, earlier: string): string {
+  if (typed.trim() === '') return earlier;
+  if (earlier.trim() === '' || typed.startsWith(earlier)) return typed;
+  return `${earlier}\n\n${typed}`;
+}
+
+/**
+ * Whether the notes add anything to a new version: not when empty, nor when they are the
+ * earlier version's notes word for word (the parameters decide then).
+ */
+export function notesAreNew(notes: string, earlier: string): boolean {
+  return notes.trim() !== '' && notes.trim() !== earlier.trim();
+}

@@ -1,14 +1,23 @@
 import { useRouter, type Href } from 'expo-router';
-import { useCallback, useEffect, useRef, useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { useCallback, useEffect, useRef, useState, type ReactNode } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
 import { changedPaths } from '@/shared/design-diff';
 import { versionMessageSchema, type Notebook, type Version } from '@/shared/notebooks';
 import { can, roleLabels } from '@/shared/teams';
 import { ApiError } from '@/features/api';
 import { ReviewPanel } from '@/features/reviews';
-import { Button, Card, Text, colors, space } from '@/features/ui';
+import { Button, Card, Text, colors, minTouch, radius, space } from '@/features/ui';
 import { draftFromDesign, formToDesign, Workbench, type Draft, type FormResult } from '@/features/workbench';
-import { clearEdits, loadEdits, notebookDraftKey, saveEdits, type StoredEdits } from '../draft-store';
+import {
+  clearEdits,
+  freshEdits,
+  loadEdits,
+  notebookDraftKey,
+  notesAreNew,
+  saveEdits,
+  startFromNotes,
+  type StoredEdits,
+} from '../draft-store';
 import { formatWhen, withArticle } from '../format';
 import { useSaveVersionMutation, useVersionQuery, VersionConflict } from '../queries';
 import { reapplyEdits } from '../rebase';
@@ -24,10 +33,37 @@ type Props = {
   /** Remount the workbench from what is now in storage (after a rebase or a discard). */
   onRestart: (note?: string) => void;
   rebaseNote: string | null;
+  /** The notebook's own header, when it should scroll away with the editor (phones). */
+  top?: ReactNode;
 };
 
+type Panel = 'save' | 'notes' | 'review';
+
+/** One button of the compact bar: opens or closes its card right under the bar. */
+function PanelToggle({ label, open, onPress, testID }: { label: string; open: boolean; onPress: () => void; testID: string }) {
+  return (
+    <Pressable
+      role="button"
+      aria-expanded={open}
+      accessibilityLabel={label}
+      onPress={onPress}
+      testID={testID}
+      style={({ pressed, hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
+        styles.toggle,
+        open && styles.toggleOpen,
+        (pressed || hovered) && !open && styles.toggleHover,
+        focused && styles.toggleFocused,
+      ]}
+    >
+      <Text variant="small" weight="semibold" style={open ? styles.toggleOpenText : styles.toggleText}>
+        {label} {open ? '▴' : '▾'}
+      </Text>
+    </Pressable>
+  );
+}
+
 /** The workbench on one version, with the save flow for owners on the latest version. */
-export function DesignTab({ design, version, latest, userId, onRestart, rebaseNote }: Props) {
+export function DesignTab({ design, version, latest, userId, onRestart, rebaseNote, top }: Props) {
   const router = useRouter();
   const isLatest = version.number === latest.number;
   const editable = can(design.role, 'designs.edit') && isLatest && !design.archived;
@@ -36,8 +72,18 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
   // Read once per mount: the kept edits when there are any, else the version as saved.
   const [start] = useState<StoredEdits>(() => {
     const stored = editable ? loadEdits(key) : null;
-    return stored ?? { draft: draftFromDesign(version.params), baseVersion: version.number, notes: version.notes, message: '' };
+    return stored ?? freshEdits(draftFromDesign(version.params), version.number);
   });
+  // The editor comes first; the cards open from the bar. Kept text reopens its card, so it is seen.
+  const [open, setOpen] = useState<ReadonlySet<Panel>>(() =>
+    editable && (start.notes !== '' || start.message !== '') ? new Set<Panel>(['save']) : new Set<Panel>(),
+  );
+  const toggle = (panel: Panel) =>
+    setOpen((current) => {
+      const next = new Set(current);
+      if (!next.delete(panel)) next.add(panel);
+      return next;
+    });
   const [notes, setNotes] = useState(start.notes);
   const [message, setMessage] = useState(start.message);
   const [result, setResult] = useState<FormResult | null>(null);
@@ -60,7 +106,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
     (draft: Draft, text: { notes: string; message: string }) => {
       if (base !== version.number) return true;
       const typed = formToDesign(draft.values);
-      return !typed.ok || changedPaths(version.params, typed.design).length > 0 || text.notes !== version.notes || text.message.trim() !== '';
+      return !typed.ok || changedPaths(version.params, typed.design).length > 0 || text.notes !== '' || text.message.trim() !== '';
     },
     [base, version],
   );
@@ -94,7 +140,8 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
   };
 
   const mine = result?.ok ? result.design : null;
-  const nothingChanged = mine !== null && base === version.number && changedPaths(version.params, mine).length === 0 && notes === version.notes;
+  const nothingChanged =
+    mine !== null && base === version.number && changedPaths(version.params, mine).length === 0 && !notesAreNew(notes, version.notes);
   const blockedReason = !result
     ? 'Reading the design…'
     : !result.ok
@@ -150,7 +197,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
       setFormError('You have unsaved edits on the latest version. Save or drop them there first.');
       return;
     }
-    saveEdits(key, { draft: draftFromDesign(version.params), baseVersion: latest.number, notes: version.notes, message: `Back to v${version.number}` });
+    saveEdits(key, { ...freshEdits(draftFromDesign(version.params), latest.number), message: `Back to v${version.number}` });
     router.push(`/notebooks/${design.id}` as Href);
   };
 
@@ -162,6 +209,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
 
   const header = (
     <View style={styles.header}>
+      {top}
       <View style={styles.versionLine} testID="version-line">
         <Text weight="semibold">
           v{version.number} of {latest.number}
@@ -210,12 +258,19 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
           onDiscard={discard}
         />
       ) : null}
-      {editable ? (
+      <View role="toolbar" aria-label={`Version ${version.number}: save, notes and review`} style={styles.bar} testID="design-bar">
+        {editable ? <PanelToggle label="Save version" open={open.has('save')} onPress={() => toggle('save')} testID="bar-save" /> : null}
+        <PanelToggle label="Notes" open={open.has('notes')} onPress={() => toggle('notes')} testID="bar-notes" />
+        <PanelToggle label="Review" open={open.has('review')} onPress={() => toggle('review')} testID="bar-review" />
+      </View>
+      {editable && open.has('save') ? (
         <SaveCard
           message={message}
           notes={notes}
           onChangeMessage={changeMessage}
           onChangeNotes={changeNotes}
+          earlier={{ number: version.number, notes: version.notes }}
+          onStartFromEarlier={() => changeNotes(startFromNotes(notes, version.notes))}
           messageError={messageError}
           formError={formError}
           blockedReason={shownConflict ? 'Choose how to go on with the newer version above first.' : blockedReason}
@@ -224,10 +279,12 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
           onSave={() => void submit()}
         />
       ) : null}
-      <Card title={`Notes of v${version.number}`} testID="notes-card">
-        <MarkdownView source={version.notes} testID="notes" />
-      </Card>
-      <ReviewPanel designId={design.id} version={version.number} role={design.role} />
+      {open.has('notes') ? (
+        <Card title={`Notes of v${version.number}`} testID="notes-card">
+          <MarkdownView source={version.notes} testID="notes" />
+        </Card>
+      ) : null}
+      {open.has('review') ? <ReviewPanel designId={design.id} version={version.number} role={design.role} /> : null}
     </View>
   );
 
@@ -247,4 +304,19 @@ const styles = StyleSheet.create({
   header: { gap: space.md },
   versionLine: { gap: space.xxs, borderLeftWidth: 3, borderLeftColor: colors.accent, paddingLeft: space.sm },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  bar: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  toggle: {
+    minHeight: minTouch,
+    paddingHorizontal: space.md,
+    borderRadius: radius.md,
+    borderWidth: 1,
+    borderColor: colors.primary,
+    backgroundColor: colors.surface,
+    justifyContent: 'center',
+  },
+  toggleOpen: { backgroundColor: colors.primary },
+  toggleHover: { backgroundColor: colors.surfaceSunken },
+  toggleFocused: { borderColor: colors.focus, borderWidth: 2 },
+  toggleText: { color: colors.primary },
+  toggleOpenText: { color: colors.onPrimary },
 });

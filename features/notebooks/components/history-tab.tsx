@@ -1,5 +1,5 @@
 import { useRouter, type Href } from 'expo-router';
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Notebook } from '@/shared/notebooks';
 import { Button, Card, Screen, Text, space } from '@/features/ui';
@@ -7,7 +7,8 @@ import { useVersionsQuery } from '../queries';
 import { HistoryTable } from './history-table';
 import { VersionPicker } from './version-picker';
 
-export function HistoryTab({ design, current }: { design: Notebook; current: number }) {
+/** `top`: the notebook's header, when it should scroll away with the page (phones). */
+export function HistoryTab({ design, current, top }: { design: Notebook; current: number; top?: ReactNode }) {
   const router = useRouter();
   const versions = useVersionsQuery(design.id);
   const [a, setA] = useState(Math.max(1, design.latestVersion - 1));
@@ -15,6 +16,7 @@ export function HistoryTab({ design, current }: { design: Notebook; current: num
   const compare = (before: number, after: number) => router.push(`/notebooks/${design.id}/compare?a=${before}&b=${after}` as Href);
   return (
     <Screen wide style={styles.page}>
+      {top}
       {design.latestVersion > 1 ? (
         <Card title="Compare two versions" testID="compare-picker">
           <VersionPicker label="Before" count={design.latestVersion} value={a} onChange={setA} testID="pick-a" />

@@ -5,8 +5,8 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import type { Notebook, Version } from '@/shared/notebooks';
 import { ApiError } from '@/features/api';
 import { useSessionQuery } from '@/features/auth';
-import { Heading, RadioGroup, Screen, Text, colors, space } from '@/features/ui';
-import { useNotebookQuery, useVersionQuery } from '../queries';
+import { Button, Heading, RadioGroup, Screen, Text, colors, space, useLayout } from '@/features/ui';
+import { useCloneMutation, useNotebookQuery, useVersionQuery } from '../queries';
 import { DesignTab } from './design-tab';
 import { HistoryTab } from './history-tab';
 import { SharingTab } from './sharing-tab';
@@ -51,6 +51,18 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
   const [tab, setTab] = useState<Tab>('design');
   const [epoch, setEpoch] = useState(0);
   const [rebaseNote, setRebaseNote] = useState<string | null>(null);
+  // On a phone the header scrolls away with the page: only the app bar and the read-out line stay.
+  const layout = useLayout();
+  const phone = layout === 'phone';
+  const clone = useCloneMutation(design.id);
+  const baseline = design.baselineVersion;
+  const cloneSource = baseline ?? latest.number;
+  const cloneLabel = baseline !== null ? `Clone baseline (v${baseline})` : `Clone latest (v${latest.number})`;
+  const cloneNow = async () => {
+    // The server's defaults: into the caller's personal workspace, under the same title.
+    const made = await clone.mutateAsync({ version: cloneSource });
+    router.push(`/notebooks/${made.design.id}` as Href);
+  };
   const validRequest = Number.isInteger(requested) && requested >= 1 && requested <= latest.number;
   const older = useVersionQuery(design.id, validRequest && requested !== latest.number ? requested : null);
   const version = requested === latest.number ? latest : (older.data ?? null);
@@ -60,14 +72,25 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
     setEpoch((e) => e + 1);
   };
 
+  const sections = (
+    <RadioGroup
+      label="Notebook sections"
+      options={tabs.map((item) => ({ value: item.id, label: item.id === 'history' ? `${item.label} (${latest.number})` : item.label }))}
+      value={tab}
+      onChange={setTab}
+      size="compact"
+      optionTestID={(id) => `tab-${id}`}
+      style={layout === 'wide' ? styles.tabsInRow : styles.tabs}
+    />
+  );
   const top = (
-    <View style={[styles.top, { paddingTop: insets.top + space.sm }]}>
-      <Pressable role="link" onPress={() => router.push(`/teams/${design.teamId}/notebooks` as Href)} style={styles.back} testID="to-design-list">
-        <Text variant="small" weight="semibold" style={styles.backText}>
-          ← Team designs
-        </Text>
-      </Pressable>
+    <View style={phone ? styles.topInline : [styles.top, { paddingTop: insets.top + space.sm }]} testID="notebook-header">
       <View style={styles.titleRow}>
+        <Pressable role="link" onPress={() => router.push(`/teams/${design.teamId}/notebooks` as Href)} style={styles.back} testID="to-design-list">
+          <Text variant="small" weight="semibold" style={styles.backText}>
+            ← Team designs
+          </Text>
+        </Pressable>
         <Heading level={1} testID="notebook-title">
           {design.title}
         </Heading>
@@ -76,7 +99,32 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
             Archived
           </Text>
         ) : null}
+        {baseline !== null ? (
+          <Pressable
+            role="link"
+            onPress={() => router.push(`/notebooks/${design.id}/v/${baseline}` as Href)}
+            style={styles.baseline}
+            testID="baseline-link"
+          >
+            <Text variant="small" weight="semibold" style={styles.baselineText}>
+              Baseline: v{baseline}
+            </Text>
+          </Pressable>
+        ) : null}
+        <Button
+          kind="secondary"
+          label={clone.isPending ? 'Cloning…' : cloneLabel}
+          onPress={() => void cloneNow().catch(() => undefined)}
+          disabled={clone.isPending}
+          testID="clone-default"
+        />
+        {layout === 'wide' ? sections : null}
       </View>
+      {clone.isError ? (
+        <Text role="alert" tone="danger" variant="small">
+          {clone.error.message}
+        </Text>
+      ) : null}
       {design.clonedFrom ? (
         <Text variant="small" tone="muted" testID="provenance">
           from{' '}
@@ -95,15 +143,7 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
           )}
         </Text>
       ) : null}
-      <RadioGroup
-        label="Notebook sections"
-        options={tabs.map((item) => ({ value: item.id, label: item.id === 'history' ? `${item.label} (${latest.number})` : item.label }))}
-        value={tab}
-        onChange={setTab}
-        size="compact"
-        optionTestID={(id) => `tab-${id}`}
-        style={styles.tabs}
-      />
+      {layout === 'wide' ? null : sections}
     </View>
   );
 
@@ -131,17 +171,19 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
         userId={userId}
         onRestart={restart}
         rebaseNote={rebaseNote}
+        top={phone ? top : undefined}
       />
     );
   } else if (tab === 'history') {
-    body = <HistoryTab design={design} current={version.number} />;
+    body = <HistoryTab design={design} current={version.number} top={phone ? top : undefined} />;
   } else {
     body = <SharingTab design={design} version={version} />;
   }
 
+  const topInBody = phone && tab !== 'sharing' && version !== null && validRequest && !older.isError;
   return (
     <View style={styles.root}>
-      {top}
+      {topInBody ? null : <View style={phone ? styles.topPhoneFixed : undefined}>{top}</View>}
       <View style={styles.body}>{body}</View>
     </View>
   );
@@ -158,9 +200,22 @@ const styles = StyleSheet.create({
     borderBottomColor: colors.line,
     backgroundColor: colors.surface,
   },
-  back: { alignSelf: 'flex-start', minHeight: 28, justifyContent: 'center' },
+  // Scrolls with the editor on a phone: no frame of its own, the page's padding around it.
+  topInline: { gap: space.xs, paddingBottom: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
+  topPhoneFixed: { paddingHorizontal: space.lg, paddingTop: space.sm, backgroundColor: colors.surface },
+  back: { minHeight: 32, justifyContent: 'center' },
   backText: { color: colors.primary },
-  titleRow: { flexDirection: 'row', alignItems: 'baseline', flexWrap: 'wrap', columnGap: space.md },
+  titleRow: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', columnGap: space.md, rowGap: space.xs },
+  baseline: {
+    minHeight: 32,
+    justifyContent: 'center',
+    paddingHorizontal: space.sm,
+    borderRadius: 4,
+    backgroundColor: colors.accent,
+  },
+  baselineText: { color: colors.onPrimary, textDecorationLine: 'underline' },
   inlineLink: { color: colors.primary, textDecorationLine: 'underline' },
   tabs: { paddingTop: space.xs },
+  // Wide screens have the room: one header line keeps the fixed part short.
+  tabsInRow: { marginLeft: 'auto' },
 });

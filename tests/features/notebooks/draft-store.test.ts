@@ -1,7 +1,15 @@
 import { describe, expect, it, vi } from 'vitest';
 import { exampleDesign } from '@/shared/design';
 import { draftFromDesign } from '@/features/workbench/draft';
-import { clearEdits, loadEdits, notebookDraftKey, saveEdits } from '@/features/notebooks/draft-store';
+import {
+  clearEdits,
+  freshEdits,
+  loadEdits,
+  notebookDraftKey,
+  notesAreNew,
+  saveEdits,
+  startFromNotes,
+} from '@/features/notebooks/draft-store';
 import { withFakeLocalStorage } from '../../support/fake-local-storage';
 
 // The workbench's door also exports its screens; React Native cannot load in Node.
@@ -44,4 +52,43 @@ describe('unsaved notebook edits', () => {
     expect(loadEdits(notebookDraftKey('user-2', 'design-1'))).toBeNull();
     expect(loadEdits(notebookDraftKey('user-1', 'design-2'))).toBeNull();
   });
+});
+
+describe('the notes of a new version', () => {
+  const v2Notes = '# Why\nThe doublet is **0.6 nm** apart.';
+
+  it('start empty, with the parameters of the version they follow', () => {
+    const draft = draftFromDesign(exampleDesign);
+    const start = freshEdits(draft, 2);
+    expect(start).toEqual({ draft, baseVersion: 2, notes: '', message: '' });
+  });
+
+  it('take the earlier notes on request when nothing is typed yet', () => {
+    expect(startFromNotes('', v2Notes)).toBe(v2Notes);
+    expect(startFromNotes('  \n', v2Notes)).toBe(v2Notes);
+  });
+
+  it('keep what was already typed, below the earlier notes', () => {
+    expect(startFromNotes('Entrance slit 30 µm now.', v2Notes)).toBe(`${v2Notes}\n\nEntrance slit 30 µm now.`);
+  });
+
+  it('change nothing when asked twice, or when the earlier version had no notes', () => {
+    const once = startFromNotes('Entrance slit 30 µm now.', v2Notes);
+    expect(startFromNotes(once, v2Notes)).toBe(once);
+    expect(startFromNotes('Mine', '')).toBe('Mine');
+  });
+
+  it.each([
+    { notes: '', earlier: v2Notes, isNew: false },
+    { notes: '   ', earlier: '', isNew: false },
+    { notes: v2Notes, earlier: v2Notes, isNew: false },
+    { notes: `${v2Notes}\n`, earlier: v2Notes, isNew: false },
+    { notes: `${v2Notes}\n\nAnd a narrower slit.`, earlier: v2Notes, isNew: true },
+    { notes: 'Anything', earlier: '', isNew: true },
+  ] satisfies { notes: string; earlier: string; isNew: boolean }[])(
+    'count as a change only when they say something the earlier ones did not ($notes)',
+    ({ notes, earlier, isNew }) => {
+      expect(notesAreNew(notes, earlier)).toBe(isNew);
+    },
+  );
 });
