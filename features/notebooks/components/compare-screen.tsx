@@ -73,6 +73,9 @@ function FiguresTable({ data }: { data: CompareResponse }) {
   );
 }
 
+/** Figures in the table's figure face; a choice ("Czerny–Turner") reads as words. */
+const valueVariant = (value: unknown) => (typeof value === 'string' ? 'small' : 'number');
+
 function ParametersTable({ data }: { data: CompareResponse }) {
   const [onlyChanged, setOnlyChanged] = useState(false);
   const a = flattenDesign(data.a.params);
@@ -128,10 +131,10 @@ function ParametersTable({ data }: { data: CompareResponse }) {
                   {differs ? '● ' : ''}
                   {editorFieldName(path)}
                 </Text>
-                <Text role="cell" variant="number" style={[styles.cell, styles.num]}>
+                <Text role="cell" variant={valueVariant(a[path])} style={[styles.cell, styles.num]}>
                   {formatParamAt(path, a[path])}
                 </Text>
-                <Text role="cell" variant="number" style={[styles.cell, styles.num, differs && styles.after]}>
+                <Text role="cell" variant={valueVariant(b[path])} style={[styles.cell, styles.num, differs && styles.after]}>
                   {formatParamAt(path, b[path])}
                 </Text>
               </View>
