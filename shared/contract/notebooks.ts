@@ -58,7 +58,7 @@ export const notebooks = {
     tag,
     method: 'POST',
     path: '/teams/{teamId}/designs/import',
-    summary: 'Import an exported notebook file as a new design, history kept',
+    summary: 'Import an exported notebook file as a new design, history kept; the design keeps the file’s title and records importedAt',
     status: 201,
     access: { kind: 'team', capability: 'designs.edit' },
     params: teamDesignsParamsSchema,
