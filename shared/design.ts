@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { formatNumber } from './format';
 import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
 
 /**
@@ -44,10 +45,29 @@ function section<T extends z.core.$ZodLooseShape>(shape: T) {
   });
 }
 
+/** A finite number above 0: what a field that passed its own check holds. */
+function isPositive(value: unknown): value is number {
+  return typeof value === 'number' && Number.isFinite(value) && value > 0;
+}
+
 const wavelengthNm = () => positive(0.001, 10_000_000, 'nm');
 
 export const LAYOUT_KINDS = ['czerny-turner', 'littrow', 'ebert-fastie'] as const;
 export type LayoutKind = (typeof LAYOUT_KINDS)[number];
+
+/**
+ * Physical limits a design cannot cross, whatever the closed forms would compute past them. The
+ * solver warns (rather than refuses) where a design is possible but the closed forms grow rough.
+ */
+export const PHYSICAL_LIMITS = {
+  /** A grating needs at least two grooves under the beam to diffract at all. */
+  minGrooves: 2,
+  /**
+   * Fastest possible beam: a system obeying the Abbe sine condition has f-number `1/(2 sin u)`,
+   * at least 0.5 in air (Born & Wolf, Principles of Optics, sine condition; from memory).
+   */
+  minFNumber: 0.5,
+} as const;
 
 export const gratingSchema = section({
   grooveDensityPerMm: positive(0.001, 100_000, 'per mm'),
@@ -60,6 +80,33 @@ export const gratingSchema = section({
   blazeWavelengthNm: wavelengthNm().optional(),
   ruledWidthMm: positive(0.001, 100_000, 'mm'),
   ruledHeightMm: positive(0.001, 100_000, 'mm'),
+}).superRefine((grating, ctx) => {
+  // Only between fields that passed their own checks: one wrong number gets one message.
+  if (!isPositive(grating.grooveDensityPerMm) || !isPositive(grating.ruledWidthMm)) return;
+  const spacingNm = 1e6 / grating.grooveDensityPerMm;
+  // First-order Littrow blaze λ_B = 2d sin θ_B, θ_B < 90°: no facet angle blazes at 2d or beyond
+  // (Palmer & Loewen, Diffraction Grating Handbook, ch. 9).
+  if (isPositive(grating.blazeWavelengthNm) && grating.blazeWavelengthNm >= 2 * spacingNm) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['blazeWavelengthNm'],
+      message:
+        `must be less than twice the groove spacing (${formatNumber(2 * spacingNm)} nm at ` +
+        `${formatNumber(grating.grooveDensityPerMm)} grooves/mm): a first-order Littrow blaze is 2d·sin θ_B, ` +
+        'and no facet angle reaches 2d',
+    });
+  }
+  const grooves = grating.grooveDensityPerMm * grating.ruledWidthMm;
+  if (grooves < PHYSICAL_LIMITS.minGrooves) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['grooveDensityPerMm'],
+      message:
+        `puts only ${formatNumber(grooves, 3)} grooves across the ${formatNumber(grating.ruledWidthMm)} mm ` +
+        `ruled width: a grating needs at least ${PHYSICAL_LIMITS.minGrooves} to diffract (raise the groove ` +
+        'density or the ruled width)',
+    });
+  }
 });
 
 export const layoutSchema = section({
@@ -132,6 +179,27 @@ export const designSchema = section({
   /** What the light source emits; used to find other orders landing on the same angle. */
   source: sourceSchema.optional(),
   detector: detectorSchema.optional(),
+}).superRefine((design, ctx) => {
+  // Along the slit the beam is as tall as the ruled height whatever the grating angle, so
+  // focal length / ruled height is an f-number no mirror or lens can go below.
+  const { grating, layout } = design;
+  if (!isPositive(grating.ruledHeightMm)) return;
+  for (const [field, focalMm] of [
+    ['collimatorFocalMm', layout.collimatorFocalMm],
+    ['cameraFocalMm', layout.cameraFocalMm],
+  ] as const) {
+    const fNumber = focalMm / grating.ruledHeightMm;
+    if (isPositive(focalMm) && fNumber < PHYSICAL_LIMITS.minFNumber) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['layout', field],
+        message:
+          `makes the beam f/${formatNumber(fNumber, 3)} over the ${formatNumber(grating.ruledHeightMm)} mm ` +
+          `ruled height: no mirror or lens is faster than f/${PHYSICAL_LIMITS.minFNumber} (sine condition), so ` +
+          `use at least ${formatNumber(PHYSICAL_LIMITS.minFNumber * grating.ruledHeightMm)} mm`,
+      });
+    }
+  }
 });
 
 export type Design = z.infer<typeof designSchema>;

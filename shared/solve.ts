@@ -84,12 +84,25 @@ export const designSummarySchema = z.strictObject({
   gratingRotationEndDeg: nullableNumber,
   fNumberProjectedWidth: nullableNumber,
   fNumberHeight: z.number(),
+  cameraFNumberProjectedWidth: nullableNumber,
+  cameraFNumberHeight: z.number(),
   blazeWavelengthInMountNm: nullableNumber,
   aberrations: aberrationSummarySchema,
   detector: detectorCoverageSchema.nullable(),
 });
 
-export const warningCodes = ['unreachable', 'near-grazing', 'below-diffraction-limit', 'undersampled', 'order-overlap', 'low-efficiency'] as const;
+export const warningCodes = [
+  'unreachable',
+  'near-grazing',
+  'below-diffraction-limit',
+  'undersampled',
+  'order-overlap',
+  'low-efficiency',
+  'beyond-scalar-blaze',
+  'few-grooves',
+  'fast-optics',
+  'degenerate-mount',
+] as const;
 
 export const designWarningSchema = z.strictObject({
   code: z.enum(warningCodes),

@@ -262,6 +262,11 @@ export function summarizeDesign(design: Design, plan: PreparedDesign = prepareDe
       ? fNumberProjectedWidth(layout.collimatorFocalMm, grating.ruledWidthMm, centre.incidenceRad)
       : null,
     fNumberHeight: fNumberHeight(layout.collimatorFocalMm, grating.ruledHeightMm),
+    // The camera takes the diffracted beam, `W cos β` wide: the same ratio with f_cam and β.
+    cameraFNumberProjectedWidth: centre.reachable
+      ? fNumberProjectedWidth(layout.cameraFocalMm, grating.ruledWidthMm, centre.diffractionRad)
+      : null,
+    cameraFNumberHeight: fNumberHeight(layout.cameraFocalMm, grating.ruledHeightMm),
     blazeWavelengthInMountNm:
       grating.blazeWavelengthNm === undefined
         ? null

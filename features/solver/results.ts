@@ -34,7 +34,10 @@ export interface WavelengthPoint {
   resolvingPower: number | null;
   theoreticalResolvingPower: number;
   freeSpectralRangeNm: number;
-  /** Scalar sinc² estimate relative to its peak; null without a blaze wavelength or when unreachable. */
+  /**
+   * Scalar blaze envelope `sinc²(π(|m| − λ_B cos K / λ))` relative to its peak (see blaze.ts for
+   * the model and where it holds); null without a blaze wavelength or when unreachable.
+   */
   blazeEfficiency: number | null;
   /**
    * Other orders whose source light leaves at this angle, by increasing |n|. At most
@@ -79,6 +82,10 @@ export interface DesignSummary {
   fNumberProjectedWidth: number | null;
   /** Collimator focal / ruled height. */
   fNumberHeight: number;
+  /** Camera focal / (ruled width · cos β) at the centre wavelength: the diffracted beam's width. */
+  cameraFNumberProjectedWidth: number | null;
+  /** Camera focal / ruled height. */
+  cameraFNumberHeight: number;
   /** `λ_B cos K / |m|`, null without a blaze wavelength. */
   blazeWavelengthInMountNm: number | null;
   aberrations: AberrationSummary;
@@ -92,7 +99,11 @@ export type WarningCode =
   | 'below-diffraction-limit'
   | 'undersampled'
   | 'order-overlap'
-  | 'low-efficiency';
+  | 'low-efficiency'
+  | 'beyond-scalar-blaze'
+  | 'few-grooves'
+  | 'fast-optics'
+  | 'degenerate-mount';
 
 /** One kind of design problem in plain words with its fix (built by `collectWarnings`). */
 export interface Warning {

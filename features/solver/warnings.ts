@@ -14,6 +14,23 @@ export const NEAR_GRAZING_DEG = 80;
  * (Nyquist: two samples per resolution element; common practice asks 2–3).
  */
 export const MIN_PIXELS_PER_ELEMENT = 2;
+/**
+ * Above this λ/d the efficiency of a real grating depends on polarisation and groove profile
+ * (the resonance domain) and no scalar estimate holds: Palmer & Loewen, Diffraction Grating
+ * Handbook, ch. 9 (scalar region λ/d < 0.2; from memory).
+ */
+export const SCALAR_LIMIT_LAMBDA_OVER_D = 0.2;
+/**
+ * Below this many illuminated grooves the closed forms built on many grooves (|m|N, λ/(|m|N), the
+ * sinc² blaze envelope, a sharp principal maximum) grow rough (from memory).
+ */
+export const FEW_GROOVES = 100;
+/**
+ * Faster than this f-number the paraxial closed forms (focal lengths, anamorphic magnification,
+ * Coddington astigmatism) lose their accuracy and aberrations dominate (common practice).
+ */
+export const TRUSTED_F_NUMBER = 1;
+
 const POSITION_WORDS = { start: 'range start', centre: 'centre', end: 'range end' } as const;
 
 const listFormat = new Intl.ListFormat('en', { style: 'long', type: 'conjunction' });
@@ -64,6 +81,8 @@ export function collectWarnings(
   const belowLimit = tally();
   const overlap = tally();
   const lowEfficiency = tally();
+  const beyondScalar = tally();
+  let largestLambdaOverD = 0;
 
   for (const p of points) {
     if (!p.reachable) {
@@ -76,6 +95,11 @@ export function collectWarnings(
     if (p.bandpassNm !== null && p.bandpassNm < p.diffractionLimitNm) add(belowLimit, p);
     if (p.overlaps.length > 0) add(overlap, p);
     if (p.blazeEfficiency !== null && p.blazeEfficiency < LOW_EFFICIENCY) add(lowEfficiency, p);
+    const lambdaOverD = p.wavelengthNm / summary.grooveSpacingNm;
+    if (p.blazeEfficiency !== null && lambdaOverD > SCALAR_LIMIT_LAMBDA_OVER_D) {
+      add(beyondScalar, p);
+      largestLambdaOverD = Math.max(largestLambdaOverD, lambdaOverD);
+    }
   }
 
   const total = points.length;
@@ -147,6 +171,63 @@ export function collectWarnings(
         `${LOW_EFFICIENCY * 100} % of its peak` +
         (blaze !== null ? ` (the peak is at ${formatNumber(blaze)} nm in this mount and order)` : '') +
         '. Choose a grating blazed nearer the range, or split the range.',
+    });
+  }
+  if (beyondScalar.first) {
+    warnings.push({
+      code: 'beyond-scalar-blaze',
+      wavelengthNm: beyondScalar.first.wavelengthNm,
+      message:
+        `${where(beyondScalar, total)} λ/d exceeds ${SCALAR_LIMIT_LAMBDA_OVER_D} (up to ` +
+        `${formatNumber(largestLambdaOverD, 3)}), where a real grating's efficiency depends on polarisation ` +
+        'and groove profile and the scalar blaze estimate can be off by tens of per cent (Palmer & Loewen, ' +
+        'Diffraction Grating Handbook, ch. 9). Read the efficiency curve as a rough guide there and take ' +
+        "throughput from the grating maker's measured curves.",
+    });
+  }
+  if (summary.illuminatedGrooves < FEW_GROOVES) {
+    warnings.push({
+      code: 'few-grooves',
+      message:
+        `Only ${formatNumber(summary.illuminatedGrooves, 3)} grooves are illuminated. The resolving power ` +
+        `|m|N, the diffraction limit and the blaze envelope assume many grooves; below about ${FEW_GROOVES} ` +
+        'the lines are broad with strong side lobes and these figures are rough. Use a finer grating or a ' +
+        'wider ruled width.',
+    });
+  }
+  const fNumbers: [string, number | null][] = [
+    ['collimator, across the grating', summary.fNumberProjectedWidth],
+    ['collimator, along the slit', summary.fNumberHeight],
+    ['camera, across the grating', summary.cameraFNumberProjectedWidth],
+    ['camera, along the slit', summary.cameraFNumberHeight],
+  ];
+  const fast = fNumbers.flatMap(([beam, f]) => (f !== null && f < TRUSTED_F_NUMBER ? [{ beam, f }] : []));
+  if (fast.length > 0) {
+    const fastest = fast.reduce((a, b) => (b.f < a.f ? b : a));
+    warnings.push({
+      code: 'fast-optics',
+      message:
+        `The beam is faster than f/${TRUSTED_F_NUMBER}: ` +
+        `${listFormat.format(fast.map(({ beam, f }) => `f/${formatNumber(f, 3)} (${beam})`))}. Below ` +
+        `f/${TRUSTED_F_NUMBER} the paraxial closed forms used here (dispersion at the focal length, ` +
+        'anamorphic magnification, astigmatism) lose their accuracy, and below f/0.5 no mirror or lens can ' +
+        'deliver the beam at all' +
+        (fastest.f < 0.5 ? ` (the ${fastest.beam} is f/${formatNumber(fastest.f, 3)})` : '') +
+        '. Use longer focal lengths or a smaller grating.',
+    });
+  }
+  if (summary.kind !== 'littrow' && summary.halfDeviationDeg === 0) {
+    const mirrors =
+      summary.kind === 'ebert-fastie'
+        ? 'the two zones of the Ebert–Fastie mirror fall on the same place'
+        : 'the Czerny–Turner collimator and camera mirrors sit in the same place';
+    warnings.push({
+      code: 'degenerate-mount',
+      message:
+        `At a deviation angle of 0° the light leaves the grating along the way it came, so ${mirrors} ` +
+        'in the plane of dispersion (only a mount that separates them out of that plane works). Give the ' +
+        'angle between the incoming and outgoing beams (a few tens of degrees is usual), or choose Littrow ' +
+        'if one element is meant to do both.',
     });
   }
   const detector = summary.detector;

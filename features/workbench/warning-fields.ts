@@ -8,4 +8,8 @@ export const warningField: Record<WarningCode, string> = {
   undersampled: 'detector.pixelPitchUm',
   'order-overlap': 'source.minNm',
   'low-efficiency': 'grating.blazeWavelengthNm',
+  'beyond-scalar-blaze': 'grating.grooveDensityPerMm',
+  'few-grooves': 'grating.ruledWidthMm',
+  'fast-optics': 'layout.collimatorFocalMm',
+  'degenerate-mount': 'layout.deviationAngleDeg',
 };

@@ -53,6 +53,42 @@ describe('design schema', () => {
     expect(errors).toEqual({ 'layout.cameraFocalMm': 'must equal collimatorFocalMm: an Ebert–Fastie layout uses one mirror for both' });
   });
 
+  it('refuses a blaze wavelength of 2d or more, naming the field', () => {
+    // Palmer & Loewen, ch. 9: the first-order Littrow blaze is λ_B = 2d sin θ_B, so λ_B < 2d.
+    // 1200 grooves/mm: d = 833.3 nm, 2d = 1666.7 nm. The case is 5000 nm.
+    expect(errorsFor((d) => (d.grating.blazeWavelengthNm = 5000))['grating.blazeWavelengthNm']).toMatch(
+      /^must be less than twice the groove spacing \(1667 nm at 1200 grooves\/mm\)/,
+    );
+    expect(errorsFor((d) => (d.grating.blazeWavelengthNm = 2e6 / 1200))).toHaveProperty(['grating.blazeWavelengthNm']);
+    expect(errorsFor((d) => (d.grating.blazeWavelengthNm = 1660))).toEqual({});
+    // An echelle-like 79 grooves/mm takes a long first-order blaze (2d = 25 316 nm).
+    expect(errorsFor((d) => Object.assign(d.grating, { grooveDensityPerMm: 79, blazeWavelengthNm: 20000 }))).toEqual({});
+  });
+
+  it('refuses a grating with fewer than two grooves under the beam', () => {
+    // The 0.001 grooves/mm over 50 mm: 0.05 grooves, which the solver turned into R = 0.05.
+    // Common practice: interference needs at least two grooves.
+    expect(errorsFor((d) => (d.grating.grooveDensityPerMm = 0.001))).toEqual({
+      'grating.grooveDensityPerMm':
+        'puts only 0.05 grooves across the 50 mm ruled width: a grating needs at least 2 to diffract (raise the groove density or the ruled width)',
+    });
+    expect(errorsFor((d) => Object.assign(d.grating, { grooveDensityPerMm: 0.04 }))).toEqual({});
+  });
+
+  it('refuses a beam faster than f/0.5 along the slit, naming the focal length', () => {
+    // Sine condition (Born & Wolf, from memory): f-number = 1/(2 sin u) ≥ 0.5. The case is
+    // a 0.001 mm collimator on a 50 mm grating (about f/0.00002).
+    const errors = errorsFor((d) => (d.layout.collimatorFocalMm = 0.001));
+    expect(errors['layout.collimatorFocalMm']).toMatch(/^makes the beam f\/2×10⁻⁵ over the 50 mm ruled height: .*use at least 25 mm$/);
+    expect(errorsFor((d) => (d.layout.cameraFocalMm = 20))['layout.cameraFocalMm']).toMatch(/f\/0\.4 /);
+    expect(errorsFor((d) => Object.assign(d.layout, { collimatorFocalMm: 25, cameraFocalMm: 25 }))).toEqual({});
+  });
+
+  it('checks between fields only once each field passed its own check: one wrong number, one message', () => {
+    expect(errorsFor((d) => (d.grating.grooveDensityPerMm = -1200))).toEqual({ 'grating.grooveDensityPerMm': 'must be greater than 0' });
+    expect(errorsFor((d) => (d.grating.ruledHeightMm = 0))).toEqual({ 'grating.ruledHeightMm': 'must be greater than 0' });
+  });
+
   it('reports every bad section at once', () => {
     const errors = errorsFor((d) => {
       d.grating.order = 0;

@@ -229,14 +229,26 @@ describe('properties over random valid designs (fast-check)', () => {
   });
 
   it('never throws at the schema bounds either', () => {
+    // Each number at a bound of its field, within the physical limits the schema also checks
+    // (two grooves, f/0.5 along the slit, blaze below 2d).
     const extremes: Design[] = [
-      makeDesign({ grating: { grooveDensityPerMm: 0.001, ruledWidthMm: 0.001, order: 1000 }, layout: { collimatorFocalMm: 0.001, cameraFocalMm: 10_000_000 }, slits: { entranceWidthUm: 1_000_000, exitWidthUm: 0.001 } }),
-      makeDesign({ grating: { grooveDensityPerMm: 100_000, ruledWidthMm: 100_000, order: -1000 }, layout: { deviationAngleDeg: 179.999, collimatorFocalMm: 10_000_000, cameraFocalMm: 0.001 }, range: { startNm: 0.001, endNm: 10_000_000 } }),
+      makeDesign({ grating: { grooveDensityPerMm: 0.001, ruledWidthMm: 100_000, ruledHeightMm: 0.001, order: 1000 }, layout: { collimatorFocalMm: 0.001, cameraFocalMm: 10_000_000 }, slits: { entranceWidthUm: 1_000_000, exitWidthUm: 0.001 } }),
+      makeDesign({ grating: { grooveDensityPerMm: 100_000, ruledWidthMm: 100_000, ruledHeightMm: 0.001, order: -1000, blazeWavelengthNm: 19.99 }, layout: { deviationAngleDeg: 179.999, collimatorFocalMm: 10_000_000, cameraFocalMm: 0.001 }, range: { startNm: 0.001, endNm: 10_000_000 } }),
     ];
     for (const design of extremes) {
       expect(designSchema.safeParse(design).success).toBe(true);
       const e = evaluateDesign(design, { points: 50 });
       expect(allFinite(e)).toBe(true);
     }
+    // Past those limits the schema refuses, but the solver still answers with finite numbers.
+    const refused: Design[] = [
+      makeDesign({ grating: { grooveDensityPerMm: 0.001, ruledWidthMm: 0.001, order: 1000 }, layout: { collimatorFocalMm: 0.001, cameraFocalMm: 10_000_000 }, slits: { entranceWidthUm: 1_000_000, exitWidthUm: 0.001 } }),
+      makeDesign({ grating: { grooveDensityPerMm: 100_000, ruledWidthMm: 100_000, order: -1000 }, layout: { deviationAngleDeg: 179.999, collimatorFocalMm: 10_000_000, cameraFocalMm: 0.001 }, range: { startNm: 0.001, endNm: 10_000_000 } }),
+    ];
+    for (const design of refused) {
+      expect(designSchema.safeParse(design).success).toBe(false);
+      expect(allFinite(evaluateDesign(design, { points: 50 }))).toBe(true);
+    }
   });
+
 });
