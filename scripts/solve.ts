@@ -24,7 +24,15 @@ export const USAGE = `usage: npm run --silent solve -- <design.json | -> [--at 4
   --points  evenly spaced wavelengths over the design range, ${MIN_SOLVE_POINTS} to ${MAX_SOLVE_WAVELENGTHS} (default ${DEFAULT_POINTS})
 Each wavelength lists at most ${MAX_LISTED_OVERLAPS} overlapping orders (those nearest the working order);
 overlapCount is the full number and overlapsTruncated is true when the list was cut.
-The same limits as POST /api/solve, which also allows ${defaultRateLimits.solvePerIp} calls per ${defaultRateLimits.solveWindowMs / 1000} s per address.`;
+The same limits as POST /api/solve, which also allows ${defaultRateLimits.solvePerIp} calls per ${defaultRateLimits.solveWindowMs / 1000} s per address.
+What some figures assume:
+  resolvingPower   λ / √(bandpassNm² + diffractionLimitNm²): slit and diffraction widths added in
+                   quadrature, as for near-Gaussian profiles (common practice); below |m|N
+  blazeEfficiency  the scalar (Kirchhoff) blaze function sinc²(π(|m| − λ_B cos K / λ)), the small-angle
+                   form of the groove-facet model (Schroeder & Hilliard 1980); holds for λ/d below
+                   about 0.2 (Palmer & Loewen, Diffraction Grating Handbook, ch. 9), warned past it
+  detector.pixelsPerResolutionElement  pixels across the entrance-slit image or the diffraction-
+                   limited line, the wider, fewest of range start, centre and end; under 2 warns`;
 
 /** A bad command line: the message (empty for --help) is printed above USAGE, exit 2. */
 export class UsageError extends Error {}

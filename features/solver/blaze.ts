@@ -1,6 +1,12 @@
 /**
- * Blaze envelope. A scalar estimate (common practice): valid when the groove spacing is well above
- * λ; it ignores polarisation and the resonances of real gratings, so present it as an estimate.
+ * Blaze envelope: the scalar (Kirchhoff) blaze function of a grating with flat facets, in its
+ * small-angle form `sinc²(π(|m| − λ_B cos K / λ))` (common practice). It is the groove-facet
+ * model of scalar theory (Schroeder & Hilliard, "Echelle efficiencies: theory and experiment",
+ * Appl. Opt. 19, 2833 (1980); from memory) with the facet's cosine factors set to 1, so it drifts
+ * from that model as the blaze angle grows (about 0.1–0.2 at 25–30°, see the tests). Like every
+ * scalar model it holds only while λ/d stays below about 0.2 (Palmer & Loewen, Diffraction
+ * Grating Handbook, ch. 9); beyond, efficiency depends on polarisation and the groove profile and
+ * the solver warns (`beyond-scalar-blaze`). Present it as an estimate.
  *
  * The grating is assumed mounted with its blaze facing the working order, whichever sign that
  * order carries, so only |m| enters.

@@ -98,6 +98,14 @@ describe('solve CLI', () => {
     expect(USAGE).toMatch(/120 calls per 60 s/);
   });
 
+  it('states what the resolving power, the efficiency and the sampling assume', () => {
+    expect(USAGE).toMatch(/resolvingPower +λ \/ √\(bandpassNm² \+ diffractionLimitNm²\)/);
+    expect(USAGE).toMatch(/blazeEfficiency +the scalar \(Kirchhoff\) blaze function/);
+    expect(USAGE).toMatch(/Schroeder & Hilliard 1980/);
+    expect(USAGE).toMatch(/λ\/d below\s+about 0\.2/);
+    expect(USAGE).toMatch(/pixelsPerResolutionElement +pixels across the entrance-slit image/);
+  });
+
   describe('checking and evaluating a design', () => {
     it('evaluates a valid design at the requested wavelengths', () => {
       const r = solveExample({ at: [400, 500, 600] });

@@ -42,4 +42,39 @@ describe('scalar blaze envelope', () => {
     expect(warning).toBeDefined();
     expect(warning?.message).toContain('scalar blaze estimate');
   });
+
+  describe('against the groove-facet scalar model', () => {
+    // The groove-facet form of scalar theory (Schroeder & Hilliard, Appl. Opt. 19, 2833 (1980);
+    // from memory): a facet of width d cos θ_B tilted by θ_B gives the envelope
+    // sinc²(π d cos θ_B (sin(α − θ_B) + sin(β − θ_B)) / λ). Our estimate is its small-angle form.
+    const sinc = (x: number) => (Math.abs(x) < 1e-12 ? 1 : Math.sin(x) / x);
+    const facetModel = (lambda: number, d: number, thetaB: number) => {
+      const phi = Math.asin(lambda / (2 * d)); // Littrow, first order
+      const arg = (Math.PI * d * Math.cos(thetaB) * 2 * Math.sin(phi - thetaB)) / lambda;
+      return sinc(arg) ** 2;
+    };
+    /** Largest gap between the two over 2/3 to 2× the blaze wavelength (the useful range, common practice). */
+    const largestGap = (blazeDeg: number, maxLambdaOverD = Infinity) => {
+      const d = 1000;
+      const thetaB = deg(blazeDeg);
+      const blazeNm = 2 * d * Math.sin(thetaB);
+      let gap = 0;
+      for (let i = 0; i <= 200; i++) {
+        const lambda = blazeNm * (2 / 3 + (i / 200) * (4 / 3));
+        if (lambda / d > Math.min(1.9, maxLambdaOverD)) continue;
+        gap = Math.max(gap, Math.abs(facetModel(lambda, d, thetaB) - blazeEfficiency(lambda, 1, blazeNm, 0)));
+      }
+      return gap;
+    };
+
+    it('agrees to 0.005 where λ/d stays below 0.2 (small blaze angles), where the solver does not warn', () => {
+      expect(largestGap(2)).toBeLessThan(0.005);
+      expect(largestGap(5, 0.2)).toBeLessThan(0.005);
+    });
+
+    it('drifts by a tenth or more at blaze angles of 25–30°, where λ/d is well past 0.2', () => {
+      expect(largestGap(25)).toBeGreaterThan(0.1);
+      expect(largestGap(30)).toBeGreaterThan(0.15);
+    });
+  });
 });
