@@ -45,11 +45,23 @@ function blockKey(key: string): string {
   return key.replace(/-\d+$/, '');
 }
 
+const DIRECTIONS: readonly [number, number][] = [
+  [0, 1],
+  [0, -1],
+  [1, 0],
+  [-1, 0],
+  [Math.SQRT1_2, Math.SQRT1_2],
+  [-Math.SQRT1_2, Math.SQRT1_2],
+  [Math.SQRT1_2, -Math.SQRT1_2],
+  [-Math.SQRT1_2, -Math.SQRT1_2],
+];
+
 /**
  * Moves labels that would land on an earlier one (collimator and camera at a small deviation,
- * an angle value on a part's name) to the nearest free spot inside the drawing: straight up or
- * down first, then sideways, the smallest move that clears every label already placed. Labels
- * keep their order of importance: earlier blocks stay put. `fixed` texts (the footer) never move.
+ * an angle value on a part's name) to the nearest free spot inside the drawing: the smallest move
+ * that clears every label already placed, and of equal moves the one pointing away from the
+ * drawing's middle, where the optics and rays are not. Labels keep their order of importance:
+ * earlier blocks stay put. `fixed` texts (the footer) never move.
  */
 export function declutterTexts(
   texts: readonly SketchShape[],
@@ -72,10 +84,13 @@ export function declutterTexts(
     const free = (b: TextBox) => !placed.some((p) => boxesOverlap(b, p, GAP_PX));
     let move: [number, number] = [0, 0];
     if (!free(box)) {
+      const ox = (box.left + box.right) / 2 - size.widthPx / 2;
+      const oy = (box.top + box.bottom) / 2 - bottomLimit / 2;
+      const outward = [...DIRECTIONS].sort((a, b) => b[0] * ox + b[1] * oy - (a[0] * ox + a[1] * oy));
       const tries: [number, number][] = [];
       const reach = Math.max(size.widthPx, size.heightPx);
       for (let d = STEP_PX; d <= reach; d += STEP_PX) {
-        tries.push([0, d], [0, -d], [d, 0], [-d, 0], [d, d], [-d, d], [d, -d], [-d, -d]);
+        for (const [ux, uy] of outward) tries.push([round(ux * d), round(uy * d)]);
       }
       const found = tries.find(([dx, dy]) => {
         const candidate = shifted(box, dx, dy);

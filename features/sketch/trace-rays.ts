@@ -2,6 +2,7 @@ import type { Design } from '../../shared/design';
 import { GRAZING_MARGIN_RAD, HALF_PI, radToDeg } from '../solver';
 import type { GratingFrame } from './grating-frame';
 import type { OpticPlacement } from './place-optics';
+import { formatInteger } from '../../shared/format';
 import { formatDeg, formatNm } from './sketch-format';
 import type { PointMm, RayRole, SketchRay, UnreachableRay } from './sketch-types';
 import { add, dot, fromAngle, hitLine, reflect, scale, sub } from './vector';
@@ -81,7 +82,7 @@ function diffractionAngle(role: RayRole, wavelengthNm: number, frame: GratingFra
     return {
       role,
       wavelengthNm,
-      reason: `with the grating set for ${formatNm(settingNm)}, ${formatNm(wavelengthNm)} has no diffracted order ${order}`,
+      reason: `with the grating set for ${formatNm(settingNm)}, ${formatNm(wavelengthNm)} has no diffracted order ${formatInteger(order)}`,
     };
   }
   return Math.asin(sinBeta);
@@ -108,18 +109,23 @@ function traceWavelength(
   // bisector without cutting into the collimator's beam: light that would need it is not imaged.
   const crossesIntoCollimator =
     !isLens && [chiefHit, ...edgeHits].some((h) => h !== null && dot(h, placement.cameraSide) <= 0);
+  // An Ebert–Fastie has no camera of its own: its one mirror's second half does that work.
+  const oneMirror = frame.kind === 'ebert-fastie';
   if (crossesIntoCollimator) {
+    const where = oneMirror
+      ? "toward the mirror's entrance half, out of reach of its exit half"
+      : "toward the collimator's side, out of the camera's reach";
     return {
       role,
       wavelengthNm,
-      reason: `with the grating set for ${formatNm(settingNm)} it leaves at β = ${formatDeg(radToDeg(beta))}, toward the collimator's side, out of the camera's reach`,
+      reason: `with the grating set for ${formatNm(settingNm)} it leaves at β = ${formatDeg(radToDeg(beta))}, ${where}`,
     };
   }
   if (axisCosine < MIN_AXIS_COSINE || chiefHit === null || edgeHits.some((h) => h === null)) {
     return {
       role,
       wavelengthNm,
-      reason: `leaves the grating at β = ${formatDeg(radToDeg(beta))}, too far off the camera's axis to be imaged with the grating set for ${formatNm(settingNm)}`,
+      reason: `leaves the grating at β = ${formatDeg(radToDeg(beta))}, too far off the ${oneMirror ? "axis of the mirror's exit half" : "camera's axis"} to be imaged with the grating set for ${formatNm(settingNm)}`,
     };
   }
   // The image: where the ray through the camera's centre, turned by it, meets the exit plane.

@@ -33,11 +33,10 @@ export const RangeTable = memo(function RangeTable({
   // On a phone the columns are wider than the card: say so, and which way the rest lies.
   const [viewWidth, setViewWidth] = useState(0);
   const [contentWidth, setContentWidth] = useState(0);
-  const [scrollX, setScrollX] = useState(0);
-  const overflow = contentWidth - viewWidth;
-  const scrolls = viewWidth > 0 && overflow > 1;
-  const atEnd = scrollX >= overflow - 2;
-  const onScroll = (event: NativeSyntheticEvent<NativeScrollEvent>) => setScrollX(event.nativeEvent.contentOffset.x);
+  const [atEnd, setAtEnd] = useState(false);
+  const scrolls = viewWidth > 0 && contentWidth - viewWidth > 1;
+  const onScroll = ({ nativeEvent: n }: NativeSyntheticEvent<NativeScrollEvent>) =>
+    setAtEnd(n.contentOffset.x + n.layoutMeasurement.width >= n.contentSize.width - 2);
   return (
     <Card title="Across the range" testID="range-table">
       {scrolls ? (

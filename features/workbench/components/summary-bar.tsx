@@ -1,15 +1,15 @@
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, space, type } from '@/features/ui';
-import { formatNumber } from '@/shared/format';
+import { formatNumber, formatQuantity } from '@/shared/format';
 import type { SelectedReadout } from '../hooks/use-workbench';
 
 /** The phone's sticky line: bandpass and resolving power at the chosen wavelength. */
 export function SummaryBar({ selected, blocked }: { selected: SelectedReadout; blocked: boolean }) {
   let text: string;
   if (!selected.ok) text = 'Choose a wavelength to read out';
-  else if (!selected.point.reachable) text = `${formatNumber(selected.wavelengthNm)} nm · not reachable`;
+  else if (!selected.point.reachable) text = `${formatQuantity(selected.wavelengthNm, 'nm')} · not reachable`;
   else
-    text = `${formatNumber(selected.wavelengthNm)} nm · bandpass ${formatNumber(selected.point.bandpassNm, 3)} nm · R ${formatNumber(selected.point.resolvingPower, 3)}`;
+    text = `${formatQuantity(selected.wavelengthNm, 'nm')} · bandpass ${formatQuantity(selected.point.bandpassNm, 'nm', 3)} · R ${formatNumber(selected.point.resolvingPower, 3)}`;
   return (
     <View style={[styles.bar, blocked && styles.blocked]} role="status" testID="summary-bar">
       <Text style={styles.text} numberOfLines={1}>

@@ -41,9 +41,9 @@ describe('labels of the sketch', () => {
   it('never lands on each other: every mount, deviation from 0 up, phone to wide', () => {
     const problems: string[] = [];
     for (const kind of LAYOUT_KINDS) {
-      for (const deviation of [0, 1, 4, 10, 24, 45, 70]) {
+      for (const deviation of [0, 2, 10, 24, 60]) {
         for (const offAxis of [true, false]) {
-          for (const widthPx of [240, 326, 500, 900]) {
+          for (const widthPx of [240, 326, 900]) {
             const found = overlaps(texts(withLayout(kind, deviation, offAxis), widthPx));
             if (found.length > 0) problems.push(`${kind} ${deviation}° ${widthPx}px: ${found.join(', ')}`);
           }
@@ -51,7 +51,7 @@ describe('labels of the sketch', () => {
       }
     }
     expect(problems).toEqual([]);
-  });
+  }, 30_000);
 
   it('at a Czerny–Turner deviation of 0 keeps the collimator and the camera names apart', () => {
     // Equal focal lengths at deviation 0: both mirrors sit at one place, as the issue found them.
