@@ -106,8 +106,9 @@ describe('design notebooks in Chromium', () => {
   it('saves v2 with a message and notes, and shows it in the history', async () => {
     await page.goto(`${server.url}/notebooks/${notebookId}`);
     await page.getByTestId('field-slits.exitWidthUm').fill('25');
-    // The save card opens from the compact bar above the editor.
+    // The save card opens from the compact bar above the editor; the bar says there is something to save.
     expect(await page.getByTestId('save-card').count()).toBe(0);
+    await page.getByTestId('unsaved-note').waitFor();
     await page.getByRole('button', { name: 'Save version', exact: true }).click();
     await page.getByTestId('version-message').fill('Narrower exit slit to split the sodium doublet');
     await page
@@ -279,6 +280,7 @@ describe('design notebooks in Chromium', () => {
     // The editor starts on the first screen, above the fold; save, notes and review wait in the bar.
     expect(phone.editorTopPx).toBeLessThan(0.7 * viewports.phone.height);
     for (const card of ['save-card', 'notes-card', 'review-panel']) expect(await phonePage.getByTestId(card).count()).toBe(0);
+    expect(await phonePage.getByTestId('unsaved-note').count()).toBe(0);
     const bar = await phonePage.getByTestId('design-bar').boundingBox();
     expect(bar?.y ?? Number.POSITIVE_INFINITY).toBeLessThan(phone.editorTopPx);
     await screenshot(phonePage, 'notebooks-design-first-phone');

@@ -258,10 +258,16 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
           onDiscard={discard}
         />
       ) : null}
-      <View role="toolbar" aria-label={`Version ${version.number}: save, notes and review`} style={styles.bar} testID="design-bar">
+      <View role="group" aria-label={`Version ${version.number}: save, notes and review`} style={styles.bar} testID="design-bar">
         {editable ? <PanelToggle label="Save version" open={open.has('save')} onPress={() => toggle('save')} testID="bar-save" /> : null}
         <PanelToggle label="Notes" open={open.has('notes')} onPress={() => toggle('notes')} testID="bar-notes" />
         <PanelToggle label="Review" open={open.has('review')} onPress={() => toggle('review')} testID="bar-review" />
+        {/* With the save card closed, say that there is something to save. */}
+        {editable && !open.has('save') && !shownConflict && blockedReason === null ? (
+          <Text variant="small" tone="warning" weight="semibold" style={styles.unsaved} testID="unsaved-note">
+            Unsaved changes
+          </Text>
+        ) : null}
       </View>
       {editable && open.has('save') ? (
         <SaveCard
@@ -304,7 +310,8 @@ const styles = StyleSheet.create({
   header: { gap: space.md },
   versionLine: { gap: space.xxs, borderLeftWidth: 3, borderLeftColor: colors.accent, paddingLeft: space.sm },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  bar: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  bar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  unsaved: { paddingHorizontal: space.xs },
   toggle: {
     minHeight: minTouch,
     paddingHorizontal: space.md,
