@@ -65,11 +65,17 @@ export function DesignRow({ design, wide, ...actions }: Props) {
   const createdBy = design.createdBy?.displayName ?? 'Former member';
   return (
     <View role="row" style={styles.block} testID={`design-${design.title}`}>
-      <TitleCell design={design} />
+      <View role="cell">
+        <TitleCell design={design} />
+      </View>
       <Text role="cell" variant="small" tone="muted">
         {`${createdBy} · updated ${formatDay(design.updatedAt)} · v${design.latestVersion}`}
       </Text>
-      <RowActions design={design} {...actions} />
+      {actions.owner ? (
+        <View role="cell">
+          <RowActions design={design} {...actions} />
+        </View>
+      ) : null}
     </View>
   );
 }

@@ -30,7 +30,8 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
     update.mutate(
       { id: design.id, body: { archived } },
       {
-        onSuccess: () => setNotice({ kind: archived ? 'archived' : 'restored', id: design.id, title: design.title }),
+        onSuccess: () =>
+          setNotice({ kind: archived ? 'archived' : 'restored', id: design.id, title: design.title }),
         onError: (error) => setNotice({ kind: 'failed', title: design.title, reason: error.message }),
       },
     );
@@ -40,8 +41,9 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
     if (notice?.kind === 'archived') focusButton(noticeBox.current, 'Undo');
   }, [notice]);
 
+  // The notice and the empty, error and loading lines sit outside the table: a table holds rows only.
   return (
-    <View role="table" aria-label="Designs" testID="design-table">
+    <View testID="design-table">
       <View
         ref={noticeBox}
         role="status"
@@ -66,37 +68,45 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
           </>
         ) : null}
       </View>
-      {wide ? (
-        <View role="row" style={[tableRowStyle, styles.headerRow]}>
-          {['Title', 'Owner', 'Updated', 'Latest', ''].map((title, i) => (
-            <Text
-              key={title || 'actions'}
-              role="columnheader"
-              variant="caption"
-              tone="muted"
-              weight="semibold"
-              style={columnStyle[i]}
-            >
-              {title.toUpperCase()}
-            </Text>
-          ))}
+      {designs && designs.length > 0 ? (
+        <View role="table" aria-label="Designs">
+          {wide ? (
+            <View role="row" style={[tableRowStyle, styles.headerRow]}>
+              {['Title', 'Owner', 'Updated', 'Latest', ''].map((title, i) => (
+                <Text
+                  key={title || 'actions'}
+                  role="columnheader"
+                  variant="caption"
+                  tone="muted"
+                  weight="semibold"
+                  style={columnStyle[i]}
+                >
+                  {title.toUpperCase()}
+                </Text>
+              ))}
+            </View>
+          ) : null}
+          {designs?.map((design) =>
+            editing === design.id ? (
+              <View key={design.id} role="row">
+                <View role="cell">
+                  <DesignRowEditor design={design} onDone={() => setEditing(null)} />
+                </View>
+              </View>
+            ) : (
+              <DesignRow
+                key={design.id}
+                design={design}
+                wide={wide}
+                owner={owner}
+                onEdit={() => setEditing(design.id)}
+                onArchive={() => setArchived(design, !design.archived)}
+                archiving={update.isPending}
+              />
+            ),
+          )}
         </View>
       ) : null}
-      {designs?.map((design) =>
-        editing === design.id ? (
-          <DesignRowEditor key={design.id} design={design} onDone={() => setEditing(null)} />
-        ) : (
-          <DesignRow
-            key={design.id}
-            design={design}
-            wide={wide}
-            owner={owner}
-            onEdit={() => setEditing(design.id)}
-            onArchive={() => setArchived(design, !design.archived)}
-            archiving={update.isPending}
-          />
-        ),
-      )}
       {designs && designs.length === 0 ? (
         <Text tone="muted" style={styles.empty} testID="no-designs">
           {emptyText}
