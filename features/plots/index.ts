@@ -1,6 +1,8 @@
 export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './components/line-plot';
 export {
+  EFFICIENCY_MODEL_CAPTION,
   PerformancePlots,
+  RESOLVING_POWER_CAPTION,
   TWO_COLUMN_MIN_WIDTH,
   type PerformancePlotsProps,
   type PlotProps,
@@ -14,3 +16,5 @@ export {
   type Interval,
 } from './plot-paths';
 export { performanceSeries, type PerformanceSeries } from './series';
+export { axisMarginPx, labelWidthPx, sharesAxis, valueScale, valueTicks } from './axes';
+export { scalarBlazeCaution, type ScalarBlazeCaution } from './captions';

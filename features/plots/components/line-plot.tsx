@@ -5,6 +5,18 @@ import Svg, { G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { formatNumber } from '@/shared/format';
 import { Text, colors, fonts, space } from '@/features/ui';
 import {
+  axisMarginPx,
+  axisTitleOf,
+  MIN_SIDE_PX,
+  sharesAxis,
+  TICK_GAP_PX,
+  TICK_PX,
+  TITLE_BAND_PX,
+  valueScale,
+  valueTicks,
+  type AxisSeries,
+} from '../axes';
+import {
   countRuns,
   linePath,
   nearestIndex,
@@ -13,7 +25,7 @@ import {
   type Values,
 } from '../plot-paths';
 
-export interface PlotSeries {
+export interface PlotSeries extends AxisSeries {
   /** Short name for the read-out and the axis ("Bandpass", "R"). */
   label: string;
   /** Unit for the read-out ("nm", "nm/mm", "°"); empty when dimensionless. */
@@ -40,8 +52,15 @@ export type LinePlotProps = {
   /** Ascending wavelengths (x), nm. */
   wavelengthsNm: readonly number[];
   series: PlotSeries;
-  /** Drawn against a right-hand axis of its own. */
+  /**
+   * A second line: against the same axis when it measures the same thing (same unit and axis
+   * title, or `axis: 'shared'`), else against a right-hand axis of its own.
+   */
   secondSeries?: PlotSeries;
+  /** A line of small print under the plot: what the figure assumes, or where it stops holding. */
+  caption?: string;
+  /** Shown as a caution (warning colour) rather than muted small print. */
+  captionIsCaution?: boolean;
   shaded?: readonly Interval[];
   /** What the shading means, shown under the title when anything is shaded. */
   shadedLabel?: string;
@@ -54,23 +73,58 @@ export type LinePlotProps = {
 };
 
 export const PLOT_HEIGHT = 200;
-const MARGIN = { top: 10, bottom: 36, left: 54, right: 16, rightWithSecond: 58 };
-const TICK_PX = 11;
+const MARGIN = { top: 10, bottom: 36 };
+
+type Ticks = { values: number[]; labels: string[] };
 
 type Frame = {
   x: ScaleLinear<number, number>;
   y: ScaleLinear<number, number>;
+  yTicks: Ticks;
+  /** The second series' own axis; null without a second series or when it shares `y`. */
   y2: ScaleLinear<number, number> | null;
+  y2Ticks: Ticks | null;
   left: number;
   right: number;
   top: number;
   bottom: number;
 };
 
-function axisFor(series: PlotSeries, top: number, bottom: number): ScaleLinear<number, number> {
-  const extent = series.domain ?? valueExtent(series.values) ?? [0, 1];
-  const scale = scaleLinear().domain(extent).range([bottom, top]);
-  return series.domain ? scale : scale.nice(5);
+/**
+ * Scales first, then margins: the value ticks depend only on the data and the plot's height, so
+ * their formatted labels set how much room each value axis takes before x is laid out.
+ */
+function layoutFrame(
+  width: number,
+  height: number,
+  wavelengthsNm: readonly number[],
+  series: PlotSeries,
+  secondSeries: PlotSeries | undefined,
+): Frame {
+  const top = MARGIN.top;
+  const bottom = height - MARGIN.bottom;
+  const shared = secondSeries !== undefined && sharesAxis(series, secondSeries);
+  const y = valueScale(shared ? [series, secondSeries] : [series], top, bottom);
+  const yTicks = valueTicks(y, series.tickFormat);
+  const y2 = secondSeries && !shared ? valueScale([secondSeries], top, bottom) : null;
+  const y2Ticks = y2 ? valueTicks(y2, secondSeries?.tickFormat) : null;
+  const left = axisMarginPx(yTicks.labels);
+  const right = width - (y2Ticks ? axisMarginPx(y2Ticks.labels) : MIN_SIDE_PX);
+  const first = wavelengthsNm[0] ?? 0;
+  const last = wavelengthsNm[wavelengthsNm.length - 1] ?? first + 1;
+  return {
+    x: scaleLinear()
+      .domain([first, last > first ? last : first + 1])
+      .range([left, right]),
+    y,
+    yTicks,
+    y2,
+    y2Ticks,
+    left,
+    right,
+    top,
+    bottom,
+  };
 }
 
 /** A wavelength plot: axes, ticks, units, gaps where a value is missing, a selected-wavelength rule and a read-out. */
@@ -87,25 +141,10 @@ export function LinePlot(props: LinePlotProps) {
     onSelectWavelength,
     followHover = false,
   } = props;
-  const frame: Frame = useMemo(() => {
-    const left = MARGIN.left;
-    const right = width - (secondSeries ? MARGIN.rightWithSecond : MARGIN.right);
-    const top = MARGIN.top;
-    const bottom = height - MARGIN.bottom;
-    const first = wavelengthsNm[0] ?? 0;
-    const last = wavelengthsNm[wavelengthsNm.length - 1] ?? first + 1;
-    return {
-      x: scaleLinear()
-        .domain([first, last > first ? last : first + 1])
-        .range([left, right]),
-      y: axisFor(series, top, bottom),
-      y2: secondSeries ? axisFor(secondSeries, top, bottom) : null,
-      left,
-      right,
-      top,
-      bottom,
-    };
-  }, [width, height, wavelengthsNm, series, secondSeries]);
+  const frame: Frame = useMemo(
+    () => layoutFrame(width, height, wavelengthsNm, series, secondSeries),
+    [width, height, wavelengthsNm, series, secondSeries],
+  );
 
   const [hoverIndex, setHoverIndex] = useState<number | null>(null);
   const pressed = useRef(false);
@@ -139,12 +178,14 @@ export function LinePlot(props: LinePlotProps) {
 
   const readoutIndex = hoverIndex ?? (selectedNm != null ? nearestIndex(wavelengthsNm, selectedNm) : -1);
   const readoutNm = readoutIndex >= 0 ? wavelengthsNm[readoutIndex] : undefined;
+  // Two lines on one axis are two of the same figure: name both, not only the second.
+  const nameFirst = secondSeries !== undefined && frame.y2 === null;
   const readout =
     readoutNm === undefined
       ? null
       : [
           `${formatNumber(readoutNm)} nm`,
-          readValue(series, readoutIndex),
+          nameFirst ? `${series.label} ${readValue(series, readoutIndex)}` : readValue(series, readoutIndex),
           secondSeries ? `${secondSeries.label} ${readValue(secondSeries, readoutIndex)}` : null,
         ]
           .filter(Boolean)
@@ -191,6 +232,7 @@ export function LinePlot(props: LinePlotProps) {
             shaded={props.shaded}
             emptyMessage={props.emptyMessage}
             frame={frame}
+            width={width}
             height={height}
           />
           {inRange(selectedNm) ? (
@@ -236,6 +278,16 @@ export function LinePlot(props: LinePlotProps) {
           aria-label={`${title}: tap or drag to choose a wavelength`}
         />
       </View>
+      {props.caption ? (
+        <Text
+          variant="caption"
+          tone={props.captionIsCaution ? 'warning' : 'muted'}
+          style={styles.caption}
+          testID={`${testID}-caption`}
+        >
+          {props.caption}
+        </Text>
+      ) : null}
     </View>
   );
 }
@@ -270,6 +322,7 @@ type BodyProps = Pick<
   'testID' | 'wavelengthsNm' | 'series' | 'secondSeries' | 'shaded' | 'emptyMessage'
 > & {
   frame: Frame;
+  width: number;
   height: number;
 };
 
@@ -282,23 +335,20 @@ const PlotBody = memo(function PlotBody({
   shaded,
   emptyMessage,
   frame,
+  width,
   height,
 }: BodyProps) {
-  const { x, y, y2, left, right, top, bottom } = frame;
+  const { x, y, y2, yTicks, y2Ticks, left, right, top, bottom } = frame;
   const parts = useMemo(() => {
     const xTicks = x.ticks(Math.max(2, Math.floor((right - left) / 70)));
     const xFormat = x.tickFormat(xTicks.length);
-    const yTicks = y.ticks(5);
-    const yFormat = y.tickFormat(5, series.tickFormat);
-    const y2Ticks = y2 ? y2.ticks(5) : [];
-    const y2Format = y2 ? y2.tickFormat(5, secondSeries?.tickFormat) : null;
-    const grid = yTicks.map((t) => `M${left},${r(y(t))}H${right}`).join('');
+    const grid = yTicks.values.map((t) => `M${left},${r(y(t))}H${right}`).join('');
     let tickMarks =
       xTicks.map((t) => `M${r(x(t))},${bottom}v4`).join('') +
-      yTicks.map((t) => `M${left},${r(y(t))}h-4`).join('');
-    if (y2) tickMarks += y2Ticks.map((t) => `M${right},${r(y2(t))}h4`).join('');
+      yTicks.values.map((t) => `M${left},${r(y(t))}h-4`).join('');
+    if (y2 && y2Ticks) tickMarks += y2Ticks.values.map((t) => `M${right},${r(y2(t))}h4`).join('');
     const d = linePath(wavelengthsNm, series.values, x, y);
-    const d2 = secondSeries && y2 ? linePath(wavelengthsNm, secondSeries.values, x, y2) : '';
+    const d2 = secondSeries ? linePath(wavelengthsNm, secondSeries.values, x, y2 ?? y) : '';
     const shade = (shaded ?? [])
       .map((iv) => {
         const a = Math.max(left, x(iv.startNm));
@@ -306,12 +356,16 @@ const PlotBody = memo(function PlotBody({
         return b > a ? `M${r(a)},${top}H${r(b)}V${bottom}H${r(a)}Z` : '';
       })
       .join('');
-    return { xTicks, xFormat, yTicks, yFormat, y2Ticks, y2Format, grid, tickMarks, d, d2, shade };
-  }, [x, y, y2, left, right, top, bottom, wavelengthsNm, series, secondSeries, shaded]);
+    return { xTicks, xFormat, grid, tickMarks, d, d2, shade };
+  }, [x, y, y2, yTicks, y2Ticks, left, right, top, bottom, wavelengthsNm, series, secondSeries, shaded]);
 
-  const yTitle = series.axisTitle ?? (series.unit || series.label);
-  const y2Title = secondSeries ? (secondSeries.axisTitle ?? (secondSeries.unit || secondSeries.label)) : '';
+  const yTitle = axisTitleOf(series);
+  const y2Title = secondSeries ? axisTitleOf(secondSeries) : '';
+  // One axis for two lines: its title belongs to both, so it takes neither line's colour.
+  const yTitleColor = secondSeries && !y2 ? colors.ink : series.color;
   const midY = (top + bottom) / 2;
+  const titleX = TITLE_BAND_PX / 2;
+  const rightTitleX = width - TITLE_BAND_PX / 2;
   return (
     <G>
       <Rect x={left} y={top} width={right - left} height={bottom - top} fill={colors.surface} />
@@ -325,7 +379,7 @@ const PlotBody = memo(function PlotBody({
       ) : null}
       <Path d={parts.grid} stroke={colors.line} strokeWidth={1} />
       <Path
-        d={`M${left},${top}V${bottom}H${right}${secondSeries ? `V${top}` : ''}`}
+        d={`M${left},${top}V${bottom}H${right}${y2 ? `V${top}` : ''}`}
         stroke={colors.inkMuted}
         strokeWidth={1}
         fill="none"
@@ -362,36 +416,36 @@ const PlotBody = memo(function PlotBody({
           fontFamily={fonts.mono}
           fill={colors.inkMuted}
           // A label at the right end would spill out of the drawing: end it at its tick instead.
-          textAnchor={!secondSeries && x(t) > right - 18 ? 'end' : 'middle'}
+          textAnchor={!y2 && x(t) > right - 18 ? 'end' : 'middle'}
         >
           {parts.xFormat(t)}
         </SvgText>
       ))}
-      {parts.yTicks.map((t) => (
+      {yTicks.values.map((t, i) => (
         <SvgText
           key={`y${t}`}
-          x={left - 6}
+          x={left - TICK_GAP_PX}
           y={y(t) + 4}
           fontSize={TICK_PX}
           fontFamily={fonts.mono}
           fill={colors.inkMuted}
           textAnchor="end"
         >
-          {parts.yFormat(t)}
+          {yTicks.labels[i]}
         </SvgText>
       ))}
-      {y2 && parts.y2Format
-        ? parts.y2Ticks.map((t) => (
+      {y2 && y2Ticks
+        ? y2Ticks.values.map((t, i) => (
             <SvgText
               key={`r${t}`}
-              x={right + 6}
+              x={right + TICK_GAP_PX}
               y={y2(t) + 4}
               fontSize={TICK_PX}
               fontFamily={fonts.mono}
               fill={secondSeries?.color ?? colors.inkMuted}
               textAnchor="start"
             >
-              {parts.y2Format!(t)}
+              {y2Ticks.labels[i]}
             </SvgText>
           ))
         : null}
@@ -406,25 +460,27 @@ const PlotBody = memo(function PlotBody({
         Wavelength (nm)
       </SvgText>
       <SvgText
-        x={12}
+        x={titleX}
         y={midY}
         fontSize={TICK_PX}
         fontFamily={fonts.regular}
-        fill={series.color}
+        fill={yTitleColor}
         textAnchor="middle"
-        transform={`rotate(-90 12 ${midY})`}
+        transform={`rotate(-90 ${titleX} ${midY})`}
+        testID={`${testID}-axis-title`}
       >
         {yTitle}
       </SvgText>
-      {secondSeries ? (
+      {secondSeries && y2 ? (
         <SvgText
-          x={right + 46}
+          x={rightTitleX}
           y={midY}
           fontSize={TICK_PX}
           fontFamily={fonts.regular}
           fill={secondSeries.color}
           textAnchor="middle"
-          transform={`rotate(90 ${right + 46} ${midY})`}
+          transform={`rotate(90 ${rightTitleX} ${midY})`}
+          testID={`${testID}-axis-title-2`}
         >
           {y2Title}
         </SvgText>
@@ -462,4 +518,5 @@ const styles = StyleSheet.create({
     borderColor: colors.line,
   },
   overlay: { position: 'absolute', cursor: 'pointer' },
+  caption: { paddingHorizontal: space.xs },
 });

@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Evaluation } from '@/features/solver';
 import { formatNumber, formatPercent } from '@/shared/format';
 import { colors, space } from '@/features/ui';
+import { scalarBlazeCaution, type ScalarBlazeCaution } from '../captions';
 import { performanceSeries, type PerformanceSeries } from '../series';
 import { LinePlot, type PlotSeries } from './line-plot';
 
@@ -37,6 +38,14 @@ function useSeries(evaluation: Evaluation): PerformanceSeries {
 }
 
 type Ready = Omit<PlotProps, 'evaluation'> & { data: PerformanceSeries };
+
+/** What the delivered resolving power assumes, under its plot (and in the CLI help). */
+export const RESOLVING_POWER_CAPTION =
+  'R = λ / √(bandpass² + (λ/|m|N)²): the slit bandpass and the diffraction limit added in quadrature, as for near-Gaussian line shapes (common practice).';
+
+/** The efficiency model by name, under its plot. */
+export const EFFICIENCY_MODEL_CAPTION =
+  'Scalar estimate: the scalar (Kirchhoff) blaze function sinc²(π(|m| − λ_B cos K/λ)), the small-angle form of the groove-facet model (Schroeder & Hilliard 1980). It holds for small blaze angles and λ/d below about 0.2 (Palmer & Loewen, Diffraction Grating Handbook, ch. 9) and ignores polarisation.';
 
 const Dispersion = memo(function Dispersion({ data, ...rest }: Ready) {
   const series: PlotSeries = useMemo(
@@ -92,11 +101,16 @@ const Bandpass = memo(function Bandpass({ data, ...rest }: Ready) {
       series={series}
       secondSeries={second}
       emptyMessage="No wavelength in the range is reachable"
+      caption={RESOLVING_POWER_CAPTION}
     />
   );
 });
 
-const Efficiency = memo(function Efficiency({ data, ...rest }: Ready) {
+const Efficiency = memo(function Efficiency({
+  data,
+  caution,
+  ...rest
+}: Ready & { caution: ScalarBlazeCaution | null }) {
   const series: PlotSeries = useMemo(
     () => ({
       label: 'Efficiency',
@@ -120,6 +134,8 @@ const Efficiency = memo(function Efficiency({ data, ...rest }: Ready) {
       shaded={data.overlapIntervals}
       shadedLabel="Other orders land here too (overlapping orders)"
       emptyMessage="Give a blaze wavelength to see the efficiency"
+      caption={caution ? `${caution.text} ${EFFICIENCY_MODEL_CAPTION}` : EFFICIENCY_MODEL_CAPTION}
+      captionIsCaution={caution !== null}
     />
   );
 });
@@ -150,6 +166,7 @@ const Rotation = memo(function Rotation({ data, ...rest }: Ready) {
 /** The four performance plots against wavelength: one per row, or two columns when wide. */
 export function PerformancePlots({ evaluation, width, columns, ...rest }: PerformancePlotsProps) {
   const data = useSeries(evaluation);
+  const caution = useMemo(() => scalarBlazeCaution(evaluation), [evaluation]);
   const cols = columns ?? (width >= TWO_COLUMN_MIN_WIDTH ? 2 : 1);
   const plotWidth = Math.floor(cols === 2 ? (width - GAP) / 2 : width);
   const shared = { ...rest, data, width: plotWidth };
@@ -157,7 +174,7 @@ export function PerformancePlots({ evaluation, width, columns, ...rest }: Perfor
     <View style={[styles.grid, { width }]} testID="performance-plots">
       <Dispersion {...shared} />
       <Bandpass {...shared} />
-      <Efficiency {...shared} />
+      <Efficiency {...shared} caution={caution} />
       <Rotation {...shared} />
     </View>
   );

@@ -1,0 +1,32 @@
+/** Plot captions that depend on the evaluation. Pure: no React. */
+
+import { SCALAR_LIMIT_LAMBDA_OVER_D, type Evaluation } from '../solver';
+import { formatNumber } from '../../shared/format';
+
+export interface ScalarBlazeCaution {
+  /** Shortest plotted wavelength with an efficiency value past the scalar region, nm. */
+  fromNm: number;
+  text: string;
+}
+
+/**
+ * The caution under the efficiency plot when some plotted efficiency lies where λ/d exceeds the
+ * scalar limit (the solver's `beyond-scalar-blaze` warning says the same in the list); null when
+ * every value is inside it or there is no efficiency to show.
+ */
+export function scalarBlazeCaution(evaluation: Evaluation): ScalarBlazeCaution | null {
+  const d = evaluation.design.grooveSpacingNm;
+  let fromNm = Infinity;
+  for (const p of evaluation.points) {
+    if (p.blazeEfficiency !== null && p.wavelengthNm / d > SCALAR_LIMIT_LAMBDA_OVER_D && p.wavelengthNm < fromNm) {
+      fromNm = p.wavelengthNm;
+    }
+  }
+  if (fromNm === Infinity) return null;
+  return {
+    fromNm,
+    text:
+      `Caution: from ${formatNumber(fromNm)} nm on, λ/d exceeds ${SCALAR_LIMIT_LAMBDA_OVER_D}, where real efficiency ` +
+      'depends on polarisation and groove profile and can differ from this curve by tens of per cent.',
+  };
+}
