@@ -88,6 +88,19 @@ describe('POST /api/solve', () => {
     expect(error.fields?.['design.grating.grooveDensityPerMm']).toMatch(/greater than 0/);
   });
 
+  it('refuses a design no grating can be with 400 naming the field, and warns where the closed forms grow rough', async () => {
+    // Palmer & Loewen, ch. 9: a first-order Littrow blaze λ_B = 2d sin θ_B stays below 2d (1667 nm at 1200/mm).
+    const impossible = { ...exampleDesign, grating: { ...exampleDesign.grating, blazeWavelengthNm: 5000 } };
+    const refused = await request(ctx.app).post('/api/solve').send({ design: impossible }).expect(400);
+    expect(errorBodySchema.parse(refused.body).error.fields?.['design.grating.blazeWavelengthNm']).toMatch(/twice the groove spacing/);
+
+    // A Czerny–Turner at deviation 0 is possible only out of plane: a warning, not a refusal.
+    const degenerate = { ...exampleDesign, layout: { ...exampleDesign.layout, deviationAngleDeg: 0 } };
+    const res = await request(ctx.app).post('/api/solve').send({ design: degenerate, points: 3 }).expect(200);
+    expect(res.body.warnings.map((w: { code: string }) => w.code)).toEqual(expect.arrayContaining(['degenerate-mount', 'beyond-scalar-blaze']));
+    expect(res.body.design.detector.samples.map((x: { position: string }) => x.position)).toEqual(['start', 'centre', 'end']);
+  });
+
   it('answers a body without a design with 400 naming the design field', async () => {
     const res = await request(ctx.app).post('/api/solve').send({ at: [500] }).expect(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['design']);
