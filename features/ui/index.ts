@@ -8,7 +8,11 @@ export { Text } from './components/text';
 export { TextField } from './components/text-field';
 export { Wordmark } from './components/wordmark';
 export { copyText } from './clipboard';
+export { documentTitle } from './document-title-text';
+export { useDocumentTitle } from './document-title';
 export { fontAssets } from './fonts';
+export { printHidden } from './print';
+export { installPrintStyles } from './print-styles';
 export { saveTextFile } from './save-text-file';
 export { useLayout } from './theme-context';
 export {

@@ -1,4 +1,5 @@
 import { Pressable, StyleSheet, Text } from 'react-native';
+import { printHidden } from '../print';
 import { colors, fonts, minTouch, radius, space, type } from '../theme';
 
 type Props = {
@@ -14,6 +15,8 @@ type Props = {
 export function Button({ label, onPress, kind = 'primary', disabled = false, accessibilityLabel, testID }: Props) {
   return (
     <Pressable
+      // A button does nothing on paper: printed screens leave it out.
+      {...printHidden}
       role="button"
       accessibilityLabel={accessibilityLabel ?? label}
       accessibilityState={{ disabled }}
