@@ -56,12 +56,15 @@ const DIRECTIONS: readonly [number, number][] = [
   [-Math.SQRT1_2, -Math.SQRT1_2],
 ];
 
+/** A move toward the drawing's middle (into the optics and rays) counts this many times its length. */
+const INWARD_COST = 3;
+
 /**
  * Moves labels that would land on an earlier one (collimator and camera at a small deviation,
- * an angle value on a part's name) to the nearest free spot inside the drawing: the smallest move
- * that clears every label already placed, and of equal moves the one pointing away from the
- * drawing's middle, where the optics and rays are not. Labels keep their order of importance:
- * earlier blocks stay put. `fixed` texts (the footer) never move.
+ * an angle value on a part's name) to the cheapest free spot inside the drawing: the shortest move
+ * that clears every label already placed, where a move toward the drawing's middle (onto the
+ * optics and rays) costs three times its length. Labels keep their order of importance: earlier
+ * blocks stay put. `fixed` texts (the footer) never move.
  */
 export function declutterTexts(
   texts: readonly SketchShape[],
@@ -86,12 +89,17 @@ export function declutterTexts(
     if (!free(box)) {
       const ox = (box.left + box.right) / 2 - size.widthPx / 2;
       const oy = (box.top + box.bottom) / 2 - bottomLimit / 2;
-      const outward = [...DIRECTIONS].sort((a, b) => b[0] * ox + b[1] * oy - (a[0] * ox + a[1] * oy));
+      // Within a tenth of the drawing of the middle line, either way along that axis is outward.
+      const weight = (move: number, offset: number, span: number) =>
+        Math.abs(offset) < span / 10 || Math.sign(move) === Math.sign(offset) ? 1 : INWARD_COST;
+      const cost = ([dx, dy]: [number, number]) =>
+        Math.abs(dx) * weight(dx, ox, size.widthPx) + Math.abs(dy) * weight(dy, oy, bottomLimit);
       const tries: [number, number][] = [];
       const reach = Math.max(size.widthPx, size.heightPx);
       for (let d = STEP_PX; d <= reach; d += STEP_PX) {
-        for (const [ux, uy] of outward) tries.push([round(ux * d), round(uy * d)]);
+        for (const [ux, uy] of DIRECTIONS) tries.push([round(ux * d), round(uy * d)]);
       }
+      tries.sort((a, b) => cost(a) - cost(b));
       const found = tries.find(([dx, dy]) => {
         const candidate = shifted(box, dx, dy);
         return inside(candidate) && free(candidate);

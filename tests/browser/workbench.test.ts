@@ -1,5 +1,8 @@
 import type { BrowserContext, Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
+import { fieldByPath } from '../../features/workbench/fields';
+import { stepValue } from '../../features/workbench/form-model';
+import { DEFAULT_DEVIATION_DEG } from '../../features/workbench/mount-switch';
 import { presets } from '../../features/workbench/presets';
 import { liveServerAndBrowser, screenshot, viewports, type ViewportName } from '../support/browser';
 
@@ -9,6 +12,33 @@ const field = (page: Page, path: string) => page.getByTestId(`field-${path}`);
 const sketchMarkup = (page: Page) => page.getByTestId('ray-sketch').evaluate((el) => el.innerHTML);
 
 const readout = async (page: Page, id: string) => ((await page.getByTestId(id).textContent()) ?? '').trim();
+
+/** The number a read-out starts with ("0.5 nm" with a no-break space → 0.5). */
+const leadingNumber = (text: string) => Number(text.split(/\s/)[0]);
+
+/** Pairs of sketch labels whose drawn boxes overlap by more than a pixel, as the browser laid them out. */
+const overlappingLabels = (page: Page) =>
+  page.getByTestId('ray-sketch').evaluate((el) => {
+    const boxes = [...el.querySelectorAll('text')].map((t) => ({ text: t.textContent ?? '', r: t.getBoundingClientRect() }));
+    const found: string[] = [];
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++) {
+        const a = boxes[i]!;
+        const b = boxes[j]!;
+        const x = Math.min(a.r.right, b.r.right) - Math.max(a.r.left, b.r.left);
+        const y = Math.min(a.r.bottom, b.r.bottom) - Math.max(a.r.top, b.r.top);
+        if (x > 1 && y > 1) found.push(`${a.text} / ${b.text}`);
+      }
+    }
+    return found;
+  });
+
+/** The unit shown after a field's box (its suffix), '' when none. */
+const suffixOf = (page: Page, path: string) =>
+  field(page, path).evaluate((input) => (input.parentElement?.textContent ?? '').trim());
+
+const isChecked = async (page: Page, testID: string) =>
+  (await page.getByTestId(testID).getAttribute('aria-checked')) === 'true';
 
 describe('design workbench in Chromium', () => {
   const live = liveServerAndBrowser();
@@ -27,12 +57,12 @@ describe('design workbench in Chromium', () => {
 
   it('follows a groove-density change in the bandpass and the sketch', async () => {
     const { context, page, errors } = await open('wide');
-    const bandpassBefore = Number(await readout(page, 'readout-bandpass').then((t) => t.split(' ')[0]));
+    const bandpassBefore = leadingNumber(await readout(page, 'readout-bandpass'));
     const sketchBefore = await sketchMarkup(page);
     await field(page, 'grating.grooveDensityPerMm').fill('2400');
     // Twice the grooves, twice the dispersion (Palmer & Loewen ch. 2): the bandpass falls.
     await expect
-      .poll(async () => Number((await readout(page, 'readout-bandpass')).split(' ')[0]))
+      .poll(async () => leadingNumber(await readout(page, 'readout-bandpass')))
       .toBeLessThan(bandpassBefore * 0.6);
     expect(await sketchMarkup(page)).not.toBe(sketchBefore);
     expect(errors).toEqual([]);
@@ -118,6 +148,192 @@ describe('design workbench in Chromium', () => {
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, `workbench-${presetId}-${size}`);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+  describe('on a phone (390 × 844)', () => {
+    it('switches the mount with the arrow keys and Space, bringing back a sensible deviation each time (items 2, 6)', async () => {
+      const { context, page, errors } = await open('phone');
+      await page.getByRole('button', { name: 'Mount: show fields' }).click();
+      const deviation = field(page, 'layout.deviationAngleDeg');
+      await deviation.fill('30');
+      // Tab lands on the checked option of the radio group; the arrows move the choice.
+      await page.getByTestId('mount-kind-czerny-turner').focus();
+      await page.keyboard.press('ArrowRight');
+      await expect.poll(() => isChecked(page, 'mount-kind-littrow')).toBe(true);
+      expect(await deviation.inputValue()).toBe('0');
+      await page.keyboard.press('ArrowLeft');
+      await expect.poll(() => isChecked(page, 'mount-kind-czerny-turner')).toBe(true);
+      // The angle typed for the Czerny–Turner comes back, not the Littrow's 0.
+      expect(await deviation.inputValue()).toBe('30');
+      // Space chooses the focused option: Ebert–Fastie, never typed for, starts at its default.
+      await page.getByTestId('mount-kind-ebert-fastie').focus();
+      await page.keyboard.press(' ');
+      await expect.poll(() => isChecked(page, 'mount-kind-ebert-fastie')).toBe(true);
+      expect(await deviation.inputValue()).toBe(String(DEFAULT_DEVIATION_DEG['ebert-fastie']));
+      expect(Number(await deviation.inputValue())).toBeGreaterThan(0);
+      await screenshot(page, 'workbench-mount-keys-phone');
+      expect(errors).toEqual([]);
+      await context.close();
+    });
+
+    it('never draws one sketch label on another, even at a Czerny–Turner deviation of 0 (item 2)', async () => {
+      const { context, page } = await open('phone');
+      await page.getByRole('button', { name: 'Mount: show fields' }).click();
+      expect(await overlappingLabels(page)).toEqual([]);
+      await field(page, 'layout.deviationAngleDeg').fill('0');
+      await field(page, 'layout.collimatorOffAxisDeg').fill('');
+      await expect.poll(() => page.getByTestId('ray-sketch').locator('text', { hasText: 'Camera' }).count()).toBe(1);
+      expect(await overlappingLabels(page)).toEqual([]);
+      await page.getByTestId('sketch-card').screenshot({ path: 'tests/artifacts/workbench-deviation-0-sketch-phone.png' });
+      await context.close();
+    });
+
+    it('names the angle drawn for each mirror, and an Ebert–Fastie shows one mirror only (item 3)', async () => {
+      const { context, page } = await open('phone');
+      const notes = page.getByTestId('ray-sketch-notes');
+      // The preset gives the collimator 6° and leaves the camera out.
+      await expect.poll(async () => (await notes.textContent()) ?? '').toMatch(/Camera off-axis angle not given: drawn at 12\.00°/);
+      expect(await notes.textContent()).toMatch(/collimator drawn at 6\.00°\sas given/);
+      expect(await notes.textContent()).not.toMatch(/Mirror off-axis angles not given/);
+      await page.getByRole('button', { name: 'Mount: show fields' }).click();
+      expect(await field(page, 'layout.cameraFocalMm').count()).toBe(1);
+      await page.getByTestId('mount-kind-ebert-fastie').click();
+      await page.getByTestId('one-mirror-note').waitFor();
+      // The camera's fields do not apply to one mirror: hidden, with the reason in one line.
+      expect(await field(page, 'layout.cameraFocalMm').count()).toBe(0);
+      expect(await field(page, 'layout.cameraOffAxisDeg').count()).toBe(0);
+      expect(await page.getByTestId('one-mirror-note').textContent()).toMatch(/one mirror is both collimator and camera/);
+      await expect.poll(async () => (await notes.textContent()) ?? '').toMatch(/One mirror, used twice/);
+      expect(await notes.textContent()).not.toMatch(/camera/i);
+      expect(await page.getByTestId('ray-sketch').getAttribute('aria-label')).toMatch(/one mirror of 150\smm focal length, used twice/);
+      await screenshot(page, 'workbench-ebert-fastie-phone');
+      await context.close();
+    });
+
+    it('shows one unit while a field has focus: the typed one, or the suffix (item 4)', async () => {
+      const { context, page } = await open('phone');
+      const path = 'slits.entranceWidthUm';
+      await field(page, path).focus();
+      expect(await suffixOf(page, path)).toBe('µm');
+      await field(page, path).fill('25 µm');
+      await expect.poll(() => suffixOf(page, path)).toBe('');
+      await field(page, path).fill('-25 µm');
+      await expect.poll(() => suffixOf(page, path)).toBe('');
+      const box = await field(page, path).evaluate((input) => (input as HTMLInputElement).value + (input.parentElement?.textContent ?? ''));
+      expect(box.match(/µm/g)).toHaveLength(1);
+      await field(page, path).fill('25');
+      await expect.poll(() => suffixOf(page, path)).toBe('µm');
+      await context.close();
+    });
+
+    it('keeps the read-out and the plots on one wavelength, and moves it with a note when the range leaves it (item 5)', async () => {
+      const { context, page } = await open('phone');
+      const marker = page.getByTestId('plot-bandpass-selected');
+      const header = page.getByTestId('plot-bandpass-readout');
+      const wanted = await field(page, 'readout-wavelength').inputValue();
+      await field(page, 'range.startNm').fill('250');
+      await field(page, 'range.endNm').fill('800');
+      await expect.poll(() => marker.getAttribute('data-nm')).toBe(wanted);
+      // The plots name the read-out's own wavelength, not the nearest of their samples.
+      expect(leadingNumber((await header.textContent()) ?? '')).toBe(Number(wanted));
+      expect(await page.getByTestId('readout-moved').count()).toBe(0);
+      await field(page, 'range.startNm').fill('600');
+      await page.getByTestId('readout-moved').waitFor();
+      expect(await field(page, 'readout-wavelength').inputValue()).toBe('600');
+      expect(await page.getByTestId('readout-moved').textContent()).toMatch(new RegExp(`moved from ${wanted}\\snm to 600\\snm`));
+      await expect.poll(() => marker.getAttribute('data-nm')).toBe('600');
+      expect(leadingNumber((await header.textContent()) ?? '')).toBe(600);
+      // Typed outside the range, the wavelength is refused with the range named.
+      await field(page, 'readout-wavelength').fill('900');
+      await page.getByText(/must be within the wavelength range, 600–800\snm/).waitFor();
+      await page.getByTestId('readout-card').screenshot({ path: 'tests/artifacts/workbench-readout-moved-phone.png' });
+      await context.close();
+    });
+
+    it('steps a numeric field with ArrowUp, ten steps with Shift+ArrowUp, and stops at its bounds (item 6)', async () => {
+      const { context, page } = await open('phone');
+      const path = 'slits.exitWidthUm';
+      const spec = fieldByPath.get(path)!;
+      const input = field(page, path);
+      const start = await input.inputValue();
+      const once = stepValue(spec, start, 1)!;
+      await input.focus();
+      await page.keyboard.press('ArrowUp');
+      await expect.poll(() => input.inputValue()).toBe(once);
+      expect(Number(once)).toBeGreaterThan(Number(start));
+      await page.keyboard.press('Shift+ArrowUp');
+      const tenMore = stepValue(spec, once, 1, 10)!;
+      await expect.poll(() => input.inputValue()).toBe(tenMore);
+      expect(Number(tenMore) - Number(once)).toBe(10 * (spec.step as number));
+      await page.keyboard.press('ArrowDown');
+      await expect.poll(() => input.inputValue()).toBe(stepValue(spec, tenMore, -1)!);
+      // Down and down again: never below the field's minimum.
+      for (let i = 0; i < 5; i++) await page.keyboard.press('Shift+ArrowDown');
+      await expect.poll(() => input.inputValue()).toBe(String(spec.min));
+      await context.close();
+    });
+
+    it('says the range table scrolls sideways, and which way the rest lies (item 8)', async () => {
+      const { context, page } = await open('phone');
+      const cue = page.getByTestId('range-table-scroll-cue');
+      await cue.waitFor();
+      expect(await cue.textContent()).toMatch(/Scroll sideways for all 7 columns →/);
+      const scroller = page.getByTestId('range-table-scroll');
+      expect(await scroller.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+      await page.getByTestId('range-table').screenshot({ path: 'tests/artifacts/workbench-range-table-phone.png' });
+      // Sideways, as a trackpad or a mouse with a tilt wheel does it.
+      await scroller.hover();
+      await page.mouse.wheel(400, 0);
+      await expect.poll(() => scroller.evaluate((el) => el.scrollLeft)).toBeGreaterThan(0);
+      await expect.poll(async () => (await cue.textContent()) ?? '').toMatch(/← Scroll back/);
+      // The last column is in view once scrolled.
+      const lastHeader = page.getByRole('columnheader').last();
+      expect(await lastHeader.textContent()).toMatch(/other/);
+      expect(await lastHeader.isVisible()).toBe(true);
+      await context.close();
+    });
+
+    it('never breaks a number from its unit at 390 px, and signs orders with a true minus (items 19, 21)', async () => {
+      const { context, page } = await open('phone');
+      await field(page, 'grating.order').fill('-2');
+      // Order −2 sends 580 nm out where order −1 sends 1160 nm: the overlap list names m = −1.
+      await expect.poll(() => page.getByTestId('readout-card').textContent()).toMatch(/m=\u22121/);
+      for (const id of ['readout-card', 'range-table', 'summary-bar', 'sketch-card']) {
+        const text = (await page.getByTestId(id).textContent()) ?? '';
+        // A plain (breakable) space between a figure and its unit is the defect.
+        expect(text, id).not.toMatch(/\d (nm|mm|µm|°|%)/);
+        expect(text, id).not.toMatch(/[=\s(]-\d/);
+      }
+      // The folded Grating section sums itself up with the order signed the same way.
+      await page.getByRole('button', { name: 'Grating: hide fields' }).click();
+      await expect.poll(() => page.getByTestId('section-grating').textContent()).toMatch(/order \u22122/);
+      // Each figure's value and unit stay on one line in the laid-out page.
+      const wrapped = await page.getByTestId('readout-card').evaluate((card) =>
+        [...card.querySelectorAll('[data-testid^="readout-"]:not([data-testid="readout-card"])')]
+          .filter((el) => el.children.length > 0 || /\d/.test(el.textContent ?? ''))
+          .filter((el) => {
+            const range = document.createRange();
+            range.selectNodeContents(el);
+            const lines = new Set([...range.getClientRects()].map((r) => Math.round(r.top)));
+            return lines.size > 1;
+          })
+          .map((el) => el.textContent),
+      );
+      expect(wrapped).toEqual([]);
+      await screenshot(page, 'workbench-units-phone');
+      await context.close();
+    });
+  });
+
+  it.each(['phone', 'tablet', 'wide'] as const)('lays out a Czerny–Turner at deviation 0 with clear labels at %s size', async (size) => {
+    const { context, page, errors } = await open(size);
+    if (size === 'phone') await page.getByRole('button', { name: 'Mount: show fields' }).click();
+    await field(page, 'layout.deviationAngleDeg').fill('0');
+    await expect.poll(() => overlappingLabels(page)).toEqual([]);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await screenshot(page, `workbench-deviation-0-${size}`);
     expect(errors).toEqual([]);
     await context.close();
   });
