@@ -135,7 +135,7 @@ function RowActions({ design, owner, onEdit, onArchive, archiving }: Omit<Props,
     <View style={styles.rowActions}>
       <Button
         kind="quiet"
-        label="Rename / tag"
+        label="Rename or tag"
         accessibilityLabel={`Rename or tag ${design.title}`}
         onPress={onEdit}
         testID={`rename-${design.id}`}
