@@ -17,16 +17,19 @@ export interface ScalarBlazeCaution {
 export function scalarBlazeCaution(evaluation: Evaluation): ScalarBlazeCaution | null {
   const d = evaluation.design.grooveSpacingNm;
   let fromNm = Infinity;
+  let firstNm = Infinity;
   for (const p of evaluation.points) {
-    if (p.blazeEfficiency !== null && p.wavelengthNm / d > SCALAR_LIMIT_LAMBDA_OVER_D && p.wavelengthNm < fromNm) {
-      fromNm = p.wavelengthNm;
-    }
+    if (p.blazeEfficiency === null) continue;
+    firstNm = Math.min(firstNm, p.wavelengthNm);
+    if (p.wavelengthNm / d > SCALAR_LIMIT_LAMBDA_OVER_D) fromNm = Math.min(fromNm, p.wavelengthNm);
   }
   if (fromNm === Infinity) return null;
+  // λ/d grows with λ, so every longer wavelength is past the limit too.
+  const where = fromNm === firstNm ? 'across the whole plot' : `from ${formatNumber(fromNm)} nm on`;
   return {
     fromNm,
     text:
-      `Caution: from ${formatNumber(fromNm)} nm on, λ/d exceeds ${SCALAR_LIMIT_LAMBDA_OVER_D}, where real efficiency ` +
-      'depends on polarisation and groove profile and can differ from this curve by tens of per cent.',
+      `Caution: ${where} λ/d exceeds ${SCALAR_LIMIT_LAMBDA_OVER_D}: real efficiency depends on polarisation ` +
+      'and groove profile and can differ from this curve by tens of per cent.',
   };
 }

@@ -57,10 +57,10 @@ export type LinePlotProps = {
    * title, or `axis: 'shared'`), else against a right-hand axis of its own.
    */
   secondSeries?: PlotSeries;
-  /** A line of small print under the plot: what the figure assumes, or where it stops holding. */
+  /** Small print under the plot: what the figure assumes. */
   caption?: string;
-  /** Shown as a caution (warning colour) rather than muted small print. */
-  captionIsCaution?: boolean;
+  /** Where the figure stops holding, shown above the caption in the warning colour. */
+  caution?: string | null;
   shaded?: readonly Interval[];
   /** What the shading means, shown under the title when anything is shaded. */
   shadedLabel?: string;
@@ -275,16 +275,15 @@ export function LinePlot(props: LinePlotProps) {
           onPointerLeave={leave}
           onPointerCancel={leave}
           testID={`${testID}-hit-area`}
-          aria-label={`${title}: tap or drag to choose a wavelength`}
         />
       </View>
+      {props.caution ? (
+        <Text variant="caption" tone="warning" weight="semibold" style={styles.caption} testID={`${testID}-caution`}>
+          {props.caution}
+        </Text>
+      ) : null}
       {props.caption ? (
-        <Text
-          variant="caption"
-          tone={props.captionIsCaution ? 'warning' : 'muted'}
-          style={styles.caption}
-          testID={`${testID}-caption`}
-        >
+        <Text variant="caption" tone="muted" style={styles.caption} testID={`${testID}-caption`}>
           {props.caption}
         </Text>
       ) : null}

@@ -41,11 +41,11 @@ type Ready = Omit<PlotProps, 'evaluation'> & { data: PerformanceSeries };
 
 /** What the delivered resolving power assumes, under its plot (and in the CLI help). */
 export const RESOLVING_POWER_CAPTION =
-  'R = λ / √(bandpass² + (λ/|m|N)²): the slit bandpass and the diffraction limit added in quadrature, as for near-Gaussian line shapes (common practice).';
+  'R = λ / √(bandpass² + (λ/|m|N)²): slit bandpass and diffraction limit added in quadrature, as for near-Gaussian lines (common practice).';
 
 /** The efficiency model by name, under its plot. */
 export const EFFICIENCY_MODEL_CAPTION =
-  'Scalar estimate: the scalar (Kirchhoff) blaze function sinc²(π(|m| − λ_B cos K/λ)), the small-angle form of the groove-facet model (Schroeder & Hilliard 1980). It holds for small blaze angles and λ/d below about 0.2 (Palmer & Loewen, Diffraction Grating Handbook, ch. 9) and ignores polarisation.';
+  'Scalar blaze function sinc²(π(|m| − λ_B cos K/λ)), the small-angle form of the groove-facet model (Schroeder & Hilliard 1980): an estimate for small blaze angles and λ/d below about 0.2 (Palmer & Loewen, Diffraction Grating Handbook, ch. 9).';
 
 const Dispersion = memo(function Dispersion({ data, ...rest }: Ready) {
   const series: PlotSeries = useMemo(
@@ -134,8 +134,8 @@ const Efficiency = memo(function Efficiency({
       shaded={data.overlapIntervals}
       shadedLabel="Other orders land here too (overlapping orders)"
       emptyMessage="Give a blaze wavelength to see the efficiency"
-      caption={caution ? `${caution.text} ${EFFICIENCY_MODEL_CAPTION}` : EFFICIENCY_MODEL_CAPTION}
-      captionIsCaution={caution !== null}
+      caution={caution?.text ?? null}
+      caption={EFFICIENCY_MODEL_CAPTION}
     />
   );
 });

@@ -81,7 +81,9 @@ describe('efficiency caption', () => {
     // 300 g/mm: d = 3333 nm, λ/d = 0.2 at 666.7 nm; 11 points over 400–900 nm.
     const caution = scalarBlazeCaution(evaluateDesign(design({ grooveDensityPerMm: 300 }, { startNm: 400, endNm: 900 }), { points: 11 }));
     expect(caution?.fromNm).toBe(700);
-    expect(caution?.text).toMatch(/^Caution: from 700 nm on, λ\/d exceeds 0\.2/);
+    expect(caution?.text).toMatch(/^Caution: from 700 nm on λ\/d exceeds 0\.2:/);
+    // 1200 g/mm over 300–900 nm: λ/d ≥ 0.36 everywhere.
+    expect(scalarBlazeCaution(evaluateDesign(design({}), { points: 11 }))?.text).toMatch(/^Caution: across the whole plot λ\/d exceeds 0\.2:/);
   });
 
   it('says nothing extra inside the scalar region or without a blaze wavelength', () => {
