@@ -72,7 +72,7 @@ describe('order overlap', () => {
   });
 });
 
-describe('a long list of overlapping orders', () => {
+describe('a long list of overlapping orders', { timeout: 30_000 }, () => {
   it('is cut to the 20 orders nearest the working order, in increasing |n|, with the full count', () => {
     // Order 1000 at 1 nm with a source from 2^-5 to 2^13 nm (exact in binary, so the ends are
     // exact): n runs from ceil(1000/8192) = 1 to 1000 × 32 = 32000, less the working order.
