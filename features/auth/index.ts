@@ -7,6 +7,7 @@ export { SignUpScreen } from './components/sign-up-screen';
 export { VerifyEmailScreen } from './components/verify-email-screen';
 export { AuthCard, FormError } from './components/auth-card';
 export { FormField } from './components/form-field';
+export { ResendConfirmation } from './components/resend-confirmation';
 export { TextLink } from './components/text-link';
 export { useApiForm } from './hooks/use-api-form';
 export { safeNextPath } from './next-path';

@@ -93,8 +93,15 @@ export function useRevokeInvitationMutation(teamId: string) {
 
 export function useAcceptInvitationMutation(token: string) {
   const queryClient = useQueryClient();
+  const preview = routeKey(routes.previewInvitation);
   return useMutation({
     mutationFn: () => call(routes.acceptInvitation, { params: { token } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: groupKey('teams') }),
+    // Accepting uses the invitation up: asking for it again would only earn a 404 (and a console
+    // error). The rest of the teams group changed, the invitation's preview is simply over.
+    onSuccess: () =>
+      queryClient.invalidateQueries({
+        queryKey: groupKey('teams'),
+        predicate: (query) => !preview.every((part, index) => query.queryKey[index] === part),
+      }),
   });
 }

@@ -1,6 +1,6 @@
 import { usePathname, useRouter, type Href } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { colors, fonts, minTouch, radius, space, type, useLayout } from '@/features/ui';
+import { colors, fonts, minTouch, printHidden, radius, space, type, useLayout } from '@/features/ui';
 import { useCurrentPath } from '../hooks/use-current-path';
 import { useSessionQuery } from '../queries';
 
@@ -18,7 +18,7 @@ export function AccountMenu() {
   const label = user ? (layout === 'phone' ? user.displayName.split(' ')[0] ?? 'Teams' : `${user.displayName} · Teams`) : 'Sign in';
   const href = (user ? '/teams' : `/sign-in?next=${encodeURIComponent(here)}`) as Href;
   return (
-    <View style={styles.wrap}>
+    <View style={styles.wrap} {...printHidden}>
       <Pressable
         role="link"
         accessibilityLabel={user ? `Signed in as ${user.displayName}. Your teams` : 'Sign in'}

@@ -1,6 +1,6 @@
-import type { Href } from 'expo-router';
+import { useLocalSearchParams, type Href } from 'expo-router';
 import { passwordResetRequestSchema } from '@/shared/auth';
-import { Button, Text } from '@/features/ui';
+import { Button, Text, useDocumentTitle } from '@/features/ui';
 import { useApiForm } from '../hooks/use-api-form';
 import { useRequestResetMutation } from '../queries';
 import { AuthCard, FormError } from './auth-card';
@@ -8,8 +8,11 @@ import { FormField } from './form-field';
 import { TextLink } from './text-link';
 
 export function ForgotPasswordScreen() {
+  // Sign-in passes on the address typed there.
+  const { email = '' } = useLocalSearchParams<{ email?: string }>();
   const request = useRequestResetMutation();
-  const { form, formError, setFormError, showServerError } = useApiForm(passwordResetRequestSchema, { email: '' });
+  const { form, formError, setFormError, showServerError } = useApiForm(passwordResetRequestSchema, { email });
+  useDocumentTitle('Reset your password');
 
   const submit = form.handleSubmit(async (values) => {
     setFormError(null);

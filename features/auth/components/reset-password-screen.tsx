@@ -1,7 +1,7 @@
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { z } from 'zod';
 import { minPasswordLength, passwordSchema } from '@/shared/auth';
-import { Button, Text } from '@/features/ui';
+import { Button, Text, useDocumentTitle } from '@/features/ui';
 import { useApiForm } from '../hooks/use-api-form';
 import { useResetPasswordMutation } from '../queries';
 import { AuthCard, FormError } from './auth-card';
@@ -14,6 +14,7 @@ export function ResetPasswordScreen() {
   const { token } = useLocalSearchParams<{ token?: string }>();
   const router = useRouter();
   const reset = useResetPasswordMutation();
+  useDocumentTitle('Choose a new password');
   const { form, formError, setFormError, showServerError } = useApiForm(formSchema, { password: '' });
 
   const submit = form.handleSubmit(async ({ password }) => {

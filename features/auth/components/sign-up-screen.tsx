@@ -1,7 +1,7 @@
 import { Redirect, useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { View } from 'react-native';
 import { minPasswordLength, signUpRequestSchema } from '@/shared/auth';
-import { Button, Text, space } from '@/features/ui';
+import { Button, Text, space, useDocumentTitle } from '@/features/ui';
 import { useApiForm } from '../hooks/use-api-form';
 import { safeNextPath } from '../next-path';
 import { useSessionQuery, useSignUpMutation } from '../queries';
@@ -15,6 +15,7 @@ export function SignUpScreen() {
   const next = safeNextPath(params.next);
   const session = useSessionQuery();
   const signUp = useSignUpMutation();
+  useDocumentTitle('Create your account');
   const { form, formError, setFormError, showServerError } = useApiForm(signUpRequestSchema, {
     email: params.email ?? '',
     displayName: '',

@@ -1,14 +1,38 @@
-import { useLocalSearchParams, type Href } from 'expo-router';
+import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { useEffect, useRef } from 'react';
-import { Text } from '@/features/ui';
-import { useVerifyEmailMutation } from '../queries';
+import { View } from 'react-native';
+import { Button, Text, space, useDocumentTitle } from '@/features/ui';
+import { useSessionQuery, useVerifyEmailMutation } from '../queries';
 import { AuthCard } from './auth-card';
+import { ResendConfirmation } from './resend-confirmation';
 import { TextLink } from './text-link';
+
+/** What a link that did not work can lead to: a new one for whoever is (or will be) signed in. */
+function AskForANewLink() {
+  const router = useRouter();
+  const session = useSessionQuery();
+  const user = session.data?.user;
+  if (session.isPending) return null;
+  if (user?.emailVerified) {
+    return <Text testID="verify-already">{user.email} is confirmed already: there is nothing more to do.</Text>;
+  }
+  if (user) return <ResendConfirmation email={user.email} kind="primary" />;
+  // A new link goes to the signed-in account; sign-in offers it to an unconfirmed address.
+  return (
+    <View style={{ gap: space.sm }}>
+      <Text tone="muted">Sign in first: we send the new link to your account’s address.</Text>
+      <View style={{ flexDirection: 'row' }}>
+        <Button label="Send a new confirmation e-mail" onPress={() => router.push('/sign-in' as Href)} testID="send-confirmation" />
+      </View>
+    </View>
+  );
+}
 
 export function VerifyEmailScreen() {
   const { token } = useLocalSearchParams<{ token?: string }>();
   const verify = useVerifyEmailMutation();
   const sent = useRef(false);
+  useDocumentTitle('Confirm your e-mail');
   useEffect(() => {
     // Once: the token is single use, and a second call would report it as spent.
     if (token && !sent.current) {
@@ -29,6 +53,7 @@ export function VerifyEmailScreen() {
       <Text tone={verify.isError ? 'danger' : 'default'} testID="verify-result">
         {message}
       </Text>
+      {!token || verify.isError ? <AskForANewLink /> : null}
     </AuthCard>
   );
 }

@@ -1,6 +1,7 @@
 import { useRouter, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
-import { Button, Card, Heading, Screen, Text, colors, space, useLayout } from '@/features/ui';
+import { Button, Card, Heading, Screen, Text, colors, space, useDocumentTitle, useLayout } from '@/features/ui';
+import { TextLink, useSessionQuery } from '@/features/auth';
 import { useHealthQuery } from '@/features/health';
 
 const steps = [
@@ -45,6 +46,8 @@ function ServerStatus() {
 export function LandingScreen() {
   const layout = useLayout();
   const router = useRouter();
+  const session = useSessionQuery();
+  useDocumentTitle('Grating instrument design');
   return (
     <Screen>
       <View style={styles.hero}>
@@ -64,6 +67,12 @@ export function LandingScreen() {
           <Button label="Open the workbench" onPress={() => router.push('/workbench')} testID="open-workbench" />
           <Button kind="secondary" label="Team notebooks" onPress={() => router.push('/notebooks' as Href)} testID="open-notebooks" />
         </View>
+        {session.data?.user ? null : (
+          <View style={styles.signUp}>
+            <Text tone="muted">New here? The workbench needs no account; notebooks do.</Text>
+            <TextLink href={'/sign-up' as Href} label="Create an account" testID="landing-sign-up" />
+          </View>
+        )}
       </View>
       <View style={[styles.grid, layout !== 'phone' && styles.gridWide]}>
         {steps.map((step, index) => (
@@ -91,6 +100,7 @@ const styles = StyleSheet.create({
   hero: { gap: space.md, paddingVertical: space.xl },
   kicker: { letterSpacing: 1.5 },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, paddingTop: space.sm },
+  signUp: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'baseline', gap: space.xs },
   status: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   dot: { width: 10, height: 10, borderRadius: 5 },
   grid: { gap: space.lg },

@@ -1,8 +1,9 @@
 import { Link } from 'expo-router';
-import { Heading, Screen, Text, colors } from '@/features/ui';
+import { Heading, Screen, Text, colors, useDocumentTitle } from '@/features/ui';
 
 /** Shown for any address the app has no screen for (a mistyped or outdated link). */
 export function NotFoundScreen() {
+  useDocumentTitle('Page not found');
   return (
     <Screen>
       <Heading level={1}>No page at this address</Heading>

@@ -2,13 +2,14 @@ import { useRouter, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { formatWhen } from '@/shared/format';
 import { ApiError } from '@/features/api';
-import { Button, Card, Heading, Screen, Text, colors, fonts, radius, space, type } from '@/features/ui';
+import { Button, Card, Heading, Screen, Text, colors, fonts, radius, space, type, useDocumentTitle } from '@/features/ui';
 import { appLinks } from '../links';
 import { useOutboxQuery } from '../queries';
 
 /** Development only: the e-mails Blazebook would have sent, so their links can be followed. */
 export function OutboxScreen() {
   const outbox = useOutboxQuery();
+  useDocumentTitle('Outbox');
   const router = useRouter();
   const off = outbox.error instanceof ApiError && outbox.error.status === 404;
   return (

@@ -3,8 +3,8 @@ import { StyleSheet, View } from 'react-native';
 import { confirmEmailFirstMessage } from '@/shared/auth';
 import { roleLabels } from '@/shared/teams';
 import { ApiError } from '@/features/api';
-import { AuthCard, FormError, TextLink, useResendVerificationMutation, useSessionQuery, useSignOutMutation } from '@/features/auth';
-import { Button, Text, space } from '@/features/ui';
+import { AuthCard, FormError, ResendConfirmation, TextLink, useSessionQuery, useSignOutMutation } from '@/features/auth';
+import { Button, Text, space, useDocumentTitle } from '@/features/ui';
 import { useAcceptInvitationMutation, useInvitationPreviewQuery } from '../queries';
 
 /** The page an invitation e-mail links to: accept it signed in, or sign in / sign up first. */
@@ -19,9 +19,9 @@ export function InvitationScreen() {
     refetchOnWindowFocus: (query) => query.state.data?.user?.emailVerified === false,
   });
   const accept = useAcceptInvitationMutation(token);
-  const resend = useResendVerificationMutation();
   const signOut = useSignOutMutation();
   const here = `/invitations/${token}`;
+  useDocumentTitle(preview.data ? `Join ${preview.data.teamName}` : 'Invitation');
 
   if (preview.isPending || session.isPending) {
     return (
@@ -46,7 +46,8 @@ export function InvitationScreen() {
   const onAccept = async () => {
     try {
       const { team } = await accept.mutateAsync();
-      router.replace(`/teams/${team.id}/members` as Href);
+      // A new member came for the team's designs: land on them (members are one tab away).
+      router.replace(`/teams/${team.id}/notebooks` as Href);
     } catch (error) {
       // The address lost its confirmation elsewhere, or this page's session is old: show why.
       if (error instanceof ApiError && error.code === 'email_unverified') void session.refetch();
@@ -61,21 +62,7 @@ export function InvitationScreen() {
       {user && forYou && !user.emailVerified ? (
         <>
           <Text testID="invitation-confirm-first">{confirmEmailFirstMessage(user.email)}</Text>
-          {resend.isSuccess ? (
-            <Text tone="ok" testID="confirmation-resent">
-              A new link is on its way; the one sent before no longer works.
-            </Text>
-          ) : null}
-          <FormError message={resend.isError ? resend.error.message : null} />
-          <View style={styles.row}>
-            <Button
-              kind="secondary"
-              label={resend.isPending ? 'Sending…' : 'Send the link again'}
-              onPress={() => resend.mutate()}
-              disabled={resend.isPending}
-              testID="resend-confirmation"
-            />
-          </View>
+          <ResendConfirmation email={user.email} />
         </>
       ) : user && forYou ? (
         <>

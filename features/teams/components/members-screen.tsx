@@ -5,7 +5,7 @@ import { formatDay } from '@/shared/format';
 import { can, roleLabels, type Member, type Role } from '@/shared/teams';
 import { ApiError } from '@/features/api';
 import { useSessionQuery } from '@/features/auth';
-import { Button, Card, Heading, Screen, Text, space } from '@/features/ui';
+import { Button, Card, Heading, Screen, Text, space, useDocumentTitle } from '@/features/ui';
 import {
   useChangeRoleMutation,
   useInvitationsQuery,
@@ -16,6 +16,7 @@ import {
 } from '../queries';
 import { InviteForm } from './invite-form';
 import { MembersTable } from './members-table';
+import { TeamLink } from './team-link';
 import { TeamSwitcher } from './team-switcher';
 
 export function MembersScreen() {
@@ -32,6 +33,8 @@ export function MembersScreen() {
   const revoke = useRevokeInvitationMutation(teamId);
   const [actionError, setActionError] = useState<string | null>(null);
   const userId = session.data?.user?.id ?? '';
+  const teamName = team.data ? (team.data.personal ? 'Personal workspace' : team.data.name) : null;
+  useDocumentTitle(team.isError ? 'No such team' : teamName ? `Members of ${teamName}` : 'Team members');
 
   if (team.isError) {
     const gone = team.error instanceof ApiError && team.error.status === 404;
@@ -62,12 +65,17 @@ export function MembersScreen() {
       <TeamSwitcher currentTeamId={teamId} />
       <View style={styles.title}>
         <Heading level={1} testID="team-name">
-          {team.data ? (team.data.personal ? 'Personal workspace' : team.data.name) : 'Loading…'}
+          {teamName ?? 'Loading…'}
         </Heading>
         {role ? (
           <Text tone="muted" testID="my-role">
             You are {/^[aeiou]/i.test(roleLabels[role]) ? 'an' : 'a'} {roleLabels[role].toLowerCase()} of this {team.data?.personal ? 'workspace' : 'team'}.
           </Text>
+        ) : null}
+        {teamName ? (
+          <View style={styles.links}>
+            <TeamLink href={`/teams/${teamId}/notebooks`} label="Designs" accessibilityLabel={`Designs of ${teamName}`} primary testID="members-to-designs" />
+          </View>
         ) : null}
       </View>
 
@@ -130,6 +138,7 @@ const styles = StyleSheet.create({
   // Wider than a text page: the members table needs room for four columns.
   page: { maxWidth: 1040 },
   title: { gap: space.xs },
+  links: { flexDirection: 'row', paddingTop: space.xs },
   leave: { flexDirection: 'row', paddingTop: space.sm },
   invitation: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, flexWrap: 'wrap' },
   invitationText: { flexShrink: 1, minWidth: 0, gap: space.xxs },

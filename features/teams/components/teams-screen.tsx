@@ -1,9 +1,10 @@
 import { useRouter, type Href } from 'expo-router';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { createTeamRequestSchema, roleLabels } from '@/shared/teams';
 import { FormError, FormField, useApiForm, useSessionQuery, useSignOutMutation } from '@/features/auth';
-import { Button, Card, Heading, Screen, Text, colors, radius, space } from '@/features/ui';
+import { Button, Card, Heading, Screen, Text, colors, radius, space, useDocumentTitle } from '@/features/ui';
 import { useCreateTeamMutation, useTeamsQuery } from '../queries';
+import { TeamLink } from './team-link';
 
 function CreateTeamForm() {
   const router = useRouter();
@@ -36,6 +37,7 @@ export function TeamsScreen() {
   const teams = useTeamsQuery();
   const signOut = useSignOutMutation();
   const user = session.data?.user;
+  useDocumentTitle('Your teams');
 
   const doSignOut = async (everywhere: boolean) => {
     await signOut.mutateAsync(everywhere);
@@ -46,24 +48,27 @@ export function TeamsScreen() {
     <Screen>
       <Heading level={1}>Your teams</Heading>
       <View style={styles.list} role="list">
-        {teams.data?.map((team) => (
-          <Pressable
-            key={team.id}
-            role="link"
-            accessibilityLabel={`${team.personal ? 'Personal workspace' : team.name}, ${roleLabels[team.role]}, ${team.memberCount} ${team.memberCount === 1 ? 'member' : 'members'}`}
-            onPress={() => router.push(`/teams/${team.id}/members` as Href)}
-            style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.team, hovered && styles.teamHovered]}
-            testID={`team-${team.name}`}
-          >
-            <Text weight="semibold">{team.personal ? 'Personal workspace' : team.name}</Text>
-            <Text variant="small" tone="muted">
-              {roleLabels[team.role]} · {team.memberCount} {team.memberCount === 1 ? 'member' : 'members'}
-            </Text>
-          </Pressable>
-        ))}
-        {teams.isPending ? <Text tone="muted">Loading your teams…</Text> : null}
-        {teams.isError ? <Text tone="danger">{teams.error.message}</Text> : null}
+        {teams.data?.map((team) => {
+          const name = team.personal ? 'Personal workspace' : team.name;
+          const members = `${team.memberCount} ${team.memberCount === 1 ? 'member' : 'members'}`;
+          return (
+            <View key={team.id} role="listitem" style={styles.team} testID={`team-row-${team.name}`}>
+              <View style={styles.teamText}>
+                <Text weight="semibold">{name}</Text>
+                <Text variant="small" tone="muted">
+                  {roleLabels[team.role]} · {members}
+                </Text>
+              </View>
+              <View style={[styles.row, styles.wrap]}>
+                <TeamLink href={`/teams/${team.id}/notebooks`} label="Designs" accessibilityLabel={`Designs of ${name}`} primary testID={`team-designs-${team.name}`} />
+                <TeamLink href={`/teams/${team.id}/members`} label="Members" accessibilityLabel={`Members of ${name}, ${members}`} testID={`team-${team.name}`} />
+              </View>
+            </View>
+          );
+        })}
       </View>
+      {teams.isPending ? <Text tone="muted">Loading your teams…</Text> : null}
+      {teams.isError ? <Text tone="danger">{teams.error.message}</Text> : null}
 
       <CreateTeamForm />
 
@@ -95,9 +100,13 @@ const styles = StyleSheet.create({
     borderColor: colors.line,
     borderRadius: radius.lg,
     padding: space.lg,
-    gap: space.xxs,
+    gap: space.md,
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
   },
-  teamHovered: { borderColor: colors.primary },
+  teamText: { gap: space.xxs, flexShrink: 1, minWidth: 160 },
   row: { flexDirection: 'row', gap: space.sm },
   wrap: { flexWrap: 'wrap' },
 });
