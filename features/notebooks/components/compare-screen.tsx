@@ -5,7 +5,7 @@ import { flattenDesign } from '@/shared/design-diff';
 import type { CompareResponse, Version } from '@/shared/notebooks';
 import { LinePlot, type PlotSeries } from '@/features/plots';
 import { OverlaySketch } from '@/features/sketch';
-import { Card, Heading, Screen, Text, colors, fonts, space, useLayout } from '@/features/ui';
+import { Card, Heading, Screen, Text, colors, fonts, space, useDocumentTitle, useLayout } from '@/features/ui';
 import { compareSeries, type ComparedMetric } from '../compare-series';
 import {
   changeTone,
@@ -247,6 +247,7 @@ export function CompareScreen() {
     router.setParams({ a: String(next.a ?? a), b: String(next.b ?? b) });
   const data = compare.data;
   const sideBySide = layout !== 'phone';
+  useDocumentTitle(`${notebook.data?.design.title ?? 'Design'}: compare v${a} and v${b}`);
 
   return (
     <Screen wide style={styles.page}>

@@ -5,7 +5,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import type { Notebook, Version } from '@/shared/notebooks';
 import { ApiError } from '@/features/api';
 import { useSessionQuery } from '@/features/auth';
-import { Button, Heading, RadioGroup, Screen, Text, colors, space, useLayout } from '@/features/ui';
+import { Button, Heading, RadioGroup, Screen, Text, colors, space, useDocumentTitle, useLayout } from '@/features/ui';
 import { useCloneMutation, useNotebookQuery, useVersionQuery } from '../queries';
 import { DesignTab } from './design-tab';
 import { HistoryTab } from './history-tab';
@@ -66,6 +66,7 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
   const validRequest = Number.isInteger(requested) && requested >= 1 && requested <= latest.number;
   const older = useVersionQuery(design.id, validRequest && requested !== latest.number ? requested : null);
   const version = requested === latest.number ? latest : (older.data ?? null);
+  useDocumentTitle(`${design.title} v${validRequest ? requested : latest.number}`);
 
   const restart = (note?: string) => {
     setRebaseNote(note ?? null);

@@ -1,10 +1,11 @@
 import { Redirect, type Href } from 'expo-router';
 import { useTeamsQuery } from '@/features/teams';
-import { Screen, Text } from '@/features/ui';
+import { Screen, Text, useDocumentTitle } from '@/features/ui';
 
 /** `/notebooks`: the designs of the user's first shared team, else of their personal workspace. */
 export function NotebooksHomeScreen() {
   const teams = useTeamsQuery();
+  useDocumentTitle('Team notebooks');
   if (!teams.data) {
     return (
       <Screen>

@@ -2,7 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { useCallback } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/features/api';
-import { Card, Heading, Screen, Text, colors, space } from '@/features/ui';
+import { Card, Heading, Screen, Text, colors, space, useDocumentTitle } from '@/features/ui';
 import { draftFromDesign, Workbench } from '@/features/workbench';
 import { formatDay, formatWhen } from '../format';
 import { useSharedVersionQuery } from '../queries';
@@ -21,6 +21,7 @@ export function ShareScreen() {
   // The workbench mounts only once the version is here, and reads this once.
   const params = data?.version.params;
   const initial = useCallback(() => draftFromDesign(params as NonNullable<typeof params>), [params]);
+  useDocumentTitle(data ? `${data.title} v${data.version.number} (shared)` : shared.isError ? 'Shared design not found' : 'Shared design');
 
   if (shared.isError) {
     const gone = shared.error instanceof ApiError && (shared.error.status === 404 || shared.error.status === 400);

@@ -1,5 +1,5 @@
 import { StyleSheet, View } from 'react-native';
-import { Heading, Text, space } from '@/features/ui';
+import { Heading, Text, space, useDocumentTitle } from '@/features/ui';
 import { loadDraft, saveDraft } from '../draft';
 import { Workbench } from './workbench';
 
@@ -8,6 +8,7 @@ const saveScratch = (draft: Parameters<typeof saveDraft>[0]) => void saveDraft(d
 
 /** The scratch workbench: one design kept in this browser, no account needed. */
 export function WorkbenchScreen() {
+  useDocumentTitle('Workbench');
   return (
     <Workbench
       initial={loadScratch}

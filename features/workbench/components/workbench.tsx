@@ -9,6 +9,8 @@ import {
 } from 'react';
 import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
+// The file, not the notebooks index: that index reaches back into this feature.
+import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
 import { PerformancePlots } from '@/features/plots';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
 import { Card, colors, space, useLayout } from '@/features/ui';
@@ -114,6 +116,7 @@ export function Workbench({
 
   const editor = (
     <>
+      {showPresets && !readOnly ? <SaveToNotebook result={bench.result} /> : null}
       {showPresets && !readOnly ? (
         <PresetPicker
           presetId={bench.presetId}
