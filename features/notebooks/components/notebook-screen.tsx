@@ -9,6 +9,7 @@ import { Button, Heading, RadioGroup, Screen, Text, colors, space, useDocumentTi
 import { useCloneMutation, useNotebookQuery, useVersionQuery } from '../queries';
 import { DesignTab } from './design-tab';
 import { HistoryTab } from './history-tab';
+import { OriginNote } from './origin-note';
 import { SharingTab } from './sharing-tab';
 
 type Tab = 'design' | 'history' | 'sharing';
@@ -144,6 +145,7 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
           )}
         </Text>
       ) : null}
+      <OriginNote design={design} />
       {layout === 'wide' ? null : sections}
     </View>
   );
