@@ -17,7 +17,7 @@ describe('the deviation angle when the mount changes', () => {
 
   it('uses a default inside the span of our own two-mirror demo designs (common practice: 20–30°)', () => {
     const deviations = Object.values(demoDesigns)
-      .filter((d) => d.layout.kind !== 'littrow')
+      .filter((d) => (d.layout.kind as string) !== 'littrow')
       .map((d) => d.layout.deviationAngleDeg);
     for (const kind of ['czerny-turner', 'ebert-fastie'] as const) {
       expect(DEFAULT_DEVIATION_DEG[kind]).toBeGreaterThanOrEqual(Math.min(20, ...deviations));
