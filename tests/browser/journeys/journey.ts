@@ -57,7 +57,9 @@ export async function person(
     try {
       await expectAccessible(page, `${name}: ${step}`);
     } catch (error) {
-      axeFindings.push(error instanceof Error ? error.message : String(error));
+      // The assertion's actual value lists each violation (rule, impact, targets, help).
+      const actual = (error as { actual?: unknown }).actual;
+      axeFindings.push(`${step}: ${Array.isArray(actual) ? actual.join('\n  ') : String(error)}`);
     }
   };
   return {
