@@ -119,8 +119,8 @@ function designFigures(evaluation: Evaluation): Figure[] {
       },
       { label: 'Per pixel at centre', value: formatNumber(det.nmPerPixel), unit: 'nm' },
       {
-        label: 'Pixels per bandpass',
-        value: formatNumber(det.pixelsPerBandpass, 3),
+        label: 'Pixels per resolution element (fewest over the range)',
+        value: formatNumber(det.pixelsPerResolutionElement, 3),
         testID: 'readout-pixels-per-bandpass',
       },
     );
