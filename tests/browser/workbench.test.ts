@@ -244,10 +244,11 @@ describe('design workbench in Chromium', () => {
       expect(await page.getByTestId('readout-moved').textContent()).toMatch(new RegExp(`moved from ${wanted}\\snm to 600\\snm`));
       await expect.poll(() => marker.getAttribute('data-nm')).toBe('600');
       expect(leadingNumber((await header.textContent()) ?? '')).toBe(600);
+      await page.getByTestId('readout-card').screenshot({ path: 'tests/artifacts/workbench-readout-moved-phone.png' });
       // Typed outside the range, the wavelength is refused with the range named.
       await field(page, 'readout-wavelength').fill('900');
       await page.getByText(/must be within the wavelength range, 600–800\snm/).waitFor();
-      await page.getByTestId('readout-card').screenshot({ path: 'tests/artifacts/workbench-readout-moved-phone.png' });
+      await page.getByTestId('readout-card').screenshot({ path: 'tests/artifacts/workbench-readout-refused-phone.png' });
       await context.close();
     });
 
