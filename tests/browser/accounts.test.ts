@@ -145,6 +145,8 @@ describe('accounts and teams in Chromium', () => {
   it('gives every team on the teams page a way to its designs, and the wordmark goes home', async () => {
     await page.goto(`${server.url}/teams`);
     const designs = page.getByRole('link', { name: 'Designs of Personal workspace' });
+    await designs.waitFor();
+    await shoot(page, 'accounts-teams');
     await designs.click();
     await page.waitForURL(/\/teams\/[^/]+\/notebooks/);
     await page.getByRole('heading', { name: 'Designs of your personal workspace', level: 1 }).waitFor();
