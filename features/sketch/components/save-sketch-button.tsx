@@ -24,7 +24,8 @@ export function SaveSketchButton({ design, settingNm, testID = 'save-sketch' }: 
       kind="secondary"
       onPress={save}
       disabled={busy}
-      accessibilityLabel={`Save the ray sketch as the file ${SKETCH_FILE_NAME}`}
+      // The visible words start the name (WCAG 2.2 SC 2.5.3, label in name); the file name follows.
+      accessibilityLabel={`Save sketch as SVG: ${SKETCH_FILE_NAME}`}
       testID={testID}
     />
   );
