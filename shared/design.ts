@@ -80,33 +80,6 @@ export const gratingSchema = section({
   blazeWavelengthNm: wavelengthNm().optional(),
   ruledWidthMm: positive(0.001, 100_000, 'mm'),
   ruledHeightMm: positive(0.001, 100_000, 'mm'),
-}).superRefine((grating, ctx) => {
-  // Only between fields that passed their own checks: one wrong number gets one message.
-  if (!isPositive(grating.grooveDensityPerMm) || !isPositive(grating.ruledWidthMm)) return;
-  const spacingNm = 1e6 / grating.grooveDensityPerMm;
-  // First-order Littrow blaze λ_B = 2d sin θ_B, θ_B < 90°: no facet angle blazes at 2d or beyond
-  // (Palmer & Loewen, Diffraction Grating Handbook, ch. 9).
-  if (isPositive(grating.blazeWavelengthNm) && grating.blazeWavelengthNm >= 2 * spacingNm) {
-    ctx.addIssue({
-      code: 'custom',
-      path: ['blazeWavelengthNm'],
-      message:
-        `must be less than twice the groove spacing (${formatNumber(2 * spacingNm)} nm at ` +
-        `${formatNumber(grating.grooveDensityPerMm)} grooves/mm): a first-order Littrow blaze is 2d·sin θ_B, ` +
-        'and no facet angle reaches 2d',
-    });
-  }
-  const grooves = grating.grooveDensityPerMm * grating.ruledWidthMm;
-  if (grooves < PHYSICAL_LIMITS.minGrooves) {
-    ctx.addIssue({
-      code: 'custom',
-      path: ['grooveDensityPerMm'],
-      message:
-        `puts only ${formatNumber(grooves, 3)} grooves across the ${formatNumber(grating.ruledWidthMm)} mm ` +
-        `ruled width: a grating needs at least ${PHYSICAL_LIMITS.minGrooves} to diffract (raise the groove ` +
-        'density or the ruled width)',
-    });
-  }
 });
 
 export const layoutSchema = section({
@@ -170,8 +143,12 @@ export const detectorSchema = section({
     .max(10_000_000, { error: 'must be at most 10000000' }),
 });
 
-/** A grating monochromator or spectrograph design, exactly as stored and scripted. */
-export const designSchema = section({
+/**
+ * A grating monochromator or spectrograph design as stored: each field in its bounds. Answers that
+ * read saved versions back use it, so a version saved before a physical limit was added still
+ * opens (the workbench and the solver's warnings then say what is wrong with it).
+ */
+export const storedDesignSchema = section({
   grating: gratingSchema,
   layout: layoutSchema,
   slits: slitsSchema,
@@ -179,10 +156,43 @@ export const designSchema = section({
   /** What the light source emits; used to find other orders landing on the same angle. */
   source: sourceSchema.optional(),
   detector: detectorSchema.optional(),
-}).superRefine((design, ctx) => {
+});
+
+/**
+ * Refuses designs no grating can be. Kept apart from the fields' own checks so that what was saved
+ * before a limit existed still reads back (`storedDesignSchema`) while nothing new crosses it.
+ * Checks between fields run only once each field passed its own check: one wrong number, one message.
+ */
+function refusePhysicallyImpossible(design: z.infer<typeof storedDesignSchema>, ctx: z.RefinementCtx): void {
+  const { grating, layout } = design;
+  if (isPositive(grating.grooveDensityPerMm) && isPositive(grating.ruledWidthMm)) {
+    const spacingNm = 1e6 / grating.grooveDensityPerMm;
+    // First-order Littrow blaze λ_B = 2d sin θ_B, θ_B < 90°: no facet angle blazes at 2d or beyond
+    // (Palmer & Loewen, Diffraction Grating Handbook, ch. 9).
+    if (isPositive(grating.blazeWavelengthNm) && grating.blazeWavelengthNm >= 2 * spacingNm) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['grating', 'blazeWavelengthNm'],
+        message:
+          `must be less than twice the groove spacing (${formatNumber(2 * spacingNm)} nm at ` +
+          `${formatNumber(grating.grooveDensityPerMm)} grooves/mm): a first-order Littrow blaze is 2d·sin θ_B, ` +
+          'and no facet angle reaches 2d',
+      });
+    }
+    const grooves = grating.grooveDensityPerMm * grating.ruledWidthMm;
+    if (grooves < PHYSICAL_LIMITS.minGrooves) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['grating', 'grooveDensityPerMm'],
+        message:
+          `puts only ${formatNumber(grooves, 3)} grooves across the ${formatNumber(grating.ruledWidthMm)} mm ` +
+          `ruled width: a grating needs at least ${PHYSICAL_LIMITS.minGrooves} to diffract (raise the groove ` +
+          'density or the ruled width)',
+      });
+    }
+  }
   // Along the slit the beam is as tall as the ruled height whatever the grating angle, so
   // focal length / ruled height is an f-number no mirror or lens can go below.
-  const { grating, layout } = design;
   if (!isPositive(grating.ruledHeightMm)) return;
   for (const [field, focalMm] of [
     ['collimatorFocalMm', layout.collimatorFocalMm],
@@ -200,7 +210,13 @@ export const designSchema = section({
       });
     }
   }
-});
+}
+
+/**
+ * A design as it comes in (solve calls, saves, new notebooks, the workbench): every field in its
+ * bounds and nothing physically impossible (`PHYSICAL_LIMITS`).
+ */
+export const designSchema = storedDesignSchema.superRefine(refusePhysicallyImpossible);
 
 export type Design = z.infer<typeof designSchema>;
 

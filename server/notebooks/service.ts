@@ -1,5 +1,5 @@
 import type { User } from '../../shared/auth';
-import { designSchema } from '../../shared/design';
+import { storedDesignSchema } from '../../shared/design';
 import {
   notebookFileKind,
   notebookFormatVersion,
@@ -195,7 +195,7 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
         a: before,
         b: after,
         // jsonb keeps keys in its own order; re-parsing puts them back in the schema's order.
-        changes: changedParameters(designSchema.parse(before.params), designSchema.parse(after.params)),
+        changes: changedParameters(storedDesignSchema.parse(before.params), storedDesignSchema.parse(after.params)),
         figures: figureChanges(before.summary, after.summary),
       };
     },
@@ -310,7 +310,7 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
         },
         file.versions.map((v) => ({
           ...v,
-          params: designSchema.parse(v.params),
+          params: storedDesignSchema.parse(v.params),
           createdAt: new Date(v.createdAt),
         })),
       );

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { designSchema } from '../design';
+import { storedDesignSchema } from '../design';
 import { notebookWithVersionResponseSchema } from './designs';
 import { designTitleSchema, notesSchema, tagsSchema, versionMessageSchema } from './fields';
 import { versionNumberSchema } from './version-number';
@@ -23,7 +23,7 @@ export const notebookFileVersionSchema = z.strictObject(
     number: versionNumberSchema,
     message: versionMessageSchema,
     notes: notesSchema.default(''),
-    params: designSchema,
+    params: storedDesignSchema,
     /** Null for version 1; otherwise an earlier version of this file. */
     parentNumber: versionNumberSchema.nullable().default(null),
     createdAt: z.iso.datetime({ error: 'must be a date and time such as 2026-03-14T09:00:00Z' }),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { designSchema } from '../design';
+import { storedDesignSchema } from '../design';
 import { personSchema } from './fields';
 import { versionNumberSchema } from './version-number';
 import { versionSummarySchema } from './versions';
@@ -46,7 +46,7 @@ export const sharedVersionResponseSchema = z.object({
     number: z.number().int().positive(),
     message: z.string(),
     createdAt: z.iso.datetime(),
-    params: designSchema,
+    params: storedDesignSchema,
     notes: z.string(),
     summary: versionSummarySchema,
   }),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { designSchema } from '../design';
+import { storedDesignSchema } from '../design';
 import { personSchema } from './fields';
 
 /**
@@ -35,7 +35,7 @@ export const versionHeaderSchema = z.object({
 export type VersionHeader = z.infer<typeof versionHeaderSchema>;
 
 export const versionSchema = versionHeaderSchema.extend({
-  params: designSchema,
+  params: storedDesignSchema,
   notes: z.string(),
 });
 export type Version = z.infer<typeof versionSchema>;
