@@ -5,10 +5,11 @@ import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { createQueryClient } from '@/features/api';
 import { AccountMenu } from '@/features/auth';
-import { Wordmark, colors, fontAssets, fonts, installPrintStyles } from '@/features/ui';
+import { Wordmark, colors, fontAssets, fonts, installFocusRing, installPrintStyles } from '@/features/ui';
 
 // Printed screens show their content without the controls (web only).
 installPrintStyles();
+installFocusRing();
 
 export default function RootLayout() {
   const [fontsLoaded, fontError] = useFonts(fontAssets);

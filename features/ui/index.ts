@@ -11,6 +11,7 @@ export { copyText } from './clipboard';
 export { documentTitle } from './document-title-text';
 export { useDocumentTitle } from './document-title';
 export { fontAssets } from './fonts';
+export { installFocusRing } from './focus-ring';
 export { printHidden } from './print';
 export { installPrintStyles } from './print-styles';
 export { saveTextFile } from './save-text-file';

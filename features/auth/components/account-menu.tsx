@@ -21,7 +21,7 @@ export function AccountMenu() {
     <View style={styles.wrap} {...printHidden}>
       <Pressable
         role="link"
-        accessibilityLabel={user ? `Signed in as ${user.displayName}. Your teams` : 'Sign in'}
+        accessibilityLabel={user ? `${label}: your teams, signed in as ${user.displayName}` : 'Sign in'}
         onPress={() => router.push(href)}
         style={({ hovered }: { pressed: boolean; hovered?: boolean }) => [styles.button, hovered && styles.hovered]}
         testID="account-menu"

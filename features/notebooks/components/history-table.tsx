@@ -70,7 +70,7 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
             {version.parentNumber !== null ? (
               <Pressable
                 role="link"
-                accessibilityLabel={`Compare version ${version.number} with version ${version.parentNumber}`}
+                accessibilityLabel={`Compare with v${version.parentNumber}, from v${version.number}`}
                 onPress={() => onCompare(version.parentNumber as number, version.number)}
                 testID={`compare-v${version.number}`}
                 style={styles.linkBox}
