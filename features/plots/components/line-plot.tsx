@@ -2,7 +2,7 @@ import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { memo, useCallback, useMemo, useRef, useState } from 'react';
 import { StyleSheet, View, type PointerEvent } from 'react-native';
 import Svg, { G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
-import { formatNumber } from '@/shared/format';
+import { formatNumber, formatQuantity, keepTogether, withUnit } from '@/shared/format';
 import { Text, colors, fonts, space } from '@/features/ui';
 import {
   axisMarginPx,
@@ -184,7 +184,7 @@ export function LinePlot(props: LinePlotProps) {
     readoutNm === undefined
       ? null
       : [
-          `${formatNumber(readoutNm)} nm`,
+          formatQuantity(readoutNm, 'nm'),
           nameFirst ? `${series.label} ${readValue(series, readoutIndex)}` : readValue(series, readoutIndex),
           secondSeries ? `${secondSeries.label} ${readValue(secondSeries, readoutIndex)}` : null,
         ]
@@ -313,7 +313,7 @@ function readValue(series: PlotSeries, index: number): string {
   const value = series.values[index] ?? null;
   if (value === null) return 'unreachable';
   const text = series.format ? series.format(value) : formatNumber(value);
-  return series.unit && !series.format ? `${text} ${series.unit}` : text;
+  return series.unit && !series.format ? withUnit(text, series.unit) : keepTogether(text);
 }
 
 type BodyProps = Pick<
