@@ -1,7 +1,7 @@
 import { useRouter, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { createTeamRequestSchema, roleLabels } from '@/shared/teams';
-import { FormError, FormField, useApiForm, useSessionQuery, useSignOutMutation } from '@/features/auth';
+import { FormError, FormField, ResendConfirmation, useApiForm, useSessionQuery, useSignOutMutation } from '@/features/auth';
 import { Button, Card, Heading, Screen, Text, colors, radius, space, useDocumentTitle } from '@/features/ui';
 import { useCreateTeamMutation, useTeamsQuery } from '../queries';
 import { TeamLink } from './team-link';
@@ -78,9 +78,12 @@ export function TeamsScreen() {
             Signed in as <Text weight="semibold">{user.displayName}</Text> ({user.email})
           </Text>
           {!user.emailVerified ? (
-            <Text variant="small" tone="warning">
-              Your e-mail address is not confirmed yet: follow the link we sent you.
-            </Text>
+            <>
+              <Text variant="small" tone="warning">
+                Your e-mail address is not confirmed yet: follow the link we sent you.
+              </Text>
+              <ResendConfirmation email={user.email} />
+            </>
           ) : null}
           <View style={[styles.row, styles.wrap]}>
             <Button kind="secondary" label="Sign out" onPress={() => void doSignOut(false)} disabled={signOut.isPending} testID="sign-out" />
