@@ -4,14 +4,16 @@
  * On screen every page is a window-high column of scrolling panes, so a printer gets only what
  * fits the first window. On paper the panes give up their heights and scrolling and the content
  * flows over as many pages as it needs. Controls are marked `data-print="hide"` (see
- * `printHidden`); text fields keep their value without their box.
+ * `printHidden`); text fields keep their value without their box (the input and the box drawn
+ * around it).
  */
 const printCss = `
 @media print {
   html, body, #root { height: auto !important; min-height: 0 !important; overflow: visible !important; }
   #root * { overflow: visible !important; max-height: none !important; }
   [data-print="hide"], input[type="file"] { display: none !important; }
-  input, textarea, select {
+  input, textarea, select,
+  #root div:has(> input), #root div:has(> textarea) {
     border-color: transparent !important;
     background: transparent !important;
     box-shadow: none !important;
