@@ -176,11 +176,11 @@ export function Workbench({
       selectedText={bench.selectedText}
       onChangeSelected={bench.setSelectedText}
       selected={deferredSelected}
+      note={bench.readoutNote}
+      range={bench.design.range}
       dimmed={dimmed}
     />
   );
-      note={bench.readoutNote}
-      range={bench.design.range}
   const warnings = <WarningList warnings={deferredEvaluation.warnings} onShowField={showField} />;
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   const pad = { paddingBottom: insets.bottom + space.xxl };
