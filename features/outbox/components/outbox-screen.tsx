@@ -36,7 +36,7 @@ export function OutboxScreen() {
           </Text>
           <View style={styles.links}>
             {appLinks(message.text).map((link) => (
-              <Button key={link.label} kind="secondary" label="Open the link" accessibilityLabel={`Open ${link.path}`} onPress={() => router.push(link.path as Href)} testID="outbox-open-link" />
+              <Button key={link.label} kind="secondary" label="Open the link" accessibilityLabel={`Open the link: ${link.path}`} onPress={() => router.push(link.path as Href)} testID="outbox-open-link" />
             ))}
           </View>
         </Card>
