@@ -180,10 +180,10 @@ function NotebookView({ design, latest, requested, userId }: { design: Notebook;
   } else if (tab === 'history') {
     body = <HistoryTab design={design} current={version.number} top={phone ? top : undefined} />;
   } else {
-    body = <SharingTab design={design} version={version} />;
+    body = <SharingTab design={design} version={version} top={phone ? top : undefined} />;
   }
 
-  const topInBody = phone && tab !== 'sharing' && version !== null && validRequest && !older.isError;
+  const topInBody = phone && version !== null && validRequest && !older.isError;
   return (
     <View style={styles.root}>
       {topInBody ? null : <View style={phone ? styles.topPhoneFixed : undefined}>{top}</View>}

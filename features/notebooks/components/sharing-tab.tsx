@@ -1,5 +1,5 @@
 import { useRouter, type Href } from 'expo-router';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Notebook, ShareLink, Version } from '@/shared/notebooks';
 import { exportFileName } from '@/shared/export-file-name';
@@ -361,10 +361,14 @@ function ExportPanel({ design }: { design: Notebook }) {
   );
 }
 
-/** Everything that takes the design out of this screen: clone, baseline, links and the file. */
-export function SharingTab({ design, version }: { design: Notebook; version: Version }) {
+/**
+ * Everything that takes the design out of this screen: clone, baseline, links and the file.
+ * `top`: the notebook's header, when it should scroll away with the page (phones).
+ */
+export function SharingTab({ design, version, top }: { design: Notebook; version: Version; top?: ReactNode }) {
   return (
     <Screen>
+      {top}
       <ClonePanel design={design} version={version} />
       {can(design.role, 'designs.edit') ? <BaselinePanel design={design} version={version} /> : null}
       {can(design.role, 'share.manage') ? <SharePanel design={design} version={version} /> : null}
