@@ -101,7 +101,7 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
               <Text role="cell" variant="small">
                 {figures.range} · bandpass {figures.bandpass} · R {figures.resolvingPower} · {figures.fNumber}
               </Text>
-              {actions}
+              <View role="cell">{actions}</View>
             </View>
           );
         }

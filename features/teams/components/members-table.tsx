@@ -65,7 +65,7 @@ export function MembersTable({ members, currentUserId, canManage, busy, onChange
                 <Text role="cell" variant="small" tone="muted">
                   Joined {formatDay(member.joinedAt)}
                 </Text>
-                {remove}
+                {remove ? <View role="cell">{remove}</View> : null}
               </View>
             </View>
           );
