@@ -1,3 +1,4 @@
+import { installGlobalStyle } from './global-style.web';
 import { colors } from './theme';
 
 /**
@@ -16,14 +17,7 @@ const focusCss = `
 input:focus-visible, textarea:focus-visible { outline-offset: 1px; }
 `;
 
-let installed = false;
-
 /** Adds the focus ring to the document once, on the web. */
 export function installFocusRing(): void {
-  if (installed || typeof document === 'undefined') return;
-  installed = true;
-  const style = document.createElement('style');
-  style.id = 'blazebook-focus';
-  style.textContent = focusCss;
-  document.head.appendChild(style);
+  installGlobalStyle('blazebook-focus', focusCss);
 }

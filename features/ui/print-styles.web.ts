@@ -1,3 +1,4 @@
+import { installGlobalStyle } from './global-style.web';
 /**
  * What a printed screen keeps: the content, sketch and plots included, without the controls.
  *
@@ -24,14 +25,7 @@ const printCss = `
 }
 `;
 
-let installed = false;
-
 /** Adds the print styles to the document once, on the web. */
 export function installPrintStyles(): void {
-  if (installed || typeof document === 'undefined') return;
-  installed = true;
-  const style = document.createElement('style');
-  style.id = 'blazebook-print';
-  style.textContent = printCss;
-  document.head.appendChild(style);
+  installGlobalStyle('blazebook-print', printCss);
 }

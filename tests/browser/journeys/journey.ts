@@ -129,6 +129,33 @@ export async function ownerApi(browser: Browser, server: RunningServer) {
   return { context, teamId: team!.id, invite };
 }
 
+/**
+ * Someone invited by the demo owner opens the mailed invitation, makes an account from it and
+ * confirms the address, ending signed in and confirmed. `onInvitation` runs while the invitation
+ * page shows, before sign-up. Answers the invitation's path, for accepting it.
+ */
+export async function signUpFromInvitation(
+  server: RunningServer,
+  who: Person,
+  account: { name: string; email: string; password: string },
+  onInvitation: () => Promise<void> = async () => {},
+): Promise<string> {
+  const { page, context } = who;
+  const invitation = await newestMail(server, context, account.email, `invited you to ${demo.teamName}`);
+  const invitationPath = linkPath(invitation.text, '/invitations/');
+  await page.goto(`${server.url}${invitationPath}`);
+  await page.getByRole('heading', { name: `Join ${demo.teamName}` }).waitFor();
+  await onInvitation();
+  await shown(page, 'invitation-sign-up').click();
+  await fillSignUp(page, account);
+  // Back on the invitation, which needs the address confirmed before it can be accepted.
+  await shown(page, 'invitation-confirm-first').waitFor();
+  const confirmation = await newestMail(server, context, account.email, 'Confirm');
+  await page.goto(`${server.url}${linkPath(confirmation.text, '/verify-email')}`);
+  await eventually(() => shown(page, 'verify-result').textContent()).toBe(`Thank you: ${account.email} is confirmed.`);
+  return invitationPath;
+}
+
 /** Signs up through the form on the current sign-up screen. */
 export async function fillSignUp(page: Page, who: { name: string; email: string; password: string }) {
   await page.getByRole('heading', { name: 'Create your account' }).waitFor();

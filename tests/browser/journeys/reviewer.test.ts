@@ -4,12 +4,10 @@ import {
   demo,
   expectNoProblems,
   expectTitle,
-  fillSignUp,
-  linkPath,
-  newestMail,
   ownerApi,
   overlap,
   person,
+  signUpFromInvitation,
   textBoxes,
   shown,
   eventually,
@@ -41,29 +39,12 @@ describe('journey: the reviewer, from an invitation to a review decision', { tim
     await owner.context.close();
 
     who = await person(live.browser, 'reviewer', 'wide');
-    const { page, context } = who;
+    const { page } = who;
     page.setDefaultTimeout(15_000);
-    const invitation = await newestMail(
-      live.server,
-      context,
-      reviewer.email,
-      `invited you to ${demo.teamName}`,
-    );
-    invitationPath = linkPath(invitation.text, '/invitations/');
-    await page.goto(`${live.server.url}${invitationPath}`);
-    await page.getByRole('heading', { name: `Join ${demo.teamName}` }).waitFor();
-    await expectTitle(page, `Join ${demo.teamName} · Blazebook`);
-    await who.shoot('invitation');
-
-    await shown(page, 'invitation-sign-up').click();
-    await fillSignUp(page, reviewer);
-    // Back on the invitation, which needs the address confirmed before it can be accepted.
-    await shown(page, 'invitation-confirm-first').waitFor();
-    const confirmation = await newestMail(live.server, context, reviewer.email, 'Confirm');
-    await page.goto(`${live.server.url}${linkPath(confirmation.text, '/verify-email')}`);
-    await eventually(() => shown(page, 'verify-result').textContent()).toBe(
-      `Thank you: ${reviewer.email} is confirmed.`,
-    );
+    invitationPath = await signUpFromInvitation(live.server, who, reviewer, async () => {
+      await expectTitle(page, `Join ${demo.teamName} · Blazebook`);
+      await who.shoot('invitation');
+    });
   });
 
   it('accepts with the keyboard and lands on the team’s designs', async () => {

@@ -4,11 +4,9 @@ import {
   demo,
   expectNoProblems,
   expectTitle,
-  fillSignUp,
-  linkPath,
-  newestMail,
   ownerApi,
   person,
+  signUpFromInvitation,
   shown,
   eventually,
   type Person,
@@ -43,22 +41,9 @@ describe(
       await owner.context.close();
 
       who = await person(live.browser, 'student', 'phone');
-      const { page, context } = who;
+      const { page } = who;
       page.setDefaultTimeout(15_000);
-      const invitationPath = linkPath(
-        (await newestMail(live.server, context, student.email, `invited you to ${demo.teamName}`)).text,
-        '/invitations/',
-      );
-      await page.goto(`${live.server.url}${invitationPath}`);
-      await page.getByRole('heading', { name: `Join ${demo.teamName}` }).waitFor();
-      await shown(page, 'invitation-sign-up').click();
-      await fillSignUp(page, student);
-      await shown(page, 'invitation-confirm-first').waitFor();
-      const confirmation = await newestMail(live.server, context, student.email, 'Confirm');
-      await page.goto(`${live.server.url}${linkPath(confirmation.text, '/verify-email')}`);
-      await eventually(() => shown(page, 'verify-result').textContent()).toBe(
-        `Thank you: ${student.email} is confirmed.`,
-      );
+      const invitationPath = await signUpFromInvitation(live.server, who, student);
 
       await page.goto(`${live.server.url}${invitationPath}`);
       await page.getByRole('button', { name: 'Accept the invitation' }).click();
