@@ -205,23 +205,129 @@ export const shareLinks = pgTable(
 );
 
 /**
- * Review comments on one version of a design, listed oldest first. `decision` is null for a plain
- * comment; a decision belongs to the version it was made on, so a new version starts unreviewed.
+ * Design review (shared/reviews.ts has the words). A thread belongs to the version it was started
+ * on and is pinned to what it is about (`pin`, the shared `Pin` as JSON); for a field pin,
+ * `pinnedValue` is that field's value on the thread's version, so later versions can say whether
+ * it changed. Resolve and reopen events are kept in `statusEvents` (`{ status, byId, byName, at }`).
+ * Names are kept beside ids so a remark still says who wrote it after an account is deleted, and
+ * an imported thread can name people who are not in this installation.
  */
-export const versionReviews = pgTable(
-  'version_reviews',
+export const reviewThreads = pgTable(
+  'review_threads',
   {
     id: text().primaryKey(),
-    /** Insertion order: comments written in the same millisecond still list in the order sent. */
     seq: integer().notNull().generatedAlwaysAsIdentity(),
     designId: text()
       .notNull()
       .references(() => designs.id, { onDelete: 'cascade' }),
     versionNumber: integer().notNull(),
+    pin: jsonb().notNull(),
+    pinnedValue: jsonb(),
+    status: text({ enum: ['open', 'resolved'] }).notNull().default('open'),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdByName: text().notNull(),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+    resolvedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    resolvedAt: timestamp({ withTimezone: true, mode: 'date' }),
+    statusEvents: jsonb().notNull().default(sql`'[]'::jsonb`),
+  },
+  (t) => [index('review_threads_design_version_idx').on(t.designId, t.versionNumber, t.seq)],
+);
+
+/** One remark in a thread. `body` is null once removed; `earlierBodies` keeps each edited-away text (`{ body, replacedAt }`). */
+export const reviewRemarks = pgTable(
+  'review_remarks',
+  {
+    id: text().primaryKey(),
+    seq: integer().notNull().generatedAlwaysAsIdentity(),
+    threadId: text()
+      .notNull()
+      .references(() => reviewThreads.id, { onDelete: 'cascade' }),
     authorId: text().references(() => users.id, { onDelete: 'set null' }),
-    body: text().notNull(),
-    decision: text({ enum: ['approved', 'changes-requested'] }),
+    authorName: text().notNull(),
+    body: text(),
+    mentions: text().array().notNull().default(sql`'{}'::text[]`),
+    earlierBodies: jsonb().notNull().default(sql`'[]'::jsonb`),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+    editedAt: timestamp({ withTimezone: true, mode: 'date' }),
+    removedAt: timestamp({ withTimezone: true, mode: 'date' }),
+  },
+  (t) => [index('review_remarks_thread_idx').on(t.threadId, t.seq)],
+);
+
+/** An owner's request that a member review one version; `answeredAt` is set by that member's decision. */
+export const reviewRequests = pgTable(
+  'review_requests',
+  {
+    id: text().primaryKey(),
+    designId: text()
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    versionNumber: integer().notNull(),
+    requestedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    reviewerId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    /** A calendar date (`YYYY-MM-DD`), or null. */
+    dueDate: text(),
+    note: text().notNull().default(''),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+    answeredAt: timestamp({ withTimezone: true, mode: 'date' }),
+  },
+  (t) => [uniqueIndex('review_requests_version_reviewer_unique').on(t.designId, t.versionNumber, t.reviewerId)],
+);
+
+/** A reviewer's decision on one version. It never moves to another version. */
+export const reviewDecisions = pgTable(
+  'review_decisions',
+  {
+    id: text().primaryKey(),
+    seq: integer().notNull().generatedAlwaysAsIdentity(),
+    designId: text()
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    versionNumber: integer().notNull(),
+    reviewerId: text().references(() => users.id, { onDelete: 'set null' }),
+    reviewerName: text().notNull(),
+    outcome: text({ enum: ['signed-off', 'signed-off-with-remarks', 'revise'] }).notNull(),
+    summary: text().notNull(),
     createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
   },
-  (t) => [index('version_reviews_design_version_idx').on(t.designId, t.versionNumber, t.seq)],
+  (t) => [index('review_decisions_design_version_idx').on(t.designId, t.versionNumber, t.seq)],
 );
+
+/** What waits for one person: one row per event that concerns them (shared `InboxKind`). */
+export const inboxItems = pgTable(
+  'inbox_items',
+  {
+    id: text().primaryKey(),
+    seq: integer().notNull().generatedAlwaysAsIdentity(),
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    kind: text({
+      enum: ['review-requested', 'mentioned', 'thread-on-my-design', 'remark-on-my-thread', 'decision-on-my-version'],
+    }).notNull(),
+    designId: text()
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    versionNumber: integer().notNull(),
+    threadId: text().references(() => reviewThreads.id, { onDelete: 'cascade' }),
+    actorId: text().references(() => users.id, { onDelete: 'set null' }),
+    excerpt: text().notNull(),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+    readAt: timestamp({ withTimezone: true, mode: 'date' }),
+  },
+  (t) => [index('inbox_items_user_seq_idx').on(t.userId, t.seq)],
+);
+
+/** Which review e-mails a person gets; no row means all on. */
+export const mailSettings = pgTable('mail_settings', {
+  userId: text()
+    .primaryKey()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  reviewRequests: boolean().notNull().default(true),
+  mentions: boolean().notNull().default(true),
+  threadsOnMyDesigns: boolean().notNull().default(true),
+  decisionsOnMyVersions: boolean().notNull().default(true),
+});

@@ -11,6 +11,7 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
+import { createInbox } from './inbox/index';
 import { createNotebooks } from './notebooks/index';
 import { createReviews } from './reviews/index';
 import { openApiRoute } from './openapi';
@@ -106,7 +107,8 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(auth.sessions);
   const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
   const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock });
-  const reviews = createReviews({ db: deps.database.db, clock: deps.clock });
+  const inbox = createInbox({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
+  const reviews = createReviews({ db: deps.database.db, clock: deps.clock, notifier: inbox.notifier, lists: notebooks.lists });
   apiRouter.use(
     mountContract(
       {
@@ -114,6 +116,7 @@ export function createApp(deps: AppDeps) {
         teams: teams.router,
         notebooks: notebooks.router,
         reviews: reviews.router,
+        inbox: inbox.router,
         platform: {
           solve: solveRoute(deps.rateLimits),
           health: healthRoute(deps),

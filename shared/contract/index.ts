@@ -1,4 +1,5 @@
 import { accounts } from './accounts';
+import { inbox } from './inbox';
 import { notebooks } from './notebooks';
 import { platform } from './platform';
 import { reviews } from './reviews';
@@ -12,7 +13,7 @@ export type { Access, Method, Route, RouteAnswer, RouteArgs, RouteInput, RouteMe
  * Every route of the HTTP API, described once. Group and route names are the OpenAPI
  * operation ids (`notebooks.saveVersion`) and the first two items of each TanStack Query key.
  */
-export const apiContract = { accounts, teams, notebooks, reviews, platform };
+export const apiContract = { accounts, teams, notebooks, reviews, inbox, platform };
 export type ApiContract = typeof apiContract;
 
 export type RouteEntry = { name: string; route: Route } & ReturnType<typeof describe>;

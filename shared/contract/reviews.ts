@@ -1,28 +1,128 @@
-import { createReviewRequestSchema, reviewListResponseSchema, reviewParamsSchema, reviewResponseSchema } from '../reviews';
+import { designParamsSchema } from '../notebooks/params';
+import {
+  decisionResponseSchema,
+  editRemarkRequestSchema,
+  recordDecisionRequestSchema,
+  remarkParamsSchema,
+  replyRequestSchema,
+  requestReviewSchema,
+  reviewParamsSchema,
+  reviewRequestListResponseSchema,
+  reviewStatesResponseSchema,
+  setThreadStatusRequestSchema,
+  startThreadRequestSchema,
+  threadParamsSchema,
+  threadResponseSchema,
+  versionReviewResponseSchema,
+} from '../reviews';
 import { route } from './route';
 
-const tag = 'Reviews';
+const tag = 'Design review';
 
-/** Review comments on a version: members read them; owners and reviewers comment and decide. */
+/**
+ * Design review (see shared/reviews.ts for the words): members read; owners and reviewers start
+ * threads, reply, resolve and decide; owners request reviews. A thread or remark in the path
+ * belongs to one design, so its team's roles apply. Share links never reach any of it.
+ */
 export const reviews = {
-  list: route({
+  get: route({
     tag,
     method: 'GET',
-    path: '/designs/{id}/versions/{n}/reviews',
-    summary: "A version's reviews, oldest first",
+    path: '/designs/{id}/versions/{n}/review',
+    summary: "A version's review: its threads and the open ones carried from earlier versions, requests, decisions and state",
     access: { kind: 'team', capability: 'designs.read' },
     params: reviewParamsSchema,
-    output: reviewListResponseSchema,
+    output: versionReviewResponseSchema,
   }),
-  create: route({
+  states: route({
+    tag,
+    method: 'GET',
+    path: '/designs/{id}/review-states',
+    summary: "Every version's review state and open thread count, newest first",
+    access: { kind: 'team', capability: 'designs.read' },
+    params: designParamsSchema,
+    output: reviewStatesResponseSchema,
+  }),
+  startThread: route({
     tag,
     method: 'POST',
-    path: '/designs/{id}/versions/{n}/reviews',
-    summary: 'Comment on a version, with an optional decision',
+    path: '/designs/{id}/versions/{n}/threads',
+    summary: 'Start a thread pinned to a field, a result at a wavelength, a region of a figure or the whole version',
     status: 201,
     access: { kind: 'team', capability: 'designs.comment' },
     params: reviewParamsSchema,
-    body: createReviewRequestSchema,
-    output: reviewResponseSchema,
+    body: startThreadRequestSchema,
+    output: threadResponseSchema,
+  }),
+  getThread: route({
+    tag,
+    method: 'GET',
+    path: '/threads/{threadId}',
+    summary: 'One thread with its remarks (the link in review e-mails leads here)',
+    access: { kind: 'team', capability: 'designs.read' },
+    params: threadParamsSchema,
+    output: threadResponseSchema,
+  }),
+  reply: route({
+    tag,
+    method: 'POST',
+    path: '/threads/{threadId}/remarks',
+    summary: 'Reply in a thread',
+    status: 201,
+    access: { kind: 'team', capability: 'designs.comment' },
+    params: threadParamsSchema,
+    body: replyRequestSchema,
+    output: threadResponseSchema,
+  }),
+  setThreadStatus: route({
+    tag,
+    method: 'PUT',
+    path: '/threads/{threadId}/status',
+    summary: 'Resolve or reopen a thread (who and when is kept)',
+    access: { kind: 'team', capability: 'designs.comment' },
+    params: threadParamsSchema,
+    body: setThreadStatusRequestSchema,
+    output: threadResponseSchema,
+  }),
+  editRemark: route({
+    tag,
+    method: 'PATCH',
+    path: '/remarks/{remarkId}',
+    summary: 'Edit your own remark; the earlier text is kept and the remark shows as edited',
+    access: { kind: 'team', capability: 'designs.comment' },
+    params: remarkParamsSchema,
+    body: editRemarkRequestSchema,
+    output: threadResponseSchema,
+  }),
+  removeRemark: route({
+    tag,
+    method: 'DELETE',
+    path: '/remarks/{remarkId}',
+    summary: 'Remove your own remark; the thread shows that a remark was removed',
+    access: { kind: 'team', capability: 'designs.comment' },
+    params: remarkParamsSchema,
+    output: threadResponseSchema,
+  }),
+  requestReview: route({
+    tag,
+    method: 'POST',
+    path: '/designs/{id}/versions/{n}/review-requests',
+    summary: 'Ask named reviewers to review a version, with an optional due date',
+    status: 201,
+    access: { kind: 'team', capability: 'designs.edit' },
+    params: reviewParamsSchema,
+    body: requestReviewSchema,
+    output: reviewRequestListResponseSchema,
+  }),
+  decide: route({
+    tag,
+    method: 'POST',
+    path: '/designs/{id}/versions/{n}/decisions',
+    summary: "Record a decision on a version: signed off, signed off with remarks, or revise (never on one's own version)",
+    status: 201,
+    access: { kind: 'team', capability: 'designs.review' },
+    params: reviewParamsSchema,
+    body: recordDecisionRequestSchema,
+    output: decisionResponseSchema,
   }),
 };
