@@ -12,5 +12,7 @@ export { summarizeVersion } from './summary';
 export function createNotebooks(deps: { db: Database; roles: RoleDirectory; clock: Clock }) {
   const store = createNotebooksStore({ repository: createNotebooksRepository(deps.db), roles: deps.roles });
   const service = createNotebooksService({ store, roles: deps.roles, clock: deps.clock });
-  return { service, router: notebooksRouter(service) };
+  // The review module's door: a decision or request changes a design's review state on the list.
+  const lists = { forgetTeam: (teamId: string) => store.forgetTeamLists(teamId) };
+  return { service, router: notebooksRouter(service), lists };
 }

@@ -266,6 +266,14 @@ export function createNotebooksStore({ repository, roles }: NotebooksStoreDeps) 
   return {
     writes,
 
+    /**
+     * For writes made outside the notebooks that change what list pages show (a review decision
+     * or request changes a design's review state): forgets the team's pages, as a write would.
+     */
+    forgetTeamLists(teamId: string) {
+      forget([{ teamDesigns: teamId }]);
+    },
+
     /** The design and the caller's role in its team (null: not a member); null for a made-up id. */
     async design(
       designId: string,
