@@ -1,7 +1,8 @@
 import { useRouter, type Href } from 'expo-router';
-import { useState, type ReactNode } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Notebook } from '@/shared/notebooks';
+import { useReviewStatesQuery } from '@/features/reviews';
 import { Button, Card, Screen, Text, space } from '@/features/ui';
 import { useVersionsQuery } from '../queries';
 import { HistoryTable } from './history-table';
@@ -11,6 +12,8 @@ import { VersionPicker } from './version-picker';
 export function HistoryTab({ design, current, top }: { design: Notebook; current: number; top?: ReactNode }) {
   const router = useRouter();
   const versions = useVersionsQuery(design.id);
+  const states = useReviewStatesQuery(design.id);
+  const reviewStates = useMemo(() => new Map(states.data?.map((state) => [state.version, state])), [states.data]);
   const [a, setA] = useState(Math.max(1, design.latestVersion - 1));
   const [b, setB] = useState(design.latestVersion);
   const compare = (before: number, after: number) => router.push(`/notebooks/${design.id}/compare?a=${before}&b=${after}` as Href);
@@ -34,6 +37,7 @@ export function HistoryTab({ design, current, top }: { design: Notebook; current
             baselineVersion={design.baselineVersion}
             onOpen={(n) => router.push(`/notebooks/${design.id}/v/${n}` as Href)}
             onCompare={compare}
+            reviewStates={reviewStates}
           />
         ) : (
           <Text tone="muted">{versions.isError ? versions.error.message : 'Loading the history…'}</Text>

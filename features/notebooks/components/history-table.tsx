@@ -1,5 +1,7 @@
 import { Pressable, StyleSheet, View, type TextStyle } from 'react-native';
 import type { VersionHeader } from '@/shared/notebooks';
+import type { VersionReviewState } from '@/shared/reviews';
+import { ReviewStateBadge } from '@/features/reviews';
 import { Text, colors, fonts, radius, space, useLayout } from '@/features/ui';
 import { formatWhen, summaryFigures } from '../format';
 
@@ -10,12 +12,15 @@ type Props = {
   baselineVersion: number | null;
   onOpen: (n: number) => void;
   onCompare: (a: number, b: number) => void;
+  /** Each version's review state and open threads, by number; missing while they load. */
+  reviewStates?: ReadonlyMap<number, VersionReviewState>;
 };
 
-const columns = ['Version', 'Message', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', ''] as const;
+const columns = ['Version', 'Message', 'Review', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', ''] as const;
 const columnStyle: TextStyle[] = [
   { width: 72 },
   { flex: 2, minWidth: 0 },
+  { width: 150 },
   { flex: 1, minWidth: 0 },
   { width: 150 },
   { width: 120 },
@@ -35,8 +40,27 @@ function Badge({ label, tone }: { label: string; tone: 'accent' | 'primary' }) {
   );
 }
 
-/** Newest first: number, author, date, message and the figures a reviewer scans for. */
-export function HistoryTable({ versions, current, baselineVersion, onOpen, onCompare }: Props) {
+function openThreadsText(count: number): string {
+  return count === 1 ? '1 open thread' : `${count} open threads`;
+}
+
+/** A version's review state in words, and its open threads when there are any. */
+function ReviewCell({ n, state }: { n: number; state: VersionReviewState | undefined }) {
+  if (!state) return null;
+  return (
+    <View style={styles.cellStack}>
+      <ReviewStateBadge state={state.state} testID={`history-review-state-${n}`} />
+      {state.openThreads > 0 ? (
+        <Text variant="caption" tone="muted" testID={`history-open-threads-${n}`}>
+          {openThreadsText(state.openThreads)}
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
+/** Newest first: number, author, date, message, review state and the figures a reviewer scans for. */
+export function HistoryTable({ versions, current, baselineVersion, onOpen, onCompare, reviewStates }: Props) {
   const layout = useLayout();
   const wide = layout !== 'phone';
   return (
@@ -83,6 +107,7 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
           </View>
         );
         const author = version.author?.displayName ?? 'Former member';
+        const review = <ReviewCell n={version.number} state={reviewStates?.get(version.number)} />;
         if (!wide) {
           return (
             <View key={version.number} role="row" style={[styles.block, version.number === current && styles.currentRow]} testID={`history-v${version.number}`}>
@@ -95,6 +120,7 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
               <Text role="cell" weight="semibold">
                 {version.message}
               </Text>
+              <View role="cell">{review}</View>
               <Text role="cell" variant="small" tone="muted">
                 {author} · {formatWhen(version.createdAt)}
               </Text>
@@ -116,25 +142,28 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
             <Text role="cell" style={columnStyle[1]}>
               {version.message}
             </Text>
-            <Text role="cell" variant="small" tone="muted" style={columnStyle[2]}>
+            <View role="cell" style={columnStyle[2]}>
+              {review}
+            </View>
+            <Text role="cell" variant="small" tone="muted" style={columnStyle[3]}>
               {author}
             </Text>
-            <Text role="cell" variant="small" tone="muted" style={columnStyle[3]}>
+            <Text role="cell" variant="small" tone="muted" style={columnStyle[4]}>
               {formatWhen(version.createdAt)}
             </Text>
-            <Text role="cell" variant="number" style={[styles.figure, columnStyle[4]]}>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[5]]}>
               {figures.range}
             </Text>
-            <Text role="cell" variant="number" style={[styles.figure, columnStyle[5]]}>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[6]]}>
               {figures.bandpass}
             </Text>
-            <Text role="cell" variant="number" style={[styles.figure, columnStyle[6]]}>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[7]]}>
               {figures.resolvingPower}
             </Text>
-            <Text role="cell" variant="number" style={[styles.figure, columnStyle[7]]}>
+            <Text role="cell" variant="number" style={[styles.figure, columnStyle[8]]}>
               {figures.fNumber}
             </Text>
-            <View role="cell" style={columnStyle[8]}>
+            <View role="cell" style={columnStyle[9]}>
               {actions}
             </View>
           </View>
