@@ -3,8 +3,10 @@ import { useFonts } from 'expo-font';
 import { Stack } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
+import { View } from 'react-native';
 import { createQueryClient } from '@/features/api';
 import { AccountMenu } from '@/features/auth';
+import { InboxLink } from '@/features/inbox';
 import { Wordmark, colors, fontAssets, fonts, installFocusRing, installPrintStyles } from '@/features/ui';
 
 // Printed screens show their content without the controls (web only).
@@ -26,7 +28,12 @@ export default function RootLayout() {
           headerTitleStyle: { fontFamily: fonts.semibold },
           contentStyle: { backgroundColor: colors.paper },
           headerTitle: () => <Wordmark />,
-          headerRight: () => <AccountMenu />,
+          headerRight: () => (
+            <View style={{ flexDirection: 'row', alignItems: 'center' }}>
+              <InboxLink />
+              <AccountMenu />
+            </View>
+          ),
         }}
       >
         <Stack.Screen name="index" options={{ title: 'Blazebook' }} />

@@ -86,6 +86,9 @@ export function TeamsScreen() {
             </>
           ) : null}
           <View style={[styles.row, styles.wrap]}>
+            <TeamLink href="/settings" label="Settings" accessibilityLabel="Settings: which review e-mails you get" testID="account-settings" />
+          </View>
+          <View style={[styles.row, styles.wrap]}>
             <Button kind="secondary" label="Sign out" onPress={() => void doSignOut(false)} disabled={signOut.isPending} testID="sign-out" />
             <Button kind="quiet" label="Sign out on every device" onPress={() => void doSignOut(true)} disabled={signOut.isPending} />
           </View>

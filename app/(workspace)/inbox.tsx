@@ -1,0 +1,3 @@
+import { InboxScreen } from '@/features/inbox';
+
+export default InboxScreen;

@@ -1,0 +1,3 @@
+import { MailSettingsScreen } from '@/features/inbox';
+
+export default MailSettingsScreen;
