@@ -4,3 +4,4 @@ export { draftFromDesign, draftSchema, loadDraft, saveDraft, type Draft } from '
 export { designToForm, formToDesign, type FormResult, type FormValues } from './form-model';
 export { presets, type Preset } from './presets';
 export { rangeTableCsv } from './csv';
+export { FieldMarksProvider, resultTarget, type FieldMarks } from './field-marks';

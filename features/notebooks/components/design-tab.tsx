@@ -1,13 +1,23 @@
-import { useRouter, type Href } from 'expo-router';
-import { useCallback, useEffect, useRef, useState, type ReactNode } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode, type Ref } from 'react';
+import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { changedPaths } from '@/shared/design-diff';
 import { versionMessageSchema, type Notebook, type Version } from '@/shared/notebooks';
+import { pinLabel, pinnedResults, type Pin, type PinnedResult } from '@/shared/reviews';
 import { can, roleLabels } from '@/shared/teams';
 import { ApiError } from '@/features/api';
-import { ReviewPanel } from '@/features/reviews';
+import { ReviewSheet, ReviewSidePanel, useVersionReviewQuery, type ReviewFocus, type ReviewPanelProps } from '@/features/reviews';
 import { Button, Card, Text, colors, minTouch, radius, space } from '@/features/ui';
-import { draftFromDesign, formToDesign, Workbench, type Draft, type FormResult } from '@/features/workbench';
+import {
+  draftFromDesign,
+  FieldMarksProvider,
+  formToDesign,
+  resultTarget,
+  Workbench,
+  type Draft,
+  type FieldMarks,
+  type FormResult,
+} from '@/features/workbench';
 import {
   clearEdits,
   freshEdits,
@@ -39,10 +49,33 @@ type Props = {
 
 type Panel = 'save' | 'notes' | 'review';
 
+/** The review is a side panel from this width up; a sheet over the page below it. */
+const SIDE_PANEL_MIN_WIDTH = 1024;
+
+/** The target a marker stands for: a field path, or `result:<kind>` (see field-marks.tsx). */
+function pinTarget(pin: Pin): string | null {
+  if (pin.kind === 'field') return pin.path;
+  if (pin.kind === 'result') return resultTarget(pin.result);
+  return null;
+}
+
 /** One button of the compact bar: opens or closes its card right under the bar. */
-function PanelToggle({ label, open, onPress, testID }: { label: string; open: boolean; onPress: () => void; testID: string }) {
+function PanelToggle({
+  label,
+  open,
+  onPress,
+  testID,
+  buttonRef,
+}: {
+  label: string;
+  open: boolean;
+  onPress: () => void;
+  testID: string;
+  buttonRef?: Ref<View>;
+}) {
   return (
     <Pressable
+      ref={buttonRef}
       role="button"
       aria-expanded={open}
       accessibilityLabel={label}
@@ -65,6 +98,10 @@ function PanelToggle({ label, open, onPress, testID }: { label: string; open: bo
 /** The workbench on one version, with the save flow for owners on the latest version. */
 export function DesignTab({ design, version, latest, userId, onRestart, rebaseNote, top }: Props) {
   const router = useRouter();
+  // `?thread=<id>` (the link in review e-mails) opens the review on that thread; `?review=1` opens it.
+  const search = useLocalSearchParams<{ thread?: string; review?: string }>();
+  const { width } = useWindowDimensions();
+  const sidePanel = width >= SIDE_PANEL_MIN_WIDTH;
   const isLatest = version.number === latest.number;
   const editable = can(design.role, 'designs.edit') && isLatest && !design.archived;
   const key = notebookDraftKey(userId, design.id);
@@ -75,9 +112,22 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
     return stored ?? freshEdits(draftFromDesign(version.params), version.number);
   });
   // The editor comes first; the cards open from the bar. Kept text reopens its card, so it is seen.
-  const [open, setOpen] = useState<ReadonlySet<Panel>>(() =>
-    editable && (start.notes !== '' || start.message !== '') ? new Set<Panel>(['save']) : new Set<Panel>(),
+  const [open, setOpen] = useState<ReadonlySet<Panel>>(() => {
+    const panels = new Set<Panel>();
+    if (editable && (start.notes !== '' || start.message !== '')) panels.add('save');
+    if (search.thread || search.review === '1') panels.add('review');
+    return panels;
+  });
+  const [reviewFocus, setReviewFocus] = useState<ReviewFocus | null>(() =>
+    typeof search.thread === 'string' && search.thread !== '' ? { kind: 'thread', threadId: search.thread } : null,
   );
+  const [askedField, setAskedField] = useState<{ path: string; nonce: number } | null>(null);
+  const reviewButton = useRef<View>(null);
+  const review = useVersionReviewQuery(design.id, version.number);
+  const openThreads = useMemo(() => (review.data?.threads ?? []).filter((t) => t.status === 'open'), [review.data]);
+  const canWrite = can(design.role, 'designs.comment');
+  const range = version.params.range;
+  const readoutNm = Math.round(((range.startNm + range.endNm) / 2) * 10) / 10;
   const toggle = (panel: Panel) =>
     setOpen((current) => {
       const next = new Set(current);
@@ -207,6 +257,58 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
       ? 'This design is archived; bring it back from the list to edit it.'
       : null;
 
+  const closeReview = () => {
+    setOpen((current) => {
+      const next = new Set(current);
+      next.delete('review');
+      return next;
+    });
+    // The sheet gives the focus back by itself; the side panel is part of the page.
+    if (sidePanel) setTimeout(() => (reviewButton.current as unknown as { focus?: () => void } | null)?.focus?.(), 0);
+  };
+  const openReview = (focus: ReviewFocus | null) => {
+    setReviewFocus(focus);
+    setOpen((current) => new Set(current).add('review'));
+  };
+  const showPin = (pin: Pin) => {
+    if (pin.kind !== 'field') return;
+    // On a phone or tablet the sheet covers the field: close it first, then show the field.
+    if (!sidePanel) closeReview();
+    setTimeout(() => setAskedField({ path: pin.path, nonce: Date.now() }), sidePanel ? 0 : 150);
+  };
+  const marks = useMemo<FieldMarks>(() => {
+    const counts = new Map<string, number>();
+    for (const thread of openThreads) {
+      const target = pinTarget(thread.pin);
+      if (target) counts.set(target, (counts.get(target) ?? 0) + 1);
+    }
+    return {
+      countFor: (target) => counts.get(target) ?? 0,
+      open: (target) => {
+        const thread = openThreads.find((t) => pinTarget(t.pin) === target);
+        if (thread) return openReview({ kind: 'thread', threadId: thread.id });
+        if (!canWrite) return openReview(null);
+        const result = target.startsWith('result:') ? (target.slice('result:'.length) as PinnedResult) : null;
+        const pin: Pin =
+          result && (pinnedResults as readonly string[]).includes(result)
+            ? { kind: 'result', result, wavelengthNm: readoutNm }
+            : { kind: 'field', path: target };
+        openReview({ kind: 'new', pin });
+      },
+      highlighted: askedField,
+    };
+  }, [openThreads, canWrite, readoutNm, askedField]);
+  const reviewProps: ReviewPanelProps = {
+    design: { id: design.id, teamId: design.teamId, role: design.role },
+    version: version.number,
+    userId,
+    focus: reviewFocus,
+    onFocus: setReviewFocus,
+    onShowPin: showPin,
+    onClose: closeReview,
+    defaultWavelengthNm: readoutNm,
+  };
+
   const header = (
     <View style={styles.header}>
       {top}
@@ -261,7 +363,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
       <View role="group" aria-label={`Version ${version.number}: save, notes and review`} style={styles.bar} testID="design-bar">
         {editable ? <PanelToggle label="Save version" open={open.has('save')} onPress={() => toggle('save')} testID="bar-save" /> : null}
         <PanelToggle label="Notes" open={open.has('notes')} onPress={() => toggle('notes')} testID="bar-notes" />
-        <PanelToggle label="Review" open={open.has('review')} onPress={() => toggle('review')} testID="bar-review" />
+        <PanelToggle label="Review" open={open.has('review')} onPress={() => toggle('review')} testID="bar-review" buttonRef={reviewButton} />
         {/* With the save card closed, say that there is something to save. */}
         {editable && !open.has('save') && !shownConflict && blockedReason === null ? (
           <Text variant="small" tone="warning" weight="semibold" style={styles.unsaved} testID="unsaved-note">
@@ -281,6 +383,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
           formError={formError}
           blockedReason={shownConflict ? 'Choose how to go on with the newer version above first.' : blockedReason}
           nextNumber={(shownConflict?.number ?? latest.number) + 1}
+          openThreads={openThreads.map((thread) => pinLabel(thread.pin))}
           busy={save.isPending}
           onSave={() => void submit()}
         />
@@ -290,19 +393,22 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
           <MarkdownView source={version.notes} testID="notes" />
         </Card>
       ) : null}
-      {open.has('review') ? <ReviewPanel designId={design.id} version={version.number} role={design.role} /> : null}
+      {sidePanel ? null : <ReviewSheet {...reviewProps} visible={open.has('review')} />}
     </View>
   );
 
   return (
-    <Workbench
-      key={`${design.id}:${version.number}`}
-      initial={initial}
-      onDraftChange={onDraftChange}
-      onResultChange={setResult}
-      header={header}
-      readOnly={!editable}
-    />
+    <FieldMarksProvider value={marks}>
+      <Workbench
+        key={`${design.id}:${version.number}`}
+        initial={initial}
+        onDraftChange={onDraftChange}
+        onResultChange={setResult}
+        header={header}
+        readOnly={!editable}
+        aside={sidePanel && open.has('review') ? <ReviewSidePanel {...reviewProps} /> : null}
+      />
+    </FieldMarksProvider>
   );
 }
 

@@ -15,6 +15,8 @@ type Props = {
   /** Why saving is not possible now (refused fields, nothing changed), or null. */
   blockedReason: string | null;
   nextNumber: number;
+  /** What the open review threads of this version are pinned to: the save leaves them unresolved. */
+  openThreads?: readonly string[];
   busy: boolean;
   onSave: () => void;
 };
@@ -35,6 +37,7 @@ export function SaveCard({
   formError,
   blockedReason,
   nextNumber,
+  openThreads = [],
   busy,
   onSave,
 }: Props) {
@@ -81,6 +84,12 @@ export function SaveCard({
           )}
         </View>
       </View>
+      {openThreads.length > 0 ? (
+        <Text variant="small" tone="warning" weight="semibold" testID="save-open-threads">
+          This save leaves {openThreads.length === 1 ? '1 open thread' : `${openThreads.length} open threads`} unresolved:{' '}
+          {openThreads.join(', ')}. They carry over to v{nextNumber}.
+        </Text>
+      ) : null}
       {formError ? (
         <Text role="alert" tone="danger" weight="semibold" testID="save-error">
           {formError}

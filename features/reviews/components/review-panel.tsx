@@ -1,149 +1,254 @@
-import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
-import { formatWhen } from '@/shared/format';
-import { reviewBodyMaxLength, reviewBodySchema, reviewDecisionLabels, type Review, type ReviewDecision } from '@/shared/reviews';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { Modal, Pressable, ScrollView, StyleSheet, View } from 'react-native';
+import { useSafeAreaInsets } from 'react-native-safe-area-context';
+import type { Pin, Thread, ThreadStatus } from '@/shared/reviews';
 import { can, type Role } from '@/shared/teams';
-import { ApiError } from '@/features/api';
-import { Button, Card, Text, TextField, colors, radius, space } from '@/features/ui';
-import { useCreateReviewMutation, useReviewsQuery } from '../queries';
+import { Button, Heading, RadioGroup, Text, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
+import { useMentionCandidatesQuery, useVersionReviewQuery } from '../thread-queries';
+import { DecisionSection } from './decision-section';
+import { NewRemarkForm } from './new-remark-form';
+import { ThreadCard } from './thread-card';
 
-type Props = {
-  designId: string;
+/** What the panel is turned to: one thread (a marker, a link), or a new remark pinned somewhere. */
+export type ReviewFocus = { kind: 'thread'; threadId: string } | { kind: 'new'; pin: Pin | null };
+
+export type ReviewPanelProps = {
+  design: { id: string; teamId: string; role: Role };
   version: number;
-  /** The caller's role in the design's team: the server decides, this only hides the form. */
-  role: Role;
+  userId: string;
+  focus: ReviewFocus | null;
+  onFocus: (focus: ReviewFocus | null) => void;
+  /** A thread's pin label was tapped. */
+  onShowPin: (pin: Pin) => void;
+  onClose: () => void;
+  /** The read-out wavelength offered for a remark pinned to a result. */
+  defaultWavelengthNm: number;
 };
 
-const badgeStyle: Record<ReviewDecision, { backgroundColor: string; color: string }> = {
-  approved: { backgroundColor: colors.okSoft, color: colors.ok },
-  'changes-requested': { backgroundColor: colors.warningSoft, color: colors.warning },
-};
+/** Scrolls a thread into view where the platform can (web); native keeps the list's position. */
+function scrollIntoView(node: unknown) {
+  const element = node as { scrollIntoView?: (options: ScrollIntoViewOptions) => void } | null;
+  element?.scrollIntoView?.({ block: 'nearest', behavior: 'smooth' });
+}
 
-function DecisionBadge({ decision }: { decision: ReviewDecision }) {
-  const { backgroundColor, color } = badgeStyle[decision];
-  return (
-    <View style={[styles.badge, { backgroundColor }]} testID={`review-decision-${decision}`}>
-      <Text variant="small" weight="semibold" style={{ color }}>
-        {reviewDecisionLabels[decision]}
+function focusNode(node: unknown) {
+  (node as { focus?: () => void } | null)?.focus?.();
+}
+
+/** The review of one version: the decision part, then its threads and those carried from earlier versions. */
+function ReviewContent({ design, version, userId, focus, onFocus, onShowPin, defaultWavelengthNm }: ReviewPanelProps) {
+  const review = useVersionReviewQuery(design.id, version);
+  const canWrite = can(design.role, 'designs.comment');
+  const members = useMentionCandidatesQuery(design.teamId, canWrite);
+  const [chosenFilter, setChosenFilter] = useState<{ status: ThreadStatus; forThread: string | null }>({ status: 'open', forThread: null });
+  const threadNodes = useRef(new Map<string, View | null>());
+
+  const threads = useMemo(() => review.data?.threads ?? [], [review.data]);
+  const focusedThread = focus?.kind === 'thread' ? threads.find((t) => t.id === focus.threadId) : undefined;
+  // A thread opened from a marker or a link is shown whatever the filter said (a resolved one
+  // switches to the resolved list) until the filter is changed again.
+  const filter = focusedThread && chosenFilter.forThread !== focusedThread.id ? focusedThread.status : chosenFilter.status;
+  const setFilter = (status: ThreadStatus) => setChosenFilter({ status, forThread: focusedThread?.id ?? null });
+  useEffect(() => {
+    if (!focusedThread) return;
+    const timer = setTimeout(() => scrollIntoView(threadNodes.current.get(focusedThread.id)), 50);
+    return () => clearTimeout(timer);
+  }, [focusedThread?.id]); // eslint-disable-line react-hooks/exhaustive-deps
+
+  const counts = useMemo(
+    () => ({ open: threads.filter((t) => t.status === 'open').length, resolved: threads.filter((t) => t.status === 'resolved').length }),
+    [threads],
+  );
+  const shown = threads.filter((t) => t.status === filter);
+  const here = shown.filter((t) => t.carry.state === 'here');
+  const carried = shown.filter((t) => t.carry.state !== 'here');
+
+  const card = (thread: Thread) => (
+    <ThreadCard
+      key={thread.id}
+      ref={(node) => {
+        threadNodes.current.set(thread.id, node);
+      }}
+      thread={thread}
+      focused={focusedThread?.id === thread.id}
+      onShowPin={onShowPin}
+      designId={design.id}
+      version={version}
+      userId={userId}
+      canWrite={canWrite}
+      members={members.data ?? []}
+    />
+  );
+
+  if (review.isPending) return <Text tone="muted">Loading the review…</Text>;
+  if (review.isError) {
+    return (
+      <Text role="alert" tone="danger">
+        The review could not be loaded: {review.error.message}
       </Text>
-    </View>
-  );
-}
-
-function ReviewItem({ review }: { review: Review }) {
+    );
+  }
   return (
-    <View style={styles.item} testID="review-item">
-      <View style={styles.itemHead}>
-        <Text weight="semibold">{review.author?.displayName ?? 'Former member'}</Text>
-        <Text variant="small" tone="muted">
-          {formatWhen(review.createdAt)}
-        </Text>
-        {review.decision ? <DecisionBadge decision={review.decision} /> : null}
-      </View>
-      {/* Plain text: a review is never read as Markdown or HTML. */}
-      <Text selectable>{review.body}</Text>
-    </View>
-  );
-}
-
-/** The review comments of one version, oldest first, with a form for owners and reviewers. */
-export function ReviewPanel({ designId, version, role }: Props) {
-  const reviews = useReviewsQuery(designId, version);
-  const create = useCreateReviewMutation(designId, version);
-  const [body, setBody] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const mayComment = can(role, 'designs.comment');
-  const mayDecide = can(role, 'designs.review');
-
-  const latestDecision = [...(reviews.data ?? [])].reverse().find((r) => r.decision !== null)?.decision ?? null;
-
-  const submit = async (decision: ReviewDecision | null) => {
-    setError(null);
-    const checked = reviewBodySchema.safeParse(body);
-    if (!checked.success) {
-      setError(`The comment ${checked.error.issues[0]?.message ?? 'is not valid'}`);
-      return;
-    }
-    try {
-      // Emptied together with the list's update, so the comment never shows in both places.
-      await create.mutateAsync({ body: checked.data, decision }, { onSuccess: () => setBody('') });
-    } catch (failure) {
-      setError(
-        failure instanceof ApiError
-          ? (failure.fields.body ? `The comment ${failure.fields.body}` : failure.message)
-          : 'The comment could not be sent. It is still in the box; try again.',
-      );
-    }
-  };
-
-  return (
-    <Card title={`Review of v${version}`} testID="review-panel">
-      {latestDecision ? (
-        <View style={styles.itemHead} testID="review-status">
-          <Text variant="small" tone="muted">
-            Latest decision:
-          </Text>
-          <DecisionBadge decision={latestDecision} />
-        </View>
-      ) : null}
-      {reviews.isPending ? (
-        <Text tone="muted">Loading the review…</Text>
-      ) : reviews.isError ? (
-        <Text role="alert" tone="danger">
-          The review comments could not be loaded.
-        </Text>
-      ) : reviews.data.length === 0 ? (
-        <Text tone="muted" testID="review-empty">
-          No comments on this version yet.
-        </Text>
-      ) : (
-        <View style={styles.list} testID="review-list">
-          {reviews.data.map((review) => (
-            <ReviewItem key={review.id} review={review} />
-          ))}
-        </View>
-      )}
-      {mayComment ? (
-        <View style={styles.form}>
-          <TextField
-            label="Your comment"
-            value={body}
-            onChangeText={(text) => {
-              setBody(text);
-              setError(null);
+    <View style={styles.content}>
+      <DecisionSection designId={design.id} version={version} role={design.role} userId={userId} review={review.data} />
+      <View style={styles.section}>
+        <Heading level={3}>Threads</Heading>
+        {focus?.kind === 'new' && canWrite ? (
+          <NewRemarkForm
+            key={JSON.stringify(focus.pin)}
+            designId={design.id}
+            version={version}
+            initialPin={focus.pin}
+            defaultWavelengthNm={defaultWavelengthNm}
+            members={members.data ?? []}
+            userId={userId}
+            onDone={(threadId) => {
+              setFilter('open');
+              onFocus({ kind: 'thread', threadId });
             }}
-            multiline
-            numberOfLines={3}
-            maxLength={reviewBodyMaxLength}
-            error={error}
-            testID="review-body"
+            onCancel={() => onFocus(null)}
           />
+        ) : canWrite ? (
           <View style={styles.actions}>
-            <Button kind="secondary" label="Comment" onPress={() => void submit(null)} disabled={create.isPending} testID="review-comment" />
-            {mayDecide ? (
-              <>
-                <Button label="Approve" onPress={() => void submit('approved')} disabled={create.isPending} testID="review-approve" />
-                <Button
-                  kind="secondary"
-                  label="Request changes"
-                  onPress={() => void submit('changes-requested')}
-                  disabled={create.isPending}
-                  testID="review-request-changes"
-                />
-              </>
-            ) : null}
+            <Button kind="secondary" label="New remark" onPress={() => onFocus({ kind: 'new', pin: null })} testID="new-remark" />
           </View>
+        ) : (
+          <Text variant="small" tone="muted">
+            Viewers read the threads; owners and reviewers write them.
+          </Text>
+        )}
+        <RadioGroup
+          label="Show threads"
+          options={[
+            { value: 'open', label: `Open (${counts.open})` },
+            { value: 'resolved', label: `Resolved (${counts.resolved})` },
+          ]}
+          value={filter}
+          onChange={setFilter}
+          look="segmented"
+          size="compact"
+          testID="thread-filter"
+        />
+        {shown.length === 0 ? (
+          <Text tone="muted" testID="threads-empty">
+            {filter === 'open' ? 'No open threads on this version.' : 'No resolved threads on this version.'}
+          </Text>
+        ) : null}
+        {here.length > 0 ? (
+          <View style={styles.list} testID="threads-here">
+            <Text variant="small" weight="semibold" tone="muted">
+              On v{version}
+            </Text>
+            {here.map(card)}
+          </View>
+        ) : null}
+        {carried.length > 0 ? (
+          <View style={styles.list} testID="threads-carried">
+            <Text variant="small" weight="semibold" tone="muted">
+              From earlier versions
+            </Text>
+            {carried.map(card)}
+          </View>
+        ) : null}
+      </View>
+    </View>
+  );
+}
+
+function CloseButton({ onPress, buttonRef }: { onPress: () => void; buttonRef?: React.Ref<View> }) {
+  return (
+    <Pressable
+      ref={buttonRef}
+      role="button"
+      accessibilityLabel="Close"
+      onPress={onPress}
+      testID="review-close"
+      style={({ hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [styles.close, hovered && styles.closeHover, focused && styles.closeFocused]}
+    >
+      <Text style={styles.closeText}>Close</Text>
+    </Pressable>
+  );
+}
+
+/** Beside the editor on wide screens (≥ 1024 px): part of the page, closed from its button or the bar. */
+export function ReviewSidePanel(props: ReviewPanelProps) {
+  return (
+    <View role="region" aria-label={`Review of v${props.version}`} style={styles.side} testID="review-panel">
+      <View style={styles.titleRow}>
+        <Heading level={2}>Review of v{props.version}</Heading>
+        <CloseButton onPress={props.onClose} />
+      </View>
+      <ReviewContent {...props} />
+    </View>
+  );
+}
+
+/**
+ * Over the page on phones and tablets: a modal sheet that takes the focus (its Close button) and,
+ * when closed, gives it back to what opened it; Escape closes it on the web.
+ */
+export function ReviewSheet({ visible, ...props }: ReviewPanelProps & { visible: boolean }) {
+  const insets = useSafeAreaInsets();
+  const close = useRef<View>(null);
+  useEffect(() => {
+    if (!visible) return;
+    const timer = setTimeout(() => focusNode(close.current), 80);
+    return () => clearTimeout(timer);
+  }, [visible]);
+  return (
+    <Modal
+      visible={visible}
+      transparent
+      animationType="none"
+      onRequestClose={props.onClose}
+      {...({ 'aria-label': `Review of v${props.version}` } as object)}
+    >
+      <View style={[styles.backdrop, { paddingTop: insets.top + space.xl }]}>
+        <View style={styles.sheet} testID="review-panel">
+          <View style={styles.titleRow}>
+            <Heading level={2}>Review of v{props.version}</Heading>
+            <CloseButton onPress={props.onClose} buttonRef={close} />
+          </View>
+          <ScrollView contentContainerStyle={[styles.sheetBody, { paddingBottom: insets.bottom + space.xl }]} testID="review-sheet-scroll">
+            <ReviewContent {...props} />
+          </ScrollView>
         </View>
-      ) : null}
-    </Card>
+      </View>
+    </Modal>
   );
 }
 
 const styles = StyleSheet.create({
-  list: { gap: space.md },
-  item: { gap: space.xxs, borderLeftWidth: 3, borderLeftColor: colors.line, paddingLeft: space.sm },
-  itemHead: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
-  badge: { borderRadius: radius.sm, paddingHorizontal: space.xs, paddingVertical: space.xxs },
-  form: { gap: space.sm },
+  content: { gap: space.lg },
+  section: { gap: space.md },
+  list: { gap: space.sm },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  titleRow: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  side: { gap: space.md },
+  backdrop: { flex: 1, backgroundColor: 'rgba(20, 28, 40, 0.45)', justifyContent: 'flex-end' },
+  sheet: {
+    flex: 1,
+    backgroundColor: colors.paper,
+    borderTopLeftRadius: radius.lg,
+    borderTopRightRadius: radius.lg,
+    paddingTop: space.md,
+    paddingHorizontal: space.lg,
+    gap: space.sm,
+    maxWidth: 760,
+    width: '100%',
+    alignSelf: 'center',
+  },
+  sheetBody: { gap: space.lg },
+  close: {
+    minHeight: minTouch,
+    paddingHorizontal: space.md,
+    borderRadius: radius.md,
+    borderWidth: 1,
+    borderColor: colors.primary,
+    backgroundColor: colors.surface,
+    justifyContent: 'center',
+  },
+  closeHover: { backgroundColor: colors.surfaceSunken },
+  closeFocused: { borderColor: colors.focus, borderWidth: 2 },
+  closeText: { ...type.body, fontFamily: fonts.semibold, color: colors.primary },
 });

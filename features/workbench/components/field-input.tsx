@@ -1,9 +1,11 @@
 import { memo, useState } from 'react';
 import { useController, type Control } from 'react-hook-form';
+import { StyleSheet, View } from 'react-native';
 import { Button, TextField } from '@/features/ui';
 import type { FieldSpec } from '../fields';
 import { formatTypedNumber, withUnit } from '@/shared/format';
 import { canonicalText, carriesOwnUnit, stepValue, type FormValues } from '../form-model';
+import { ReviewMarker } from '../field-marks';
 import { markEditStart } from '../perf-marks';
 import { stepKeyProps } from '../step-keys';
 
@@ -50,48 +52,59 @@ export const FieldInput = memo(function FieldInput({ control, field, highlighted
   };
   const stepperLabel = field.label.toLowerCase();
   return (
-    <TextField
-      ref={input.ref}
-      label={field.label}
-      value={text}
-      onChangeText={change}
-      onFocus={() => setFocused(true)}
-      onBlur={() => {
-        setFocused(false);
-        if (canonical !== null && !fieldState.error) input.onChange(canonical);
-        input.onBlur();
-      }}
-      editable={!readOnly}
-      error={fieldState.error?.message ?? null}
-      hint={hint}
-      unit={suffix}
-      {...(readOnly ? {} : stepKeyProps(step))}
-      numeric
-      highlighted={highlighted}
-      inputMode={field.kind === 'integer' ? 'numeric' : 'text'}
-      autoCapitalize="none"
-      autoCorrect={false}
-      testID={`field-${field.path}`}
-      before={
-        readOnly ? null : (
-          <Button
-            kind="secondary"
-            label="−"
-            accessibilityLabel={`Decrease ${stepperLabel}`}
-            onPress={() => step(-1)}
-          />
-        )
-      }
-      after={
-        readOnly ? null : (
-          <Button
-            kind="secondary"
-            label="+"
-            accessibilityLabel={`Increase ${stepperLabel}`}
-            onPress={() => step(1)}
-          />
-        )
-      }
-    />
+    <View style={styles.root}>
+      <TextField
+        ref={input.ref}
+        label={field.label}
+        value={text}
+        onChangeText={change}
+        onFocus={() => setFocused(true)}
+        onBlur={() => {
+          setFocused(false);
+          if (canonical !== null && !fieldState.error) input.onChange(canonical);
+          input.onBlur();
+        }}
+        editable={!readOnly}
+        error={fieldState.error?.message ?? null}
+        hint={hint}
+        unit={suffix}
+        {...(readOnly ? {} : stepKeyProps(step))}
+        numeric
+        highlighted={highlighted}
+        inputMode={field.kind === 'integer' ? 'numeric' : 'text'}
+        autoCapitalize="none"
+        autoCorrect={false}
+        testID={`field-${field.path}`}
+        before={
+          readOnly ? null : (
+            <Button
+              kind="secondary"
+              label="−"
+              accessibilityLabel={`Decrease ${stepperLabel}`}
+              onPress={() => step(-1)}
+            />
+          )
+        }
+        after={
+          readOnly ? null : (
+            <Button
+              kind="secondary"
+              label="+"
+              accessibilityLabel={`Increase ${stepperLabel}`}
+              onPress={() => step(1)}
+            />
+          )
+        }
+      />
+      {/* Beside the label: the open remarks pinned to this field, when there are any. */}
+      <View style={styles.marker}>
+        <ReviewMarker target={field.path} label={field.label} />
+      </View>
+    </View>
   );
+});
+
+const styles = StyleSheet.create({
+  root: { position: 'relative' },
+  marker: { position: 'absolute', top: -2, right: 0 },
 });

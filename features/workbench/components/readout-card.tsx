@@ -9,6 +9,7 @@ import { overlapsText } from '../overlaps';
 import { clampToRange } from '../readout-wavelength';
 import { stepKeyProps } from '../step-keys';
 import type { SelectedReadout } from '../hooks/use-workbench';
+import { ResultMarkers } from '../field-marks';
 import { markEditStart } from '../perf-marks';
 import { FigureList, type Figure } from './figure-list';
 
@@ -176,6 +177,7 @@ export const ReadoutCard = memo(function ReadoutCard({
         autoCapitalize="none"
         testID="field-readout-wavelength"
       />
+      <ResultMarkers />
       {note ? (
         <Text variant="small" tone="warning" role="status" testID="readout-moved">
           {note}

@@ -15,6 +15,7 @@ import { PerformancePlots } from '@/features/plots';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
 import { Card, colors, space, useLayout } from '@/features/ui';
 import type { Draft } from '../draft';
+import { useFieldMarks } from '../field-marks';
 import type { FormResult, FormValues } from '../form-model';
 import { useWorkbench } from '../hooks/use-workbench';
 import { measureEditEnd } from '../perf-marks';
@@ -50,6 +51,8 @@ export type WorkbenchProps = {
   readOnly?: boolean;
   /** Offer the starting presets (the scratch page). */
   showPresets?: boolean;
+  /** A pane beside the editor on tablet and wide layouts (the review panel); phones use a sheet instead. */
+  aside?: ReactNode;
 };
 
 /** Edit a design and see every figure, the sketch and the plots follow. */
@@ -60,6 +63,7 @@ export function Workbench({
   header,
   readOnly = false,
   showPresets = false,
+  aside = null,
 }: WorkbenchProps) {
   const bench = useWorkbench(initial, onDraftChange);
   const layout = useLayout();
@@ -92,6 +96,16 @@ export function Workbench({
     },
     [setFocus],
   );
+
+  // A review thread's pin label asks for its field: the same highlight as a warning's "fix" link.
+  const marks = useFieldMarks();
+  const askedField = marks?.highlighted ?? null;
+  useEffect(() => {
+    if (!askedField) return;
+    // After the frame that closed a sheet over the field, so the field can take the focus.
+    const timer = setTimeout(() => showField(askedField.path), 0);
+    return () => clearTimeout(timer);
+  }, [askedField, showField]);
 
   const pickPreset = (preset: Preset) => {
     const previous = bench.applyPreset(preset);
@@ -209,6 +223,33 @@ export function Workbench({
           {header}
           {editor}
         </ScrollView>
+        {aside ? (
+          <ScrollView style={styles.asidePane} contentContainerStyle={[styles.column, pad]}>
+            {aside}
+          </ScrollView>
+        ) : null}
+        <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
+          {blocked}
+          {graphics}
+          {warnings}
+          {readout}
+          {table}
+        </ScrollView>
+      </View>
+    );
+  }
+
+  if (aside) {
+    // The review takes the middle column; the figures, read-out and table share the last one.
+    return (
+      <View style={[styles.root, styles.row]} testID="workbench-wide">
+        <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
+          {header}
+          {editor}
+        </ScrollView>
+        <ScrollView style={styles.asidePane} contentContainerStyle={[styles.column, pad]}>
+          {aside}
+        </ScrollView>
         <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
           {blocked}
           {graphics}
@@ -247,6 +288,7 @@ const styles = StyleSheet.create({
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   editorPane: { width: 360, flexGrow: 0, flexShrink: 0, borderRightWidth: 1, borderRightColor: colors.line },
   flexPane: { flex: 1 },
+  asidePane: { width: 420, flexGrow: 0, flexShrink: 0, borderRightWidth: 1, borderRightColor: colors.line },
   resultsPane: { width: 480, flexGrow: 0, flexShrink: 0, borderLeftWidth: 1, borderLeftColor: colors.line },
   dimmed: { opacity: 0.45 },
 });
