@@ -4,6 +4,7 @@ import type { Database } from '../../db/client';
 import { designs, designVersions, memberships, shareLinks, teams, users } from '../../db/schema';
 import type { DesignSort, VersionSummary } from '../../shared/notebooks';
 import type { Role } from '../../shared/teams';
+import { reviewTransfer, type ReviewTransfer } from './review-transfer';
 
 export type DesignRow = typeof designs.$inferSelect;
 export type DesignInsert = typeof designs.$inferInsert;
@@ -267,6 +268,12 @@ function queries(db: Database) {
         .orderBy(sql`tag`);
       return rows.map((row) => row.tag);
     },
+
+    /** A design's threads and decisions as a notebook file carries them (export). */
+    fileReview: (designId: string) => reviewTransfer(db).read(designId),
+
+    /** An imported file's threads and decisions, written inside the import's transaction. */
+    insertFileReview: (...args: Parameters<ReviewTransfer['insert']>) => reviewTransfer(db).insert(...args),
 
     async insertDesign(design: DesignInsert, versions: VersionInsert[]) {
       await db.insert(designs).values(design);

@@ -9,6 +9,7 @@ import {
   type DesignListResponse,
   type Notebook,
   type NotebookFile,
+  type NotebookFileReview,
   type NotebookWithVersionResponse,
   type ShareLink,
   type SharedVersionResponse,
@@ -72,16 +73,18 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
     return { design, version };
   }
 
-  /** A new design with its versions, all by `user`, in one transaction. */
+  /** A new design with its versions, all by `user` (and an imported file's review), in one transaction. */
   async function insertNotebook(
     user: User,
     design: Omit<NewDesign, 'createdBy' | 'createdAt'>,
     versions: (Omit<NewVersion, 'authorId' | 'createdAt'> & { createdAt?: Date })[],
+    review?: NotebookFileReview,
   ): Promise<NotebookWithVersionResponse> {
     const now = clock.now();
     const id = await store.writes.insertDesign(
       { ...design, createdBy: user.id, createdAt: now },
       versions.map((v) => ({ ...v, authorId: user.id, createdAt: v.createdAt ?? now })),
+      review,
     );
     return withVersion(user, id, versions.length);
   }
@@ -291,10 +294,14 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
         baselineVersion: design.baselineVersion,
         clonedFrom: design.clonedFrom && { title: design.clonedFrom.title, version: design.clonedFrom.version },
         versions: await store.fileVersions(designId),
+        review: await store.fileReview(designId),
       };
     },
 
-    /** The file was validated whole by the router; every version goes in one transaction or none does. */
+    /**
+     * The file was validated whole by the router; every version, thread and decision goes in one
+     * transaction or none does. Review rows keep the file's names and no person ids.
+     */
     async importFile(user: User, teamId: string, file: NotebookFile): Promise<NotebookWithVersionResponse> {
       await teamAccess.require(teamId, user.id, 'designs.edit');
       return insertNotebook(
@@ -313,6 +320,7 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
           params: storedDesignSchema.parse(v.params),
           createdAt: new Date(v.createdAt),
         })),
+        file.review,
       );
     },
   };

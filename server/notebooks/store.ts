@@ -5,6 +5,7 @@ import type {
   DesignListResponse,
   Notebook,
   NotebookFile,
+  NotebookFileReview,
   ShareLink,
   Version,
   VersionHeader,
@@ -197,10 +198,14 @@ export function createNotebooksStore({ repository, roles }: NotebooksStoreDeps) 
   const writes = {
     /** A new design with its versions numbered from 1, in one transaction; answers its id. */
     insertDesign: write({
-      run: async (design: NewDesign, versions: NewVersion[]) => {
+      run: async (design: NewDesign, versions: NewVersion[], review?: NotebookFileReview) => {
         const id = randomUUID();
         const rows = versions.map((version, index) => versionRow(id, index + 1, version));
-        await repository.inTransaction((repo) => repo.insertDesign(designRow(id, design, rows.length), rows));
+        await repository.inTransaction(async (repo) => {
+          await repo.insertDesign(designRow(id, design, rows.length), rows);
+          // An imported file's threads and decisions go in with its versions, or nothing does.
+          if (review) await repo.insertFileReview(id, review, versions.map((v) => v.params));
+        });
         return id;
       },
       changed: (_id, design) => [{ teamDesigns: design.teamId }],
@@ -340,6 +345,9 @@ export function createNotebooksStore({ repository, roles }: NotebooksStoreDeps) 
         authorName: v.authorName,
       }));
     },
+
+    /** The design's threads and decisions as a notebook file holds them (read fresh: exports are rare). */
+    fileReview: (designId: string): Promise<NotebookFileReview> => repository.fileReview(designId),
 
     /** The design's share links, newest first; `active` as of `now`. */
     async shareLinks(designId: string, now: Date): Promise<ShareLink[]> {

@@ -1,12 +1,26 @@
 import { z } from 'zod';
 import { storedDesignSchema } from '../design';
+import {
+  decisionOutcomeSchema,
+  pinSchema,
+  recordDecisionRequestSchema,
+  remarkBodySchema,
+  threadStatusSchema,
+} from '../reviews';
 import { notebookWithVersionResponseSchema } from './designs';
 import { designTitleSchema, notesSchema, tagsSchema, versionMessageSchema } from './fields';
 import { versionNumberSchema } from './version-number';
 
 export const notebookFileKind = 'blazebook-notebook';
-export const notebookFormatVersion = 1;
+/** The format this version writes. It still reads format 1, which has no review data. */
+export const notebookFormatVersion = 2;
+export const readableFormatVersions = [1, 2] as const;
 export const maxFileVersions = 1000;
+export const maxFileThreads = 2000;
+export const maxFileRemarksPerThread = 500;
+export const maxFileEarlierBodies = 500;
+export const maxFileStatusEvents = 500;
+export const maxFileDecisions = 2000;
 
 /** Unknown keys in a file are named, so a typo surfaces instead of being dropped. */
 const unknownFields = {
@@ -34,17 +48,128 @@ export const notebookFileVersionSchema = z.strictObject(
 );
 export type NotebookFileVersion = z.infer<typeof notebookFileVersionSchema>;
 
+const fileDateTime = z.iso.datetime({ error: 'must be a date and time such as 2026-03-14T09:00:00Z' });
+/** People are named, not identified: an account here means nothing to another installation. */
+const fileName = z
+  .string({ error: (issue) => (issue.input === undefined ? 'is required' : 'must be a name') })
+  .trim()
+  .min(1, { error: 'is required' })
+  .max(200, { error: 'must be at most 200 characters' });
+/** A design field's value (a number or a choice), as the thread's version had it. */
+const filePinnedValue = z.union([z.number(), z.string().max(200), z.boolean(), z.null()], {
+  error: 'must be a number, text, true, false or null',
+});
+
+export const notebookFileRemarkSchema = z
+  .strictObject(
+    {
+      authorName: fileName,
+      /** Null once removed: the thread still shows that a remark was there. */
+      body: remarkBodySchema.nullable(),
+      createdAt: fileDateTime,
+      editedAt: fileDateTime.nullable().default(null),
+      earlierBodies: z
+        .array(z.strictObject({ body: remarkBodySchema, replacedAt: fileDateTime }, unknownFields), {
+          error: 'must be a list of earlier texts',
+        })
+        .max(maxFileEarlierBodies, { error: `must hold at most ${maxFileEarlierBodies} earlier texts` })
+        .default([]),
+      removedAt: fileDateTime.nullable().default(null),
+    },
+    unknownFields,
+  )
+  .superRefine((remark, ctx) => {
+    if (remark.body === null && remark.removedAt === null)
+      ctx.addIssue({ code: 'custom', path: ['removedAt'], message: 'is required when the body is null (a removed remark)' });
+    if (remark.body !== null && remark.removedAt !== null)
+      ctx.addIssue({ code: 'custom', path: ['body'], message: 'must be null for a removed remark' });
+  });
+export type NotebookFileRemark = z.infer<typeof notebookFileRemarkSchema>;
+
+export const notebookFileThreadSchema = z
+  .strictObject(
+    {
+      /** The version of this file the thread was started on. */
+      version: versionNumberSchema,
+      pin: pinSchema,
+      /** Field pins only: the field's value on that version. Informative: import reads it from the version. */
+      pinnedValue: filePinnedValue.optional(),
+      status: threadStatusSchema,
+      createdByName: fileName,
+      createdAt: fileDateTime,
+      resolvedByName: fileName.nullable().default(null),
+      resolvedAt: fileDateTime.nullable().default(null),
+      statusEvents: z
+        .array(z.strictObject({ status: threadStatusSchema, byName: fileName, at: fileDateTime }, unknownFields), {
+          error: 'must be a list of resolves and reopens',
+        })
+        .max(maxFileStatusEvents, { error: `must hold at most ${maxFileStatusEvents} events` })
+        .default([]),
+      remarks: z
+        .array(notebookFileRemarkSchema, { error: 'must be a list of remarks' })
+        .min(1, { error: 'must hold at least one remark' })
+        .max(maxFileRemarksPerThread, { error: `must hold at most ${maxFileRemarksPerThread} remarks` }),
+    },
+    unknownFields,
+  )
+  // Like the file's own check below, this may run on an entry with other failed fields.
+  .superRefine((thread, ctx) => {
+    if (thread.pinnedValue !== undefined && thread.pin?.kind !== 'field')
+      ctx.addIssue({ code: 'custom', path: ['pinnedValue'], message: 'is only for threads pinned to a field' });
+    if (thread.status === 'resolved' && thread.resolvedAt === null)
+      ctx.addIssue({ code: 'custom', path: ['resolvedAt'], message: 'is required for a resolved thread' });
+    if (thread.status === 'open' && thread.resolvedAt !== null)
+      ctx.addIssue({ code: 'custom', path: ['resolvedAt'], message: 'must be null for an open thread' });
+    if (thread.status === 'open' && thread.resolvedByName !== null)
+      ctx.addIssue({ code: 'custom', path: ['resolvedByName'], message: 'must be null for an open thread' });
+  });
+export type NotebookFileThread = z.infer<typeof notebookFileThreadSchema>;
+
+export const notebookFileDecisionSchema = z.strictObject(
+  {
+    /** The version of this file it was recorded on; a decision never moves to another version. */
+    version: versionNumberSchema,
+    reviewerName: fileName,
+    outcome: decisionOutcomeSchema,
+    summary: recordDecisionRequestSchema.shape.summary,
+    createdAt: fileDateTime,
+  },
+  unknownFields,
+);
+export type NotebookFileDecision = z.infer<typeof notebookFileDecisionSchema>;
+
+/**
+ * The design review carried by a file (format 2): threads with their remarks, and decisions.
+ * Review requests stay behind (they are addressed to people of one installation), and mentions
+ * are not carried as ids: the `@names` stay in the text.
+ */
+export const notebookFileReviewSchema = z.strictObject(
+  {
+    threads: z
+      .array(notebookFileThreadSchema, { error: 'must be a list of threads' })
+      .max(maxFileThreads, { error: `must hold at most ${maxFileThreads} threads` })
+      .default([]),
+    decisions: z
+      .array(notebookFileDecisionSchema, { error: 'must be a list of decisions' })
+      .max(maxFileDecisions, { error: `must hold at most ${maxFileDecisions} decisions` })
+      .default([]),
+  },
+  unknownFields,
+);
+export type NotebookFileReview = z.infer<typeof notebookFileReviewSchema>;
+
 /**
  * Our own JSON file for one notebook, documented in DEVELOPERS.md. Summaries are not part of it:
  * the importing server recomputes them with its solver. Version numbers must run 1, 2, … n in
- * order, every parent must be an earlier version, and the baseline must be one of them.
+ * order, every parent must be an earlier version, and the baseline must be one of them, as must
+ * every thread's and decision's `version`.
  */
 export const notebookFileSchema = z
   .strictObject(
     {
       kind: z.literal(notebookFileKind, { error: `must be "${notebookFileKind}"` }),
-      formatVersion: z.literal(notebookFormatVersion, {
-        error: `must be ${notebookFormatVersion} (the only format this version reads)`,
+      formatVersion: z.literal(readableFormatVersions, {
+        error: `must be ${readableFormatVersions.join(' or ')} (the formats this version reads)`,
       }),
       exportedAt: z.iso.datetime().optional(),
       title: designTitleSchema,
@@ -58,6 +183,8 @@ export const notebookFileSchema = z
         .array(notebookFileVersionSchema, { error: 'must be a list of versions' })
         .min(1, { error: 'must hold at least one version' })
         .max(maxFileVersions, { error: `must hold at most ${maxFileVersions} versions` }),
+      /** Format 2 only; a file without it carries no review data. */
+      review: notebookFileReviewSchema.optional(),
     },
     unknownFields,
   )
@@ -96,6 +223,27 @@ export const notebookFileSchema = z
           code: 'custom',
           path: ['baselineVersion'],
           message: 'must be one of the versions in the file',
+        });
+      }
+      if (file.review !== undefined && file.formatVersion === 1) {
+        ctx.addIssue({ code: 'custom', path: ['review'], message: 'is not part of format 1 (use formatVersion 2)' });
+      }
+      const review: unknown = file.review;
+      if (typeof review !== 'object' || review === null) return;
+      for (const list of ['threads', 'decisions'] as const) {
+        const entries: unknown[] = Array.isArray((review as Record<string, unknown>)[list])
+          ? ((review as Record<string, unknown>)[list] as unknown[])
+          : [];
+        entries.forEach((raw, index) => {
+          if (typeof raw !== 'object' || raw === null) return;
+          const { version } = raw as { version?: unknown };
+          if (typeof version === 'number' && Number.isInteger(version) && version > versions.length) {
+            ctx.addIssue({
+              code: 'custom',
+              path: ['review', list, index, 'version'],
+              message: 'must be one of the versions in the file',
+            });
+          }
         });
       }
     },

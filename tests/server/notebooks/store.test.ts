@@ -33,7 +33,7 @@ const listFilter = {
 } as const;
 
 /** The repository's methods that change the database; the store may call these only from `writes`. */
-const repositoryWrites = ['inTransaction', 'insertDesign', 'saveManyIfLatest', 'updateDesign', 'insertShareLink', 'revokeShareLink'];
+const repositoryWrites = ['inTransaction', 'insertDesign', 'saveManyIfLatest', 'updateDesign', 'insertShareLink', 'revokeShareLink', 'insertFileReview'];
 const repositoryReads = [
   'designForUser',
   'versionForUser',
@@ -46,6 +46,7 @@ const repositoryReads = [
   'teamTags',
   'shareLinks',
   'shareLinkByTokenHash',
+  'fileReview',
 ];
 
 function recorded(repository: NotebooksRepository): NotebooksRepository {
@@ -173,6 +174,7 @@ describe('the notebooks store', () => {
       listPage: () => store.listPage(listFilter, 'owner', 1),
       versionHeaders: () => store.versionHeaders(designId),
       fileVersions: () => store.fileVersions(designId),
+      fileReview: () => store.fileReview(designId),
       shareLinks: () => store.shareLinks(designId, at),
       personalTeamOf: () => store.personalTeamOf(owner.id),
       shareLinkByTokenHash: () => store.shareLinkByTokenHash('no such hash'),
