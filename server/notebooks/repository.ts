@@ -3,7 +3,9 @@ import { alias } from 'drizzle-orm/pg-core';
 import type { Database } from '../../db/client';
 import { designs, designVersions, memberships, shareLinks, teams, users } from '../../db/schema';
 import type { DesignSort, VersionSummary } from '../../shared/notebooks';
+import type { ReviewState } from '../../shared/reviews';
 import type { Role } from '../../shared/teams';
+import { reviewStateSql } from '../reviews/repository';
 import { reviewTransfer, type ReviewTransfer } from './review-transfer';
 
 export type DesignRow = typeof designs.$inferSelect;
@@ -17,7 +19,7 @@ const author = alias(users, 'author');
 const linkCreator = alias(users, 'link_creator');
 
 /** A design as the API shows it: the row, its creator's name and the caller's role (null: not a member). */
-export type DesignView = DesignRow & { creatorName: string | null; role: Role | null };
+export type DesignView = DesignRow & { creatorName: string | null; latestReviewState: ReviewState; role: Role | null };
 
 export type VersionView = {
   number: number;
@@ -46,6 +48,7 @@ const designColumns = {
   createdAt: designs.createdAt,
   updatedAt: designs.updatedAt,
   creatorName: creator.displayName,
+  latestReviewState: reviewStateSql(designs.id, designs.latestVersion),
 };
 
 const versionHeaderColumns = {
@@ -65,7 +68,7 @@ const fullVersionColumns = {
 };
 
 export type SaveIfLatest = { version: VersionInsert; baseVersion: number };
-export type SavedDesign = DesignRow & { creatorName: string | null };
+export type SavedDesign = DesignRow & { creatorName: string | null; latestReviewState: ReviewState };
 
 /** A `designs` row as raw SQL returns it: snake_case, timestamps as text. */
 type SavedDesignRow = {
@@ -84,6 +87,7 @@ type SavedDesignRow = {
   created_at: string;
   updated_at: string;
   creator_name: string | null;
+  latest_review_state: ReviewState;
 };
 
 function fromSavedRow(row: SavedDesignRow): SavedDesign {
@@ -103,6 +107,7 @@ function fromSavedRow(row: SavedDesignRow): SavedDesign {
     createdAt: new Date(row.created_at),
     updatedAt: new Date(row.updated_at),
     creatorName: row.creator_name,
+    latestReviewState: row.latest_review_state,
   };
 }
 
@@ -116,6 +121,8 @@ export type ListFilter = {
   q?: string;
   tag?: string;
   sort: DesignSort;
+  /** Only designs whose latest version is in this review state. */
+  review?: ReviewState;
   dir: 'asc' | 'desc';
   archived: 'exclude' | 'include' | 'only';
   limit: number;
@@ -239,6 +246,7 @@ function queries(db: Database) {
       if (filter.archived === 'only') conditions.push(eq(designs.archived, true));
       if (filter.q) conditions.push(ilike(designs.title, likePattern(filter.q)));
       if (filter.tag) conditions.push(sql`${designs.tags} @> array[${filter.tag}]::text[]`);
+      if (filter.review) conditions.push(sql`${reviewStateSql(designs.id, designs.latestVersion)} = ${filter.review}`);
       const order = filter.dir === 'asc' ? asc : desc;
       const sortKey =
         filter.sort === 'title'
@@ -309,7 +317,8 @@ function queries(db: Database) {
           select i.version_id, m.id, m.latest_version, i.params, i.notes, i.message, i.author_id, i.parent_number, i.summary, i.at
           from moved m join input i on i.design_id = m.id
         )
-        select m.*, (select u.display_name from ${users} u where u.id = m.created_by) as creator_name
+        select m.*, (select u.display_name from ${users} u where u.id = m.created_by) as creator_name,
+          ${reviewStateSql(sql`m.id`, sql`m.latest_version`)} as latest_review_state
         from moved m`)) as unknown as { rows: SavedDesignRow[] };
       const byId = new Map(result.rows.map((row) => [row.id, fromSavedRow(row)]));
       return saves.map(({ version }) => byId.get(version.designId) ?? null);

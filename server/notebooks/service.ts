@@ -105,6 +105,7 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
         teamId,
         q: query.q || undefined,
         tag: query.tag,
+        review: query.review,
         sort: query.sort,
         dir: query.dir ?? (query.sort === 'updated' ? 'desc' : 'asc'),
         archived: query.archived,

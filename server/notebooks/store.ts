@@ -11,6 +11,7 @@ import type {
   VersionHeader,
   VersionResponse,
 } from '../../shared/notebooks';
+import type { ReviewState } from '../../shared/reviews';
 import type { Role } from '../../shared/teams';
 import { deepFreeze } from '../http/json';
 import { createReadCache } from '../read-cache';
@@ -32,7 +33,7 @@ import { summarizeVersion } from './summary';
 /** A design as the API shows it, before the caller's role is added. */
 export type DesignFields = Omit<Notebook, 'role'>;
 
-function toDesign(row: DesignRow & { creatorName: string | null }): DesignFields {
+function toDesign(row: DesignRow & { creatorName: string | null; latestReviewState: ReviewState }): DesignFields {
   return {
     id: row.id,
     teamId: row.teamId,
@@ -49,6 +50,7 @@ function toDesign(row: DesignRow & { creatorName: string | null }): DesignFields
         ? { designId: row.clonedFromDesignId, title: row.clonedFromTitle, version: row.clonedFromVersion }
         : null,
     importedAt: row.importedAt?.toISOString() ?? null,
+    latestReviewState: row.latestReviewState,
   };
 }
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { designSchema } from '../design';
+import { reviewStateSchema } from '../reviews';
 import { roleSchema } from '../teams';
 import { designTitleSchema, notesSchema, personSchema, tagsSchema, versionMessageSchema } from './fields';
 import { versionSchema } from './versions';
@@ -31,6 +32,8 @@ export const notebookSchema = z.object({
    * <date>"); null for one made here or cloned. Not written into exported files.
    */
   importedAt: z.iso.datetime().nullable(),
+  /** The review state of the latest version (a decision never moves to a new version). */
+  latestReviewState: reviewStateSchema,
   /** The caller's role in the design's team (the client hides buttons with `can`). */
   role: roleSchema,
 });

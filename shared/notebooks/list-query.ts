@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { reviewStateSchema } from '../reviews';
 import { notebookSchema } from './designs';
 import { tagSchema } from './fields';
 
@@ -10,7 +11,7 @@ export const maxPageSize = 100;
 export const maxPage = 1_000_000;
 
 /**
- * `GET /api/teams/:teamId/designs?q=&tag=&sort=&dir=&page=&pageSize=&archived=`. Designs with a
+ * `GET /api/teams/:teamId/designs?q=&tag=&sort=&dir=&page=&pageSize=&archived=&review=`. Designs with a
  * baseline always come first; `sort` orders within each group. `dir` defaults to ascending for
  * title and owner, descending (newest first) for updated.
  */
@@ -37,6 +38,8 @@ export const listDesignsQuerySchema = z.object({
   archived: z
     .enum(['exclude', 'include', 'only'], { error: 'must be exclude, include or only' })
     .default('exclude'),
+  /** Only designs whose latest version is in this review state. */
+  review: reviewStateSchema.optional(),
 });
 export type ListDesignsQuery = z.input<typeof listDesignsQuerySchema>;
 
