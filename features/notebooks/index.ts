@@ -1,5 +1,6 @@
 export { CompareScreen } from './components/compare-screen';
 export { MarkdownView } from './components/markdown-view';
+export { openableHref, parseMarkdown, type Inline } from './markdown';
 export { NotebookListScreen } from './components/notebook-list-screen';
 export { NotebookScreen } from './components/notebook-screen';
 export { NotebooksHomeScreen } from './components/notebooks-home-screen';

@@ -7,15 +7,44 @@ import MarkdownIt, { type Token } from 'markdown-it';
  * way the hand-written reader did. micromark (mdast-util-from-markdown 2.0.2) was measured first
  * and is not: `"*a"` × 40,000 took 36 s and 4,000 nested lists 23 s (`npm run bench:markdown`
  * gives markdown-it's figures). The tokens become a tree of plain strings, never HTML, so notes
- * can only ever become React Native `Text`: with `html: false` a `<script>` is read as the
- * characters it is, and a link keeps its text and shows its address as text, never as an anchor.
+ * and remarks can only ever become React Native `Text`: with `html: false` a `<script>` or an
+ * `<img onerror>` is read as the characters it is. A link becomes a `link` span only when its
+ * address is an absolute http:, https: or mailto: URL (`openableHref`); any other address
+ * (javascript:, data:, vbscript:, file:, a relative path) keeps its text and shows the address
+ * as text, never as an anchor.
  */
 
 export type Inline =
   | { kind: 'text'; text: string }
   | { kind: 'em'; children: Inline[] }
   | { kind: 'strong'; children: Inline[] }
-  | { kind: 'code'; text: string };
+  | { kind: 'code'; text: string }
+  /** `href` is the URL parser's normal form of an http:, https: or mailto: address. */
+  | { kind: 'link'; href: string; children: Inline[] }
+  /** `@name` of one of the names the caller passed as mentions (a remark's mentioned people). */
+  | { kind: 'mention'; name: string };
+
+export type ReadOptions = {
+  /** Display names whose `@Name` is drawn as a mention; any other `@` text stays text. */
+  mentions?: readonly string[];
+};
+
+const openableSchemes: ReadonlySet<string> = new Set(['http:', 'https:', 'mailto:']);
+
+/**
+ * The address a link may open: absolute http:, https: and mailto: URLs only, as the URL parser
+ * normalises them (scheme and host lower-cased, spaces and quotes escaped). Anything the parser
+ * refuses or that has another scheme, a relative path included, is null.
+ */
+export function openableHref(address: string): string | null {
+  let url: URL;
+  try {
+    url = new URL(address);
+  } catch {
+    return null;
+  }
+  return openableSchemes.has(url.protocol) ? url.href : null;
+}
 
 export type Block =
   | { kind: 'heading'; level: 1 | 2 | 3; children: Inline[] }
@@ -36,18 +65,94 @@ const reader = new MarkdownIt('commonmark', {
 });
 
 /** Reads notes into blocks. Quotes are flattened into the blocks they hold; nested lists follow their item. */
-export function parseMarkdown(source: string): Block[] {
-  return toBlocks(reader.parse(source, {}));
+export function parseMarkdown(source: string, options: ReadOptions = {}): Block[] {
+  const blocks = toBlocks(reader.parse(source, {}));
+  const names = mentionNames(options.mentions);
+  if (names.length === 0) return blocks;
+  return blocks.map((block) => {
+    switch (block.kind) {
+      case 'heading':
+      case 'paragraph':
+        return { ...block, children: markMentions(block.children, names) };
+      case 'list':
+        return { ...block, items: block.items.map((item) => markMentions(item, names)) };
+      default:
+        return block;
+    }
+  });
 }
 
 /** The inline spans of a one-line snippet (no block syntax is read). */
-export function parseInline(text: string): Inline[] {
-  return toInline(reader.parseInline(text, {})[0]?.children ?? []);
+export function parseInline(text: string, options: ReadOptions = {}): Inline[] {
+  return markMentions(toInline(reader.parseInline(text, {})[0]?.children ?? []), mentionNames(options.mentions));
 }
 
 /** The plain text of inline spans (for accessibility labels and tests). */
 export function inlineText(spans: readonly Inline[]): string {
-  return spans.map((span) => (span.kind === 'text' || span.kind === 'code' ? span.text : inlineText(span.children))).join('');
+  return spans
+    .map((span) => {
+      switch (span.kind) {
+        case 'text':
+        case 'code':
+          return span.text;
+        case 'mention':
+          return `@${span.name}`;
+        default:
+          return inlineText(span.children);
+      }
+    })
+    .join('');
+}
+
+/** Longest first, so `@Ana Lima` is one mention even when `Ana` is a name too. */
+function mentionNames(names: readonly string[] | undefined): string[] {
+  return [...new Set((names ?? []).filter((name) => name.trim() !== ''))].sort((a, b) => b.length - a.length);
+}
+
+const wordCharacter = /[\p{L}\p{N}_]/u;
+
+/**
+ * Splits text spans at each `@Name` of `names` that stands alone (no letter, digit or `_` just
+ * before the `@` or just after the name, so an e-mail address or a longer name is not one). Names
+ * are compared as plain strings, never as patterns, so any character in a name is literal. Code
+ * spans are left as written.
+ */
+function markMentions(spans: Inline[], names: readonly string[]): Inline[] {
+  if (names.length === 0) return spans;
+  const out: Inline[] = [];
+  for (const span of spans) {
+    switch (span.kind) {
+      case 'text':
+        splitMentions(span.text, names, out);
+        break;
+      case 'em':
+      case 'strong':
+      case 'link':
+        out.push({ ...span, children: markMentions(span.children, names) });
+        break;
+      default:
+        out.push(span);
+    }
+  }
+  return out;
+}
+
+function splitMentions(text: string, names: readonly string[], out: Inline[]): void {
+  let from = 0;
+  for (let at = text.indexOf('@'); at !== -1; at = text.indexOf('@', at + 1)) {
+    if (at > 0 && wordCharacter.test(text[at - 1]!)) continue;
+    const name = names.find((candidate) => {
+      if (!text.startsWith(candidate, at + 1)) return false;
+      const after = text[at + 1 + candidate.length];
+      return after === undefined || !wordCharacter.test(after);
+    });
+    if (name === undefined) continue;
+    appendText(out, text.slice(from, at));
+    out.push({ kind: 'mention', name });
+    from = at + 1 + name.length;
+    at = from - 1;
+  }
+  appendText(out, text.slice(from));
 }
 
 type ListFrame = { ordered: boolean; next: number; block: ListBlock | null };
@@ -148,7 +253,8 @@ function toBlocks(tokens: readonly Token[]): Block[] {
 
 type Mark =
   | { kind: 'em' | 'strong' | 'flat'; children: Inline[] }
-  | { kind: 'link'; children: Inline[]; href: string; autolink: boolean };
+  /** `openable`: the link span whose children these are; null when the link stays text. */
+  | { kind: 'link'; children: Inline[]; href: string; autolink: boolean; openable: Extract<Inline, { kind: 'link' }> | null };
 
 /**
  * Emphasis is paired after the parser's nesting guard has run, so 20,000 `*` around a word still
@@ -180,18 +286,34 @@ function toInline(tokens: readonly Token[]): Inline[] {
         styled++;
         break;
       }
-      case 'link_open':
-        // A link is drawn as its text: the children go straight into the enclosing span.
-        marks.push({ kind: 'link', children: current(), href: String(token.attrGet('href') ?? ''), autolink: token.markup === 'autolink' });
+      case 'link_open': {
+        const href = String(token.attrGet('href') ?? '');
+        const autolink = token.markup === 'autolink';
+        const safe = openableHref(href);
+        if (safe === null) {
+          // Drawn as its text: the children go straight into the enclosing span.
+          marks.push({ kind: 'link', children: current(), href, autolink, openable: null });
+          break;
+        }
+        const span = { kind: 'link' as const, href: safe, children: [] as Inline[] };
+        current().push(span);
+        marks.push({ kind: 'link', children: span.children, href, autolink, openable: span });
         break;
+      }
       case 'em_close':
       case 'strong_close':
         if (marks.pop()?.kind !== 'flat') styled--;
         break;
       case 'link_close': {
         const link = marks.pop();
+        if (link?.kind !== 'link') break;
+        if (link.openable) {
+          // `[](https://…)` still needs something to press.
+          if (link.openable.children.length === 0) appendText(link.openable.children, link.openable.href);
+          break;
+        }
         // The address is shown as text so it can be read and copied; an autolink already shows it.
-        if (link?.kind === 'link' && !link.autolink && link.href) appendText(current(), ` (${link.href})`);
+        if (!link.autolink && link.href) appendText(current(), ` (${link.href})`);
         break;
       }
       case 'code_inline':

@@ -2,6 +2,7 @@ import { useMemo, type ReactNode } from 'react';
 import { Text as RNText, StyleSheet, View } from 'react-native';
 import { Text, colors, fonts, radius, space, type } from '@/features/ui';
 import { parseMarkdown, type Inline } from '../markdown';
+import { MarkdownLink } from './markdown-link';
 
 function renderInline(spans: readonly Inline[], keyPrefix: string): ReactNode[] {
   return spans.map((span, index) => {
@@ -27,17 +28,44 @@ function renderInline(spans: readonly Inline[], keyPrefix: string): ReactNode[] 
             {renderInline(span.children, key)}
           </RNText>
         );
+      case 'link':
+        return (
+          <MarkdownLink key={key} href={span.href} style={styles.link}>
+            {renderInline(span.children, key)}
+          </MarkdownLink>
+        );
+      case 'mention':
+        return (
+          <RNText key={key} aria-label={`mention of ${span.name}`} style={styles.mention}>
+            @{span.name}
+          </RNText>
+        );
     }
   });
 }
 
-/** Version notes, read by markdown-it (see `markdown.ts`) and drawn with `Text` only: no HTML ever. */
-export function MarkdownView({ source, testID }: { source: string; testID?: string }) {
-  const blocks = useMemo(() => parseMarkdown(source), [source]);
+type Props = {
+  source: string;
+  testID?: string;
+  /** Display names whose `@Name` is drawn as a mention (a remark's mentioned people). */
+  mentions?: readonly string[];
+  /** What an empty source shows. */
+  emptyText?: string;
+};
+
+/**
+ * Version notes and remarks, read by markdown-it (see `markdown.ts`) and drawn with `Text` only:
+ * HTML is shown as its characters, and only http:, https: and mailto: links are links, which
+ * open outside (a new tab on the web).
+ */
+export function MarkdownView({ source, testID, mentions, emptyText = 'No notes for this version.' }: Props) {
+  // Keyed by the names, not the array, which callers build afresh on every render.
+  const mentionKey = JSON.stringify(mentions ?? []);
+  const blocks = useMemo(() => parseMarkdown(source, { mentions: JSON.parse(mentionKey) as string[] }), [source, mentionKey]);
   if (blocks.length === 0) {
     return (
       <Text tone="muted" testID={testID}>
-        No notes for this version.
+        {emptyText}
       </Text>
     );
   }
@@ -90,6 +118,9 @@ const styles = StyleSheet.create({
   // Nested spans are raw React Native Text so they inherit the paragraph's size and colour.
   strong: { fontFamily: fonts.semibold },
   em: { fontStyle: 'italic' },
+  // Underlined as well as coloured, so a link is told from text without colour (WCAG 1.4.1).
+  link: { color: colors.primary, textDecorationLine: 'underline' },
+  mention: { fontFamily: fonts.semibold, color: colors.primary },
   inlineCode: { fontFamily: fonts.mono, backgroundColor: colors.surfaceSunken, borderRadius: radius.sm, paddingHorizontal: 3 },
   codeBlock: { backgroundColor: colors.surfaceSunken, borderRadius: radius.md, padding: space.md },
   codeText: { ...type.small },

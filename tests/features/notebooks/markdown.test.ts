@@ -100,9 +100,9 @@ describe('the notes reader on pathological notes', () => {
 });
 
 describe('the notes reader keeps notes inert', () => {
-  it('shows a link as its text and address, and leaves a javascript: link as its characters', () => {
-    expect(paragraphText('[grating](https://example.org/g) <https://example.org/h>')).toBe(
-      'grating (https://example.org/g) https://example.org/h',
+  it('shows a relative link as its text and address, an https link as its text (it becomes a link), and a javascript: link as its characters', () => {
+    expect(paragraphText('[v2](/notebooks/a/v/2) [grating](https://example.org/g) <https://example.org/h>')).toBe(
+      'v2 (/notebooks/a/v/2) grating https://example.org/h',
     );
     expect(paragraphText('[x](javascript:alert(1))')).toBe('[x](javascript:alert(1))');
   });
