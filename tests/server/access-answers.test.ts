@@ -10,15 +10,26 @@ import { createNotebook, createNotebookFixture, type NotebookFixture, type Perso
  */
 let fx: NotebookFixture;
 let designId: string;
+/** The owner's thread on v1 and its first remark. */
+let threadId: string;
+let remarkId: string;
 beforeAll(async () => {
   fx = await createNotebookFixture();
   designId = (await createNotebook(fx, 'Guarded')).design.id;
+  const started = await fx.owner.agent
+    .post(`/api/designs/${designId}/versions/1/threads`)
+    .send({ pin: { kind: 'version' }, body: 'Owner’s remark' })
+    .expect(201);
+  threadId = started.body.thread.id;
+  remarkId = started.body.thread.remarks[0].id;
 }, 60_000);
 afterAll(() => fx?.ctx.close());
 
 const madeUp = 'no-such-design';
 const noTeam = { status: 404, code: 'not_found', message: 'No such team.' };
 const noDesign = { status: 404, code: 'not_found', message: 'No such design.' };
+const noThread = { status: 404, code: 'not_found', message: 'No such thread.' };
+const noRemark = { status: 404, code: 'not_found', message: 'No such remark.' };
 const notAllowed = (role: string) => ({ status: 403, code: 'forbidden', message: `A ${role} of this team may not do that.` });
 const save = { baseVersion: 1, params: exampleDesign, notes: '', message: 'Try' };
 
@@ -92,19 +103,65 @@ const cases = {
   },
   'a reviewer lists share links': { who: 'reviewer', method: 'get', path: () => `/api/designs/${designId}/share-links`, answer: notAllowed('reviewer') },
   'an outsider exports': { who: 'outsider', method: 'get', path: () => `/api/designs/${designId}/export`, answer: noDesign },
-  'an outsider reads reviews': { who: 'outsider', method: 'get', path: () => `/api/designs/${designId}/versions/1/reviews`, answer: noDesign },
-  'a viewer comments': {
+  'an outsider reads a version’s review': { who: 'outsider', method: 'get', path: () => `/api/designs/${designId}/versions/1/review`, answer: noDesign },
+  'an outsider reads review states': { who: 'outsider', method: 'get', path: () => `/api/designs/${designId}/review-states`, answer: noDesign },
+  'a viewer starts a thread': {
     who: 'viewer',
     method: 'post',
-    path: () => `/api/designs/${designId}/versions/1/reviews`,
-    body: { body: 'Looks fine.' },
+    path: () => `/api/designs/${designId}/versions/1/threads`,
+    body: { pin: { kind: 'version' }, body: 'Looks fine.' },
     answer: notAllowed('viewer'),
   },
-  'a member reads reviews of a version that does not exist': {
+  'a member reads the review of a version that does not exist': {
     who: 'reviewer',
     method: 'get',
-    path: () => `/api/designs/${designId}/versions/99/reviews`,
+    path: () => `/api/designs/${designId}/versions/99/review`,
     answer: { status: 404, code: 'not_found', message: 'This design has no version 99.' },
+  },
+  'an outsider reads a thread': { who: 'outsider', method: 'get', path: () => `/api/threads/${threadId}`, answer: noThread },
+  'a member reads a made-up thread': { who: 'owner', method: 'get', path: () => '/api/threads/no-such-thread', answer: noThread },
+  'a viewer replies': { who: 'viewer', method: 'post', path: () => `/api/threads/${threadId}/remarks`, body: { body: 'Me too' }, answer: notAllowed('viewer') },
+  'an outsider edits a remark': { who: 'outsider', method: 'patch', path: () => `/api/remarks/${remarkId}`, body: { body: 'Mine' }, answer: noRemark },
+  'a reviewer edits someone else’s remark': {
+    who: 'reviewer',
+    method: 'patch',
+    path: () => `/api/remarks/${remarkId}`,
+    body: { body: 'Mine now' },
+    answer: { status: 403, code: 'forbidden', message: 'You can only edit your own remarks.' },
+  },
+  'a reviewer removes someone else’s remark': {
+    who: 'reviewer',
+    method: 'delete',
+    path: () => `/api/remarks/${remarkId}`,
+    answer: { status: 403, code: 'forbidden', message: 'You can only remove your own remarks.' },
+  },
+  'a reviewer asks for a review': {
+    who: 'reviewer',
+    method: 'post',
+    path: () => `/api/designs/${designId}/versions/1/review-requests`,
+    body: () => ({ reviewerIds: [fx.owner.user.id] }),
+    answer: notAllowed('reviewer'),
+  },
+  'a viewer decides': {
+    who: 'viewer',
+    method: 'post',
+    path: () => `/api/designs/${designId}/versions/1/decisions`,
+    body: { outcome: 'signed-off', summary: 'Fine' },
+    answer: notAllowed('viewer'),
+  },
+  'the author of a version signs it off': {
+    who: 'owner',
+    method: 'post',
+    path: () => `/api/designs/${designId}/versions/1/decisions`,
+    body: { outcome: 'signed-off', summary: 'Mine is fine' },
+    answer: { status: 403, code: 'forbidden', message: 'You wrote v1; another owner or reviewer must decide on it.' },
+  },
+  'an outsider decides': {
+    who: 'outsider',
+    method: 'post',
+    path: () => `/api/designs/${designId}/versions/1/decisions`,
+    body: { outcome: 'signed-off', summary: 'Fine' },
+    answer: noDesign,
   },
 } satisfies Record<string, Case>;
 

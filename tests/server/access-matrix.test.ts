@@ -82,6 +82,17 @@ async function newShareLink(fx: Fixture): Promise<{ id: string; designId: string
   return { id: res.body.link.id, designId, token: res.body.token };
 }
 const designParams = async (fx: Fixture): Promise<Case> => ({ params: { id: await design(fx) } });
+const versionParams = async (fx: Fixture): Promise<Case> => ({ params: { id: await design(fx), n: '1' } });
+/** A thread the owner starts on v1 of the matrix design, with the id of its first remark. */
+async function newThread(fx: Fixture): Promise<{ id: string; remarkId: string }> {
+  const res = await (await fx.agent('owner'))
+    .post(`/api/designs/${await design(fx)}/versions/1/threads`)
+    .send({ pin: { kind: 'version' }, body: 'Matrix thread' })
+    .expect(201);
+  return { id: res.body.thread.id, remarkId: res.body.thread.remarks[0].id };
+}
+let matrixThread: Promise<{ id: string; remarkId: string }> | undefined;
+const thread = (fx: Fixture) => (matrixThread ??= newThread(fx));
 
 let unique = 0;
 const freshEmail = () => `matrix-${(unique += 1)}@example.com`;
@@ -178,10 +189,40 @@ const matrix: Record<string, Row> = {
     },
   },
   'notebooks.exportFile': { prepare: designParams },
-  // Reviews: members read them; owners and reviewers comment and record decisions.
-  'reviews.list': { prepare: async (fx) => ({ params: { id: await design(fx), n: '1' } }) },
-  'reviews.create': {
-    prepare: async (fx) => ({ params: { id: await design(fx), n: '1' }, body: { body: 'Matrix review', decision: 'approved' } }),
+  // Design review: members read it; owners and reviewers write remarks, resolve and decide; owners ask for reviews.
+  'reviews.get': { prepare: versionParams },
+  'reviews.states': { prepare: designParams },
+  'reviews.startThread': {
+    prepare: async (fx) => ({ ...(await versionParams(fx)), body: { pin: { kind: 'field', path: 'slits.exitWidthUm' }, body: 'Matrix remark' } }),
+  },
+  'reviews.getThread': { prepare: async (fx) => ({ params: { threadId: (await thread(fx)).id } }) },
+  'reviews.reply': { prepare: async (fx) => ({ params: { threadId: (await thread(fx)).id }, body: { body: 'Matrix reply' } }) },
+  // Resolving a resolved thread changes nothing and answers 200 too.
+  'reviews.setThreadStatus': { prepare: async (fx) => ({ params: { threadId: (await thread(fx)).id }, body: { status: 'resolved' } }) },
+  // A remark of the owner's, new for each case: only its author edits or removes it, so a reviewer,
+  // who may write remarks, is refused someone else's (403).
+  'reviews.editRemark': {
+    expect: { owner: 200, reviewer: 403, viewer: 403, outsider: 404, anonymous: 401 },
+    prepare: async (fx) => ({ params: { remarkId: (await newThread(fx)).remarkId }, body: { body: 'Matrix edit' } }),
+  },
+  'reviews.removeRemark': {
+    expect: { owner: 200, reviewer: 403, viewer: 403, outsider: 404, anonymous: 401 },
+    prepare: async (fx) => ({ params: { remarkId: (await newThread(fx)).remarkId } }),
+  },
+  'reviews.requestReview': { prepare: async (fx) => ({ ...(await versionParams(fx)), body: { reviewerIds: [fx.users.reviewer.id] } }) },
+  // The owner wrote v1 of the matrix design, and the author of a version never decides on it.
+  'reviews.decide': {
+    expect: { owner: 403, reviewer: 201, viewer: 403, outsider: 404, anonymous: 401 },
+    prepare: async (fx) => ({ ...(await versionParams(fx)), body: { outcome: 'signed-off', summary: 'Matrix sign-off' } }),
+  },
+
+  // What waits for me: each signed-in person's own inbox and e-mail settings.
+  'inbox.list': {},
+  'inbox.unreadCount': {},
+  'inbox.markRead': { prepare: async () => ({ body: { all: true } }) },
+  'inbox.mailSettings': {},
+  'inbox.updateMailSettings': {
+    prepare: async () => ({ body: { reviewRequests: true, mentions: true, threadsOnMyDesigns: false, decisionsOnMyVersions: true } }),
   },
   // The token is the credential: signed in or not, member or not, it shows one version and nothing else.
   'notebooks.shared': { prepare: async (fx) => ({ params: { token: (await newShareLink(fx)).token } }) },

@@ -111,6 +111,13 @@ beforeAll(async () => {
   const id: string = made.body.design.id;
   const team = fx.teamId;
   const design = { id };
+  // The reviewer's thread on v1: its remark is theirs to edit.
+  const started = await fx.reviewer.agent
+    .post(`/api/designs/${id}/versions/1/threads`)
+    .send({ pin: { kind: 'version' }, body: 'Fuzz target' })
+    .expect(201);
+  const threadId: string = started.body.thread.id;
+  const remarkId: string = started.body.thread.remarks[0].id;
   targets = {
     'POST /api/solve': { as: 'anonymous', body: { design: exampleDesign, at: [400, 500] } },
     'POST /api/auth/sign-up': { as: 'anonymous', body: { email: 'fuzz@example.com', displayName: 'Fuzz', password: 'a long enough password' } },
@@ -140,7 +147,25 @@ beforeAll(async () => {
     'POST /api/designs/:id/clone': { as: 'owner', params: design, body: { version: 1, title: 'Clone' } },
     'PUT /api/designs/:id/baseline': { as: 'owner', params: design, body: { version: 1 } },
     'POST /api/designs/:id/share-links': { as: 'owner', params: design, body: { version: 1, expiresAt: '2027-01-01T00:00:00Z' } },
-    'POST /api/designs/:id/versions/:n/reviews': { as: 'reviewer', params: { ...design, n: '1' }, body: { body: 'Looks fine', decision: 'approved' } },
+    'POST /api/designs/:id/versions/:n/threads': {
+      as: 'reviewer',
+      params: { ...design, n: '1' },
+      body: { pin: { kind: 'result', result: 'bandpass', wavelengthNm: 500 }, body: 'Looks wide', mentions: [fx.owner.user.id] },
+    },
+    'POST /api/threads/:threadId/remarks': { as: 'owner', params: { threadId }, body: { body: 'Agreed', mentions: [] } },
+    'PUT /api/threads/:threadId/status': { as: 'owner', params: { threadId }, body: { status: 'resolved' } },
+    'PATCH /api/remarks/:remarkId': { as: 'reviewer', params: { remarkId }, body: { body: 'Edited', mentions: [fx.viewer.user.id] } },
+    'POST /api/designs/:id/versions/:n/review-requests': {
+      as: 'owner',
+      params: { ...design, n: '1' },
+      body: { reviewerIds: [fx.reviewer.user.id], dueDate: '2026-04-01', note: 'Please' },
+    },
+    'POST /api/designs/:id/versions/:n/decisions': { as: 'reviewer', params: { ...design, n: '1' }, body: { outcome: 'signed-off', summary: 'Fine' } },
+    'POST /api/inbox/read': { as: 'owner', body: { all: true } },
+    'PUT /api/account/mail-settings': {
+      as: 'owner',
+      body: { reviewRequests: true, mentions: false, threadsOnMyDesigns: true, decisionsOnMyVersions: true },
+    },
   };
 }, 120_000);
 
@@ -175,7 +200,14 @@ describe.each([
   'POST /api/designs/:id/clone',
   'PUT /api/designs/:id/baseline',
   'POST /api/designs/:id/share-links',
-  'POST /api/designs/:id/versions/:n/reviews',
+  'POST /api/designs/:id/versions/:n/threads',
+  'POST /api/threads/:threadId/remarks',
+  'PUT /api/threads/:threadId/status',
+  'PATCH /api/remarks/:remarkId',
+  'POST /api/designs/:id/versions/:n/review-requests',
+  'POST /api/designs/:id/versions/:n/decisions',
+  'POST /api/inbox/read',
+  'PUT /api/account/mail-settings',
 ])('%s', (route) => {
   it(`answers ${runsPerRoute} hostile bodies without a 500, refusals in the error shape`, async () => {
     const target = targets[route]!;

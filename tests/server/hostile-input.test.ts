@@ -49,7 +49,7 @@ async function snapshot() {
     .expect(200);
   const versions = await fx.owner.agent.get(`/api/designs/${designId}/versions`).expect(200);
   const teams = await fx.owner.agent.get('/api/teams').expect(200);
-  const reviews = await fx.owner.agent.get(`/api/designs/${reviewedDesignId}/versions/1/reviews`).expect(200);
+  const reviews = await fx.owner.agent.get(`/api/designs/${reviewedDesignId}/versions/1/review`).expect(200);
   return JSON.stringify([list.body, versions.body, teams.body, reviews.body]);
 }
 
@@ -133,10 +133,28 @@ describe('NUL characters and lone surrogates in stored text', () => {
       send: () => fx.owner.agent.patch(`/api/teams/${fx.teamId}`).send({ name: value }),
     },
     {
-      what: 'a review comment',
+      what: 'a remark starting a thread',
       field: 'body',
       send: () =>
-        fx.reviewer.agent.post(`/api/designs/${reviewedDesignId}/versions/1/reviews`).send({ body: value }),
+        fx.reviewer.agent
+          .post(`/api/designs/${reviewedDesignId}/versions/1/threads`)
+          .send({ pin: { kind: 'version' }, body: value }),
+    },
+    {
+      what: 'a decision summary',
+      field: 'summary',
+      send: () =>
+        fx.reviewer.agent
+          .post(`/api/designs/${reviewedDesignId}/versions/1/decisions`)
+          .send({ outcome: 'revise', summary: value }),
+    },
+    {
+      what: 'a review request note',
+      field: 'note',
+      send: () =>
+        fx.owner.agent
+          .post(`/api/designs/${reviewedDesignId}/versions/1/review-requests`)
+          .send({ reviewerIds: [fx.reviewer.user.id], note: value }),
     },
     {
       what: 'a clone title',
@@ -217,6 +235,8 @@ describe('NUL characters in paths, query strings and cookies', () => {
     [`/api/teams/%00/designs`, 'teamId'],
     ['/api/teams/x%00', 'teamId'],
     ['/api/designs/a%00b/versions/1', 'id'],
+    ['/api/designs/a%00b/review-states', 'id'],
+    ['/api/threads/a%00b', 'threadId'],
     [`/api/share/${'a'.repeat(30)}%00`, 'token'],
     [`/api/invitations/${'a'.repeat(30)}%00`, 'token'],
   ])('GET %s answers 400 naming %s', async (url, field) => {
@@ -271,7 +291,7 @@ describe('numbers beyond what a version column holds', () => {
 
   it.each([
     [`versions/${tooBig}`, 'n'],
-    [`versions/${tooBig}/reviews`, 'n'],
+    [`versions/${tooBig}/review`, 'n'],
     [`versions/99999999999999999999999`, 'n'],
     [`compare?a=${tooBig}`, 'a'],
     [`compare?b=${tooBig}`, 'b'],
