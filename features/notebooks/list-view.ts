@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { listDesignsQuerySchema, type ListDesignsQuery } from '@/shared/notebooks';
 
 /**
- * The design list's view (search, tag, sort, order, live or archived, page), kept in the URL's
+ * The design list's view (search, tag, review state, sort, order, live or archived, page), kept in the URL's
  * search params so a view can be linked and survives a reload. Each param is read with the list
  * query's own schema; one that does not parse (a typo, a hostile link) falls back to its default
  * on its own, and the rest of the view still applies.
@@ -23,6 +23,8 @@ export const listViewSchema = z.object({
     .catch(undefined)
     .optional(),
   tag: param(fields.tag).catch(undefined),
+  /** The latest version's review state; undefined means every state. */
+  review: param(fields.review).catch(undefined),
   sort: param(fields.sort).catch('updated'),
   /** Undefined: the sort's own default order (newest first for updated, A → Z otherwise). */
   dir: param(fields.dir).catch(undefined),
@@ -54,6 +56,7 @@ export function listViewParams(view: ListView): Record<keyof ListView, string | 
   return {
     q: view.q,
     tag: view.tag,
+    review: view.review,
     sort: view.sort === 'updated' ? undefined : view.sort,
     dir: view.dir,
     archived: view.archived === 'exclude' ? undefined : view.archived,
@@ -77,6 +80,6 @@ export function listViewChangeParams(
 
 /** The request for one page of the list. */
 export function listQuery(view: ListView, pageSize: number): ListDesignsQuery {
-  const { q, tag, sort, dir, page, archived } = view;
-  return { q, tag, sort, dir, page, pageSize, archived };
+  const { q, tag, review, sort, dir, page, archived } = view;
+  return { q, tag, review, sort, dir, page, pageSize, archived };
 }

@@ -1,5 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 import type { DesignSort } from '@/shared/notebooks';
+import { reviewStateLabels, reviewStates, type ReviewState } from '@/shared/reviews';
 import { TextField, space } from '@/features/ui';
 import { useSearchText } from '../hooks/use-search-text';
 import type { ListView } from '../list-view';
@@ -19,7 +20,12 @@ type Props = {
   wide: boolean;
 };
 
-/** Search, sort, order, live or archived, and tag: the design list's view. */
+const reviewOptions: { value: ReviewState | ''; label: string }[] = [
+  { value: '', label: 'All' },
+  ...reviewStates.map((state) => ({ value: state, label: reviewStateLabels[state] })),
+];
+
+/** Search, sort, order, live or archived, review state and tag: the design list's view. */
 export function DesignListFilters({ view, onChange, tags, wide }: Props) {
   const [search, setSearch] = useSearchText(view.q, (q) => onChange({ q }));
   const { sort } = view;
@@ -62,6 +68,13 @@ export function DesignListFilters({ view, onChange, tags, wide }: Props) {
           testID="archived"
         />
       </View>
+      <ChoiceChips
+        label="Review state"
+        options={reviewOptions}
+        value={view.review ?? ''}
+        onChange={(state) => onChange({ review: state || undefined })}
+        testID="review-filter"
+      />
       {tags.length > 0 ? (
         <ChoiceChips
           label="Tag"

@@ -1,12 +1,12 @@
 import { Link, useRouter, type Href } from 'expo-router';
 import { Pressable, StyleSheet, View, type TextStyle } from 'react-native';
 import type { Notebook } from '@/shared/notebooks';
+import { ReviewStateBadge } from '@/features/reviews';
 import { Button, Text, colors, fonts, radius, space, type } from '@/features/ui';
 import { formatDay } from '../format';
 import { baselineChip, importedOriginText } from '../notices';
 import { Badge } from './history-table';
 
-/** Title, owner, updated, latest version, actions: the wide table's columns. */
 /** A row of the wide design table, shared by the header and every design. */
 export const tableRowStyle = StyleSheet.create({
   row: {
@@ -20,11 +20,13 @@ export const tableRowStyle = StyleSheet.create({
   },
 }).row;
 
+/** Title, owner, updated, latest version, its review state, actions: the wide table's columns. */
 export const columnStyle: TextStyle[] = [
   { flex: 3, minWidth: 0 },
   { flex: 1.2, minWidth: 0 },
   { width: 110 },
   { width: 70 },
+  { width: 150 },
   { width: 250 },
 ];
 
@@ -57,6 +59,9 @@ export function DesignRow({ design, wide, ...actions }: Props) {
           v{design.latestVersion}
         </Text>
         <View role="cell" style={columnStyle[4]}>
+          <ReviewStateBadge state={design.latestReviewState} testID={`review-state-${design.title}`} />
+        </View>
+        <View role="cell" style={columnStyle[5]}>
           <RowActions design={design} {...actions} />
         </View>
       </View>
@@ -71,6 +76,9 @@ export function DesignRow({ design, wide, ...actions }: Props) {
       <Text role="cell" variant="small" tone="muted">
         {`${createdBy} · updated ${formatDay(design.updatedAt)} · v${design.latestVersion}`}
       </Text>
+      <View role="cell">
+        <ReviewStateBadge state={design.latestReviewState} testID={`review-state-${design.title}`} />
+      </View>
       {actions.owner ? (
         <View role="cell">
           <RowActions design={design} {...actions} />

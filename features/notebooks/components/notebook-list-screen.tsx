@@ -16,8 +16,8 @@ import { ListPaging } from './list-paging';
 const pageSize = 20;
 
 /**
- * `/teams/:teamId/notebooks?q=&tag=&sort=&dir=&archived=&page=`: the team's designs with search,
- * tag filter, sort and pages, the view kept in the URL so it can be linked.
+ * `/teams/:teamId/notebooks?q=&tag=&review=&sort=&dir=&archived=&page=`: the team's designs with
+ * search, tag and review-state filters, sort and pages, the view kept in the URL so it can be linked.
  */
 export function NotebookListScreen() {
   const { teamId = '' } = useLocalSearchParams<{ teamId: string }>();
@@ -106,7 +106,7 @@ export function NotebookListScreen() {
 }
 
 function emptyText(view: ListView, owner: boolean): string {
-  if (view.q || view.tag) return 'No design matches.';
+  if (view.q || view.tag || view.review) return 'No design matches.';
   if (view.archived === 'only') return 'Nothing is archived.';
   return owner ? 'No designs yet: create the first above.' : 'No designs yet.';
 }

@@ -28,6 +28,9 @@ describe('the design list view in the URL', () => {
     { params: { q: '   ' }, field: 'q', value: undefined },
     { params: { tag: '' }, field: 'tag', value: undefined },
     { params: { tag: 't'.repeat(33) }, field: 'tag', value: undefined },
+    // Not a review state of ours (an old link, or another tool's word).
+    { params: { review: 'approved' }, field: 'review', value: undefined },
+    { params: { review: '' }, field: 'review', value: undefined },
     { params: { sort: 'constructor' }, field: 'sort', value: 'updated' },
     { params: { dir: 'sideways' }, field: 'dir', value: undefined },
     // The server would show both; the screen offers live or archived only.
@@ -97,6 +100,15 @@ describe('the design list view in the URL', () => {
   it('round-trips a view through its params', () => {
     const view: ListView = { q: 'hg lamp', tag: 'uv', sort: 'owner', dir: 'desc', archived: 'only', page: 7 };
     expect(parseListView(listViewParams(view))).toEqual(view);
+  });
+
+  it('keeps the review-state filter in the URL and sends it as review, back at page 1 when it changes', () => {
+    const view = parseListView({ review: 'signed-off-with-remarks', page: '3' });
+    expect(view).toEqual({ ...plain, review: 'signed-off-with-remarks', page: 3 });
+    expect(listViewParams(view).review).toBe('signed-off-with-remarks');
+    expect(listQuery(view, 20).review).toBe('signed-off-with-remarks');
+    expect(listViewChangeParams(view, { review: 'revise' })).toEqual({ review: 'revise', page: undefined });
+    expect(listViewChangeParams(view, { review: undefined })).toEqual({ review: undefined, page: undefined });
   });
 
   it('asks the server for the view’s page with the screen’s page size', () => {
