@@ -2,7 +2,7 @@ import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { fieldLabel } from '../../shared/design-fields';
 import { formatDay } from '../../shared/format';
-import { liveServerAndBrowser, screenshot, viewports } from '../support/browser';
+import { liveServerAndBrowser } from '../support/browser';
 import { demo, eventually, expectNoProblems, person, shown, type Person } from './journeys/journey';
 
 const reviewerAccount = { email: 'tobiah.reviewer@quillmere-lab.example.com', name: 'Tobiah Rennick' };
@@ -196,8 +196,7 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
     await shown(page, 'tab-history').click();
     await eventually(() => shown(page, 'history-review-state-2').textContent()).toBe('Not reviewed');
     expect(await shown(page, 'history-review-state-1').textContent()).toBe('Signed off with remarks');
-    await page.setViewportSize(viewports.wide);
-    await screenshot(page, 'review-decisions-history-wide');
+    await owner.shoot('history');
   });
 
   it('met no console error, no page error and no serious axe finding on the way', async () => {

@@ -26,7 +26,7 @@ export const columnStyle: TextStyle[] = [
   { flex: 1.2, minWidth: 0 },
   { width: 110 },
   { width: 70 },
-  { width: 150 },
+  { width: 160 },
   { width: 250 },
 ];
 
@@ -59,7 +59,7 @@ export function DesignRow({ design, wide, ...actions }: Props) {
           v{design.latestVersion}
         </Text>
         <View role="cell" style={columnStyle[4]}>
-          <ReviewStateBadge state={design.latestReviewState} testID={`review-state-${design.title}`} />
+          <ReviewStateBadge state={design.latestReviewState} compact testID={`review-state-${design.title}`} />
         </View>
         <View role="cell" style={columnStyle[5]}>
           <RowActions design={design} {...actions} />

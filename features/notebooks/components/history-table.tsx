@@ -20,7 +20,7 @@ const columns = ['Version', 'Message', 'Review', 'Author', 'Saved', 'Range', 'Ba
 const columnStyle: TextStyle[] = [
   { width: 72 },
   { flex: 2, minWidth: 0 },
-  { width: 150 },
+  { width: 160 },
   { flex: 1, minWidth: 0 },
   { width: 150 },
   { width: 120 },
@@ -49,7 +49,7 @@ function ReviewCell({ n, state }: { n: number; state: VersionReviewState | undef
   if (!state) return null;
   return (
     <View style={styles.cellStack}>
-      <ReviewStateBadge state={state.state} testID={`history-review-state-${n}`} />
+      <ReviewStateBadge state={state.state} compact testID={`history-review-state-${n}`} />
       {state.openThreads > 0 ? (
         <Text variant="caption" tone="muted" testID={`history-open-threads-${n}`}>
           {openThreadsText(state.openThreads)}

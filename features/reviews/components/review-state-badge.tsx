@@ -11,14 +11,19 @@ const look: Record<ReviewState, { backgroundColor: string; borderColor: string; 
   revise: { backgroundColor: colors.dangerSoft, borderColor: colors.dangerSoft, color: colors.danger },
 };
 
-type Props = { state: ReviewState; testID?: string };
+type Props = {
+  state: ReviewState;
+  /** Smaller type, for a table column where the longest state must fit on one line. */
+  compact?: boolean;
+  testID?: string;
+};
 
 /** A version's review state in words ("Signed off with remarks"), tinted by what it means. */
-export function ReviewStateBadge({ state, testID }: Props) {
+export function ReviewStateBadge({ state, compact = false, testID }: Props) {
   const { backgroundColor, borderColor, color } = look[state];
   return (
     <View style={[styles.badge, { backgroundColor, borderColor }]} testID={testID}>
-      <Text variant="small" weight="semibold" style={{ color }}>
+      <Text variant={compact ? 'caption' : 'small'} weight="semibold" style={{ color }}>
         {reviewStateLabels[state]}
       </Text>
     </View>
