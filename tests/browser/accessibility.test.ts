@@ -46,6 +46,9 @@ const screens = [
   { name: 'compare', path: (f) => `/notebooks/${f.notebookId}/compare?a=1&b=2`, ready: ['compare-heading', 'compare-plot-bandpass'], audiences: members },
   { name: 'share link', path: (f) => f.sharePath, ready: ['shared-title', 'plots-card'], audiences: outAndIn },
   { name: 'outbox', path: () => '/outbox', ready: [{ heading: 'Outbox' }], audiences: outAndIn },
+  // The same for every role (only one's own items and settings): checked as the owner once.
+  { name: 'inbox', path: () => '/inbox', ready: ['inbox-heading', 'inbox-unread-count'], audiences: ['owner'] },
+  { name: 'settings', path: () => '/settings', ready: ['settings-heading', 'mail-setting-mentions'], audiences: ['owner'] },
 ] as const satisfies readonly Screen[];
 
 const readyLocator = (page: Page, item: Screen['ready'][number]): Locator =>

@@ -80,9 +80,11 @@ export function InboxScreen() {
         <View style={styles.toggle}>
           <SwitchRow label="Only unread" value={onlyUnread} onChange={setOnlyUnread} testID="inbox-only-unread" />
         </View>
-        <Text variant="small" tone="muted" testID="inbox-unread-count">
-          {inbox.data ? (unread === 0 ? 'Nothing unread' : `${unread} unread`) : ''}
-        </Text>
+        {inbox.data ? (
+          <Text variant="small" tone="muted" testID="inbox-unread-count">
+            {unread === 0 ? 'Nothing unread' : `${unread} unread`}
+          </Text>
+        ) : null}
         <Button
           kind="secondary"
           label={markRead.isPending ? 'Marking…' : 'Mark all read'}
