@@ -35,6 +35,8 @@ type Props = {
   error: string | null;
   testID: string;
   placeholder?: string;
+  /** Take the focus when shown (a reply box opened from its button). */
+  autoFocus?: boolean;
 };
 
 /**
@@ -42,7 +44,7 @@ type Props = {
  * starts so; choosing one writes `@Display Name ` into the text and remembers their id, which the
  * server checks against the team and tells by inbox and e-mail.
  */
-export function MentionField({ label, value, onChange, chosen, onChoose, members, userId, error, testID, placeholder }: Props) {
+export function MentionField({ label, value, onChange, chosen, onChoose, members, userId, error, testID, placeholder, autoFocus = false }: Props) {
   const query = mentionQuery(value);
   const matches = useMemo(() => (query === null ? [] : mentionMatches(members, query, userId)), [members, query, userId]);
   const choose = (member: Member) => {
@@ -63,6 +65,7 @@ export function MentionField({ label, value, onChange, chosen, onChoose, members
         error={error}
         hint="Markdown: *emphasis*, `code`, - lists, links. Type @ to mention a team member."
         placeholder={placeholder}
+        autoFocus={autoFocus}
         testID={testID}
       />
       {matches.length > 0 ? (

@@ -173,6 +173,7 @@ export function NewRemarkForm({ designId, version, initialPin, defaultWavelength
         members={members}
         userId={userId}
         error={null}
+        autoFocus
         testID="new-remark-body"
       />
       {error ? (

@@ -43,7 +43,14 @@ function ReviewContent({ design, version, userId, focus, onFocus, onShowPin, def
   const [chosenFilter, setChosenFilter] = useState<{ status: ThreadStatus; forThread: string | null }>({ status: 'open', forThread: null });
   const threadNodes = useRef(new Map<string, View | null>());
 
-  const threads = useMemo(() => review.data?.threads ?? [], [review.data]);
+  // A thread of an earlier version stops showing here once resolved (only open ones carry); one
+  // resolved in this panel stays in its Resolved list, so the resolve can be seen and undone.
+  const [lately, setLately] = useState<ReadonlyMap<string, Thread>>(new Map());
+  const threads = useMemo(() => {
+    const fetched = review.data?.threads ?? [];
+    const known = new Set(fetched.map((t) => t.id));
+    return [...fetched, ...[...lately.values()].filter((t) => !known.has(t.id) && t.status === 'resolved')];
+  }, [review.data, lately]);
   const focusedThread = focus?.kind === 'thread' ? threads.find((t) => t.id === focus.threadId) : undefined;
   // A thread opened from a marker or a link is shown whatever the filter said (a resolved one
   // switches to the resolved list) until the filter is changed again.
@@ -72,6 +79,7 @@ function ReviewContent({ design, version, userId, focus, onFocus, onShowPin, def
       thread={thread}
       focused={focusedThread?.id === thread.id}
       onShowPin={onShowPin}
+      onStatusChanged={(changed) => setLately((map) => new Map(map).set(changed.id, changed))}
       designId={design.id}
       version={version}
       userId={userId}

@@ -91,7 +91,7 @@ function RemarkItem({ remark, thread, designId, version, userId, canWrite, membe
               <Text variant="caption" tone="muted">
                 Earlier text, replaced {formatWhen(earlier.replacedAt)}
               </Text>
-              <MarkdownView source={earlier.body} />
+              <MarkdownView source={earlier.body} mentions={remark.mentions.map((p) => p.displayName)} emptyText="" />
             </View>
           ))}
         </View>
@@ -110,6 +110,7 @@ function RemarkItem({ remark, thread, designId, version, userId, canWrite, membe
             members={members}
             userId={userId}
             error={error}
+            autoFocus
             testID="edit-remark-body"
           />
           <View style={styles.actions}>
@@ -119,7 +120,7 @@ function RemarkItem({ remark, thread, designId, version, userId, canWrite, membe
         </View>
       ) : (
         <View testID="remark-body">
-          <MarkdownView source={remark.body} />
+          <MarkdownView source={remark.body} mentions={remark.mentions.map((p) => p.displayName)} emptyText="" />
         </View>
       )}
       {mine && !editing ? (
@@ -155,10 +156,12 @@ type Props = Common & {
   focused: boolean;
   /** The pin label was tapped: show what it is pinned to (a field scrolls into view). */
   onShowPin: (pin: Pin) => void;
+  /** Resolved or reopened here, with the server's answer. */
+  onStatusChanged?: (thread: Thread) => void;
 };
 
 /** One thread: what it is pinned to, how it reads on this version, its remarks oldest first, reply and resolve. */
-export const ThreadCard = forwardRef<View, Props>(function ThreadCard({ thread, focused, onShowPin, ...common }, ref) {
+export const ThreadCard = forwardRef<View, Props>(function ThreadCard({ thread, focused, onShowPin, onStatusChanged, ...common }, ref) {
   const { designId, version, canWrite, members, userId } = common;
   const [replying, setReplying] = useState(false);
   const [reply, setReply] = useState('');
@@ -186,7 +189,8 @@ export const ThreadCard = forwardRef<View, Props>(function ThreadCard({ thread, 
   const setStatus = async () => {
     setError(null);
     try {
-      await status.mutateAsync({ threadId: thread.id, status: resolved ? 'open' : 'resolved' });
+      const answer = await status.mutateAsync({ threadId: thread.id, status: resolved ? 'open' : 'resolved' });
+      onStatusChanged?.({ ...answer.thread, carry: thread.carry });
     } catch (failure) {
       setError(callProblem(failure, 'The thread could not be changed; try again.'));
     }
@@ -256,6 +260,7 @@ export const ThreadCard = forwardRef<View, Props>(function ThreadCard({ thread, 
             members={members}
             userId={userId}
             error={null}
+            autoFocus
             testID="reply-body"
           />
         </View>
