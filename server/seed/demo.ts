@@ -8,6 +8,7 @@ import type { Clock } from '../clock';
 import { createTeamsRepository } from '../teams/repository';
 import { demoNotebooks, seedDemoNotebooks } from './notebooks';
 import { createSeedRepository } from './repository';
+import { seedDemoReview } from './reviews';
 
 /** Invented people and an invented lab: any likeness to real ones is an accident. */
 export const demoTeamName = 'Quillmere Optics Teaching Lab';
@@ -45,7 +46,9 @@ export async function seedDemoData({ database, clock }: { database: DatabaseHand
   for (const [index, person] of demoUsers.entries()) {
     if (person.role !== 'owner') await teams.addMember(teamId, ids[index]!, person.role, now);
   }
-  await seedDemoNotebooks(database, teamId, ids[0]!, now);
+  const notebooks = await seedDemoNotebooks(database, teamId, ids[0]!, now);
+  const person = (index: number) => ({ id: ids[index]!, displayName: demoUsers[index]!.displayName });
+  await seedDemoReview(database, notebooks[0]!, person(0), person(1));
   await meta.setMeta(seededKey, now.toISOString(), now);
   return [
     `Demo data: the team “${demoTeamName}” with three accounts (password: ${demoPassword})`,

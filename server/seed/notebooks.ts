@@ -80,7 +80,7 @@ export const demoNotebooks: readonly DemoNotebook[] = [
 
 /**
  * Writes the demo notebooks into the demo team, each in one transaction, versions a few days
- * apart before `now` and written by the team's owner.
+ * apart before `now` and written by the team's owner. Answers what it wrote, in order.
  */
 export async function seedDemoNotebooks(
   database: DatabaseHandle,
@@ -89,6 +89,7 @@ export async function seedDemoNotebooks(
   now: Date,
 ) {
   const repository = createNotebooksRepository(database.db);
+  const written: { id: string; title: string; versions: { params: unknown; createdAt: Date }[] }[] = [];
   for (const [index, notebook] of demoNotebooks.entries()) {
     const id = randomUUID();
     const count = notebook.versions.length;
@@ -121,5 +122,7 @@ export async function seedDemoNotebooks(
         versions,
       ),
     );
+    written.push({ id, title: notebook.title, versions: versions.map((v) => ({ params: v.params, createdAt: v.createdAt! })) });
   }
+  return written;
 }
