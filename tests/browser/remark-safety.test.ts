@@ -4,6 +4,7 @@ import { liveServerAndBrowser, screenshot, viewports } from '../support/browser'
 import { demo, eventually, shown } from './journeys/journey';
 
 const reviewerEmail = 'tobiah.reviewer@quillmere-lab.example.com';
+const ownerName = 'Maren Okafor-Lind';
 
 /** A remark written to run code in every way Markdown with HTML would allow, and one honest link. */
 const hostileBody = [
@@ -14,12 +15,14 @@ const hostileBody = [
   '<img src=x onerror="window.__pwned=2">',
   '',
   '[click](javascript:window.__pwned=3) and [ok](https://example.com/a)',
+  '',
+  `Over to @${ownerName}; @nobody else.`,
 ].join('\n');
 
-/** What the DOM holds inside the rendered remark bodies, and whether anything ran. */
-function inspectRemarks(page: Page) {
-  return page.evaluate(() => {
-    const bodies = [...document.querySelectorAll('[data-testid="remark-body"]')].filter(
+/** What the DOM holds inside the rendered bodies with this test id, and whether anything ran. */
+function inspectRendered(page: Page, testID: string) {
+  return page.evaluate((testID) => {
+    const bodies = [...document.querySelectorAll(`[data-testid="${testID}"]`)].filter(
       (body) => (body as HTMLElement).offsetParent !== null,
     );
     const inside = (selector: string) => bodies.flatMap((body) => [...body.querySelectorAll(selector)]);
@@ -35,13 +38,32 @@ function inspectRemarks(page: Page) {
         rel: a.getAttribute('rel') ?? '',
         text: a.textContent ?? '',
       })),
+      mentions: inside('[aria-label^="mention of "]').map((el) => ({ label: el.getAttribute('aria-label'), text: el.textContent })),
       // Anywhere on the page, not only in the bodies.
       scriptLinks: [...document.querySelectorAll('a[href]')]
         .map((a) => a.getAttribute('href') ?? '')
         .filter((href) => !/^(https?:|mailto:|\/|#|\?)/i.test(href.trim())),
       pwned: (window as unknown as { __pwned?: unknown }).__pwned,
     };
-  });
+  }, testID);
+}
+
+/** The checks every rendering of the hostile text must pass. */
+function expectInert(seen: Awaited<ReturnType<typeof inspectRendered>>, where: string) {
+  expect(seen.bodies, where).toBeGreaterThan(0);
+  expect(seen.active, where).toEqual([]);
+  expect(seen.handlers, where).toEqual([]);
+  expect(seen.pwned, where).toBeUndefined();
+  expect(seen.scriptLinks, where).toEqual([]);
+  // The markup is shown as the characters it was written with.
+  expect(seen.text, where).toContain('<script>window.__pwned=1</script>');
+  expect(seen.text, where).toContain('<img src=x onerror="window.__pwned=2">');
+  expect(seen.text, where).toContain('[click](javascript:window.__pwned=3)');
+  // One anchor only: the https link, opening in a new tab with no opener and no referrer.
+  expect(seen.anchors, where).toEqual([
+    { href: 'https://example.com/a', protocol: 'https:', target: '_blank', rel: expect.stringContaining('noopener'), text: 'ok' },
+  ]);
+  expect(seen.anchors[0]?.rel, where).toContain('noreferrer');
 }
 
 /**
@@ -70,18 +92,20 @@ describe('a hostile remark in Chromium', { timeout: 240_000 }, () => {
       version: { params: unknown };
     };
     const made = await ownerContext.request.post(`${url}/api/teams/${teamId}/designs`, {
-      data: { title: 'Remark safety check', tags: [], params: source.version.params, notes: '', message: 'First cut' },
+      // The notes hold the same text: they are drawn by the same view.
+      data: { title: 'Remark safety check', tags: [], params: source.version.params, notes: hostileBody, message: 'First cut' },
       headers: { origin: url },
     });
     expect(made.status()).toBe(201);
-    const designId = ((await made.json()) as { design: { id: string } }).design.id;
+    const { design } = (await made.json()) as { design: { id: string; createdBy: { id: string } } };
+    const designId = design.id;
     await ownerContext.close();
 
     // The demo reviewer writes the remark through the API, as any client could.
     const reviewerContext = await live.browser.newContext({ viewport: viewports.wide });
     await signIn(reviewerContext.request, reviewerEmail);
     const started = await reviewerContext.request.post(`${url}/api/designs/${designId}/versions/1/threads`, {
-      data: { pin: { kind: 'version' }, body: hostileBody },
+      data: { pin: { kind: 'version' }, body: hostileBody, mentions: [design.createdBy.id] },
       headers: { origin: url },
     });
     expect(started.status()).toBe(201);
@@ -109,23 +133,22 @@ describe('a hostile remark in Chromium', { timeout: 240_000 }, () => {
       // Give anything that could run a moment to do so.
       await page.waitForTimeout(500);
 
-      const seen = await inspectRemarks(page);
-      expect(seen.bodies, size).toBeGreaterThan(0);
-      expect(seen.active, size).toEqual([]);
-      expect(seen.handlers, size).toEqual([]);
-      expect(seen.pwned, size).toBeUndefined();
-      expect(seen.scriptLinks, size).toEqual([]);
-      // The markup is shown as the characters it was written with.
-      expect(seen.text).toContain('<script>window.__pwned=1</script>');
-      expect(seen.text).toContain('<img src=x onerror="window.__pwned=2">');
-      expect(seen.text).toContain('[click](javascript:window.__pwned=3)');
-      // One anchor only: the https link, opening in a new tab with no opener and no referrer.
-      expect(seen.anchors).toEqual([
-        { href: 'https://example.com/a', protocol: 'https:', target: '_blank', rel: expect.stringContaining('noopener'), text: 'ok' },
-      ]);
-      expect(seen.anchors[0]?.rel).toContain('noreferrer');
+      const seen = await inspectRendered(page, 'remark-body');
+      expectInert(seen, `remark at ${size}`);
+      // The mentioned owner is marked and named for screen readers; other @ text is plain.
+      expect(seen.mentions, size).toEqual([{ label: `mention of ${ownerName}`, text: `@${ownerName}` }]);
       await screenshot(page, `remark-safety-${size}`);
     }
+
+    // The version's notes hold the same text and are drawn by the same view.
+    await page.setViewportSize(viewports.wide);
+    const notesToggle = page.getByRole('button', { name: 'Notes', exact: true }).filter({ visible: true }).first();
+    if ((await notesToggle.getAttribute('aria-expanded')) !== 'true') await notesToggle.click();
+    await shown(page, 'notes').waitFor();
+    const notes = await inspectRendered(page, 'notes');
+    expectInert(notes, 'notes');
+    expect(notes.mentions).toEqual([]);
+    await screenshot(page, 'remark-safety-notes-wide');
 
     // Pressing the link opens a new page (never this one), and this page is left as it was.
     await page.setViewportSize(viewports.wide);
