@@ -196,25 +196,22 @@ describe('design notebooks in Chromium', () => {
     await shoot(page, 'notebooks-compare');
   });
 
-  it('lets the reviewer approve v2 with a comment, shown with its decision', async () => {
+  it('lets the reviewer sign off v2 with a summary, shown with its decision', async () => {
     const reviewerContext = await signedInContext(reviewer);
     const reviewerPage = await reviewerContext.newPage();
     reviewerPage.on('pageerror', (error) => errors.push(error.message));
     await reviewerPage.goto(`${server.url}/notebooks/${notebookId}/v/2`);
     await expect.poll(() => reviewerPage.getByTestId('read-only-note').textContent()).toContain('You are a reviewer of this team');
     await reviewerPage.getByRole('button', { name: 'Review', exact: true }).click();
-    await reviewerPage.getByTestId('review-empty').waitFor();
-    await reviewerPage.getByTestId('review-body').fill('The doublet is split; fine for the teaching lab.');
-    await reviewerPage.getByTestId('review-approve').click();
-    await reviewerPage.getByTestId('review-item').filter({ hasText: 'fine for the teaching lab' }).waitFor();
-    await reviewerPage.getByTestId('review-list').getByTestId('review-decision-approved').waitFor();
-    // The box empties once the comment is sent; wait for it rather than race the render.
-    await reviewerPage.waitForFunction(
-      () => (document.querySelector('[data-testid="review-body"]') as HTMLTextAreaElement | null)?.value === '',
-      undefined,
-      { timeout: 5_000 },
-    );
-    expect(await reviewerPage.getByTestId('review-body').inputValue()).toBe('');
+    const section = reviewerPage.getByTestId('decision-section');
+    await section.waitFor();
+    await expect.poll(() => reviewerPage.getByTestId('review-state').textContent()).toBe('Not reviewed');
+    await reviewerPage.getByTestId('decision-summary').fill('The doublet is split; fine for the teaching lab.');
+    await section.getByRole('button', { name: 'Sign off', exact: true }).click();
+    await reviewerPage.getByTestId('decision-item').filter({ hasText: 'fine for the teaching lab' }).waitFor();
+    await expect.poll(() => reviewerPage.getByTestId('review-state').textContent()).toBe('Signed off');
+    // The box empties once the decision is recorded; wait for it rather than race the render.
+    await expect.poll(() => reviewerPage.getByTestId('decision-summary').inputValue()).toBe('');
     await screenshot(reviewerPage, 'notebooks-review-wide');
     await reviewerContext.close();
   });
@@ -227,10 +224,13 @@ describe('design notebooks in Chromium', () => {
     await viewerPage.getByTestId('read-only-note').waitFor();
     expect(await viewerPage.getByTestId('save-card').count()).toBe(0);
     expect(await viewerPage.getByRole('button', { name: 'Save version', exact: true }).count()).toBe(0);
-    // The reviewer's approval is there to read; the viewer has no form to answer it.
+    // The reviewer's sign-off is there to read; the viewer has no form to decide or ask.
     await viewerPage.getByRole('button', { name: 'Review', exact: true }).click();
-    await viewerPage.getByTestId('review-decision-approved').first().waitFor();
-    expect(await viewerPage.getByTestId('review-body').count()).toBe(0);
+    await expect.poll(() => viewerPage.getByTestId('review-state').textContent()).toBe('Signed off');
+    await viewerPage.getByTestId('decision-item').filter({ hasText: 'fine for the teaching lab' }).waitFor();
+    expect(await viewerPage.getByTestId('decision-summary').count()).toBe(0);
+    expect(await viewerPage.getByRole('button', { name: 'Sign off', exact: true }).count()).toBe(0);
+    expect(await viewerPage.getByRole('button', { name: 'Request a review', exact: true }).count()).toBe(0);
     await viewerPage.getByTestId('tab-sharing').click();
     expect(await viewerPage.getByTestId('share-card').count()).toBe(0);
     await viewerPage.getByTestId('clone-submit').click();

@@ -23,7 +23,7 @@ const reviewer = {
 /**
  * A colleague is invited to review the team's designs: they join from the e-mail with a new
  * account, land on the team's designs, open the teaching-lab notebook, compare its last two
- * versions, and ask for changes with a comment. On a wide screen, as at a desk.
+ * versions, and record a decision on v3, revise, with its summary. On a wide screen, as at a desk.
  */
 describe('journey: the reviewer, from an invitation to a review decision', { timeout: 180_000 }, () => {
   // Development mode seeds the demo team, its owner and its notebooks (server/seed/).
@@ -98,7 +98,7 @@ describe('journey: the reviewer, from an invitation to a review decision', { tim
     await who.shoot('compare');
   });
 
-  it('asks for changes on v3 with a comment', async () => {
+  it('asks for a revision of v3 with a decision summary', async () => {
     const { page } = who;
     await shown(page, 'back-to-notebook').click();
     await shown(page, 'notebook-title').filter({ hasText: demo.notebook }).waitFor();
@@ -108,13 +108,20 @@ describe('journey: the reviewer, from an invitation to a review decision', { tim
     const review = page.getByRole('button', { name: 'Review', exact: true });
     await review.focus();
     await page.keyboard.press('Enter');
-    const comment = 'The 600/mm grating costs the line-lamp exercise its doublet; keep v2 as the baseline.';
-    await shown(page, 'review-body').fill(comment);
-    await page.getByRole('button', { name: 'Request changes' }).click();
-    const item = shown(page, 'review-item').filter({ hasText: comment });
+    const section = shown(page, 'decision-section');
+    await section.waitFor();
+    // The demo owner asked for a review of v3 and nobody has decided on it yet; the v2 sign-off is
+    // named with what changed since. This reviewer did not write v3: the three decisions are offered.
+    await eventually(() => shown(page, 'review-state').textContent()).toBe('Review requested');
+    expect(await shown(page, 'earlier-sign-off').textContent()).toContain('v2 was signed off');
+    const summary = 'The 600/mm grating costs the line-lamp exercise its doublet; keep v2 as the baseline.';
+    await shown(page, 'decision-summary').fill(summary);
+    await section.getByRole('button', { name: 'Revise', exact: true }).click();
+    const item = shown(page, 'decision-item').filter({ hasText: summary });
     await item.waitFor();
-    await item.getByTestId('review-decision-changes-requested').waitFor();
-    await eventually(() => shown(page, 'review-body').inputValue()).toBe('');
+    expect(await item.textContent()).toContain(reviewer.name);
+    await eventually(() => shown(page, 'review-state').textContent()).toBe('Revise');
+    await eventually(() => shown(page, 'decision-summary').inputValue()).toBe('');
     await who.shoot('review', ['wide', 'phone']);
   });
 
