@@ -24,6 +24,7 @@ async function run(client: PGlite, name: string) {
   for (const statement of text.split('--> statement-breakpoint')) if (statement.trim()) await client.exec(statement);
 }
 
+// A fresh PGlite and the migrations take seconds, many more on a loaded machine.
 let client: PGlite;
 beforeAll(async () => {
   client = await PGlite.create();
@@ -46,7 +47,7 @@ beforeAll(async () => {
       ('r-4', 'd-1', 2, 'u-ben', 'Check the order filter.', 'changes-requested', '2026-01-03T10:00:00Z');
   `);
   for (const name of migrations.filter((n) => n >= '0005')) await run(client, name);
-}, 60_000);
+}, 180_000);
 afterAll(() => client?.close());
 
 // tests/db/review-migration.test.ts checks the rows the SQL writes; this reads them as the routes do.
