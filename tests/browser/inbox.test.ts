@@ -218,7 +218,8 @@ describe('the inbox and the review e-mail settings in Chromium', () => {
 
     const mentions = shown(page, 'mail-setting-mentions');
     await eventually(() => mentions.getAttribute('aria-checked')).toBe('true');
-    expect(await mentions.textContent()).toBe('When someone mentions me in a remark');
+    // Named by its visible label (the tick is hidden from screen readers; aria-checked says it).
+    expect(await page.getByRole('switch', { name: 'When someone mentions me in a remark', exact: true }).filter({ visible: true }).count()).toBe(1);
     await mentions.click();
     await eventually(() => shown(page, 'mail-settings-status').textContent()).toBe('Saved');
     expect(await shown(page, 'mail-settings-status').getAttribute('role')).toBe('status');
