@@ -7,8 +7,8 @@ describe('a remark that mentions the owner, through the API', () => {
   let fx: NotebookFixture;
   beforeAll(async () => {
     fx = await createNotebookFixture({ outbox: true });
-  });
-  afterAll(() => fx.ctx.close());
+  }, 120_000);
+  afterAll(() => fx?.ctx.close());
 
   it('puts one "mentioned" item in the owner’s inbox and one e-mail with the thread link in the outbox', async () => {
     const { design } = await createNotebook(fx, 'Teaching monochromator');

@@ -11,8 +11,8 @@ describe('the review notifier', () => {
   beforeAll(async () => {
     fx = await createInboxFixture();
     threadId = await fx.thread(fx.reviewer);
-  });
-  afterAll(() => fx.ctx.close());
+  }, 120_000);
+  afterAll(() => fx?.ctx.close());
   beforeEach(async () => {
     // Each case starts from an empty inbox, no e-mails, all settings on and a working mailer.
     await fx.ctx.database.db.delete(inboxItems);

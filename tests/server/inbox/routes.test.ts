@@ -13,8 +13,8 @@ describe('the inbox routes', () => {
   beforeAll(async () => {
     fx = await createInboxFixture();
     threadId = await fx.thread(fx.reviewer);
-  });
-  afterAll(() => fx.ctx.close());
+  }, 120_000);
+  afterAll(() => fx?.ctx.close());
   beforeEach(async () => {
     await fx.ctx.database.db.delete(inboxItems);
     await fx.ctx.database.db.delete(mailSettings);
