@@ -91,6 +91,12 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
       headers: { origin: url },
     });
     expect(v2.status()).toBe(201);
+    // A thread of the owner's own on a result, for the read-out's marker and the design-changed line.
+    const onResult = await api.post(`${url}/api/designs/${designId}/versions/2/threads`, {
+      data: { pin: { kind: 'result', result: 'bandpass', wavelengthNm: 589 }, body: 'Check the bandpass at the sodium D lines.' },
+      headers: { origin: url },
+    });
+    expect(onResult.status()).toBe(201);
   });
 
   it('lets the reviewer pin a remark to the exit slit of v2 on a phone, mentioning the owner', async () => {
@@ -110,7 +116,8 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     await eventually(() => shown(page, 'review-panel').count()).toBe(0);
     await eventually(() => focused(page)).toBe('bar-review');
     await openReview(page);
-    await eventually(() => shown(page, 'threads-empty').textContent()).toBe('No open threads on this version.');
+    await eventually(() => shown(page, 'threads-here').getByRole('article').count()).toBe(1);
+    expect(await shown(page, 'threads-here').getByTestId('thread-pin').textContent()).toBe('Bandpass at 589 nm');
 
     await shown(page, 'new-remark').click();
     const form = shown(page, 'new-remark-form');
@@ -134,6 +141,7 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
 
     const thread = shown(page, 'threads-here').getByRole('article', { name: 'Thread on Exit slit width' });
     await thread.waitFor();
+    await eventually(() => page.getByRole('radio', { name: 'Open (2)' }).count()).toBe(1);
     await eventually(() => thread.getByTestId('remark-body').textContent()).toBe(`${remark} @${ownerName}`);
     expect(await thread.getByTestId('thread-pin').textContent()).toBe('Exit slit width');
     // The marker beside the field counts it (behind the sheet).
@@ -161,6 +169,8 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     await eventually(() => thread.getByTestId('remark-body').textContent()).toBe(`${remark} @${ownerName}`);
     const marker = page.getByRole('button', { name: '1 open remark on Exit slit width' });
     await eventually(() => marker.textContent()).toBe('1 open');
+    // The read-out counts the thread on the bandpass, whatever its wavelength.
+    await eventually(() => page.getByRole('button', { name: '1 open remark on Bandpass' }).textContent()).toBe('1 open');
     await screenshot(page, 'review-threads-link-wide');
     await owner.checkA11y('the thread opened from the e-mail link');
 
@@ -180,9 +190,10 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     await field.fill('60');
     await field.blur();
     await shown(page, 'bar-save').click();
-    await eventually(() => shown(page, 'save-open-threads').textContent()).toBe(
-      'This save leaves 1 open thread unresolved: Exit slit width. They carry over to v3.',
-    );
+    const leaves = shown(page, 'save-open-threads');
+    await eventually(() => leaves.textContent()).toMatch(/^This save leaves 2 open threads unresolved: .+\. They carry over to v3\.$/);
+    expect(await leaves.textContent()).toContain('Exit slit width');
+    expect(await leaves.textContent()).toContain('Bandpass at 589 nm');
     await shown(page, 'version-message').fill('Exit slit 60 µm for the doublet');
     await shown(page, 'save-version').click();
     await eventually(() => shown(page, 'version-line').textContent()).toContain('v3 of 3');
@@ -192,6 +203,8 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     await eventually(() => carried.getByTestId('thread-carry').textContent()).toBe(
       `Field changed since v2 (was ${quantity(100, 'µm')}, now ${quantity(60, 'µm')})`,
     );
+    const onBandpass = shown(page, 'threads-carried').getByRole('article', { name: 'Thread on Bandpass at 589 nm' });
+    expect(await onBandpass.getByTestId('thread-carry').textContent()).toBe('Design changed since v2 (1 field)');
     // The owner wrote v3: the decision part has no sign-off for them.
     await shown(page, 'decision-section').waitFor();
     expect(await page.getByRole('button', { name: 'Sign off', exact: true }).count()).toBe(0);
@@ -223,7 +236,8 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
 
     await thread.getByRole('button', { name: 'Resolve the thread on Exit slit width' }).focus();
     await page.keyboard.press('Enter');
-    await eventually(() => shown(page, 'threads-empty').textContent()).toBe('No open threads on this version.');
+    await eventually(() => page.getByRole('radio', { name: 'Open (1)' }).count()).toBe(1);
+    expect(await shown(page, 'threads-carried').getByRole('article', { name: 'Thread on Exit slit width' }).count()).toBe(0);
     await page.getByRole('radio', { name: 'Resolved (1)' }).click();
     await eventually(() => shown(page, 'thread-resolved').textContent()).toMatch(new RegExp(`^Resolved by ${reviewerAccount.name} on \\d{1,2} \\w+ \\d{4}$`));
 
@@ -242,7 +256,7 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     await shown(page, 'review-panel').waitFor();
     await eventually(() => shown(page, 'review-state').textContent()).toBe('Signed off');
     expect(await page.getByRole('button', { name: 'Sign off', exact: true }).count()).toBe(0);
-    await eventually(() => shown(page, 'threads-empty').textContent()).toBe('No open threads on this version.');
+    await eventually(() => shown(page, 'threads-carried').getByTestId('thread-pin').allTextContents()).toEqual(['Bandpass at 589 nm']);
     expect(await page.getByRole('button', { name: /open remarks? on Exit slit width/ }).count()).toBe(0);
   });
 
@@ -252,10 +266,11 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     const { page } = viewer;
     page.setDefaultTimeout(15_000);
     const review = (await (await viewer.context.request.get(`${live.server.url}/api/designs/${designId}/versions/2/review`)).json()) as {
-      threads: { id: string; status: string }[];
+      threads: { id: string; status: string; pin: { kind: string } }[];
     };
-    const threadId = review.threads[0]?.id ?? '';
-    expect(review.threads[0]?.status).toBe('resolved');
+    const onSlit = review.threads.find((t) => t.pin.kind === 'field');
+    const threadId = onSlit?.id ?? '';
+    expect(onSlit?.status).toBe('resolved');
     await page.goto(`${live.server.url}/notebooks/${designId}/v/2?thread=${threadId}`);
     // A link to a resolved thread opens the resolved list.
     const thread = shown(page, `thread-${threadId}`);

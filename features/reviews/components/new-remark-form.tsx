@@ -16,7 +16,8 @@ import type { Member } from '@/shared/teams';
 import { Button, RadioGroup, Text, TextField, colors, radius, space } from '@/features/ui';
 import { callProblem, parseProblem } from '../remark-errors';
 import { useStartThreadMutation } from '../thread-queries';
-import { keptMentions, MentionField } from './mention-field';
+import { keptMentions } from '../mentions';
+import { MentionField } from './mention-field';
 
 type PinKind = Pin['kind'];
 const kindOptions: { value: PinKind; label: string }[] = [

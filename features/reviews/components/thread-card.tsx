@@ -9,7 +9,8 @@ import { Button, Text, colors, radius, space } from '@/features/ui';
 import { carryLine, resolvedLine } from '../carry';
 import { callProblem, parseProblem } from '../remark-errors';
 import { useEditRemarkMutation, useRemoveRemarkMutation, useReplyMutation, useSetThreadStatusMutation } from '../thread-queries';
-import { keptMentions, MentionField } from './mention-field';
+import { keptMentions } from '../mentions';
+import { MentionField } from './mention-field';
 
 type Common = {
   designId: string;
