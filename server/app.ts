@@ -107,7 +107,7 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(auth.sessions);
   const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
   const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock });
-  const inbox = createInbox({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
+  const inbox = createInbox({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl, log: deps.log });
   const reviews = createReviews({ db: deps.database.db, clock: deps.clock, notifier: inbox.notifier, lists: notebooks.lists });
   apiRouter.use(
     mountContract(

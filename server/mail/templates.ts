@@ -83,15 +83,17 @@ export function remarkMessage(
   },
 ): MailMessage {
   const design = designName(input.title, input.version);
-  const where = input.pin ? ` pinned to ${input.pin}` : '';
+  // The pin is a label ("Exit slit width"): quoted, it reads as a name mid-sentence.
+  const pin = input.pin ? `“${input.pin}”` : null;
+  const where = pin ? ` pinned to ${pin}` : '';
   const subject =
     input.kind === 'mentioned'
       ? `${input.actor} mentioned you in a remark on ${design}`
       : input.kind === 'remark-on-my-thread'
         ? `${input.actor} replied to your thread on ${design}`
         : input.startsThread
-          ? input.pin
-            ? `${input.actor} pinned a remark to ${input.pin} on ${design}`
+          ? pin
+            ? `${input.actor} pinned a remark to ${pin} on ${design}`
             : `${input.actor} started a thread on ${design}`
           : `${input.actor} replied in a thread on ${design}`;
   const lead =

@@ -39,7 +39,7 @@ describe('the review notifier', () => {
     expect(await kindsOf(fx.viewer)).toEqual(['mentioned']);
     expect(await kindsOf(fx.reviewer)).toEqual([]);
     expect(fx.sent.map((m) => m.to).sort()).toEqual([fx.owner.user.email, fx.viewer.user.email].sort());
-    expect(fx.mailTo(fx.owner)[0]!.subject).toBe(`${fx.reviewer.user.displayName} pinned a remark to Exit slit width on “Teaching monochromator” v1`);
+    expect(fx.mailTo(fx.owner)[0]!.subject).toBe(`${fx.reviewer.user.displayName} pinned a remark to “Exit slit width” on “Teaching monochromator” v1`);
     expect(fx.mailTo(fx.viewer)[0]!.subject).toBe(`${fx.reviewer.user.displayName} mentioned you in a remark on “Teaching monochromator” v1`);
   });
 
