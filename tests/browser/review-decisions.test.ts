@@ -103,7 +103,7 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
     await eventually(() => shown(page, 'review-state').textContent()).toBe('Review requested');
   });
 
-  it('lets the reviewer sign v1 off with remarks on a phone, with the keyboard, a missing summary named first', async () => {
+  it('lets the reviewer sign v1 off with remarks on a phone, with the keyboard, after a 403 in its own words and a missing summary named', async () => {
     reviewer = await person(live.browser, 'review-reviewer', 'phone');
     await signIn(reviewer, live.server, reviewerAccount.email);
     const { page } = reviewer;
@@ -114,7 +114,31 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
     await eventually(() => shown(page, 'review-state').textContent()).toBe('Review requested');
     await eventually(() => shown(page, 'review-request-item').textContent()).toContain('waiting');
 
+    // The owner makes the reviewer a viewer while the form is open: the server's 403 is shown in its
+    // own words, and the summary stays in the box. Chromium logs the refused request as a console
+    // error, the one this test means to cause: exactly that one is checked and taken off the list.
     const summary = shown(page, 'decision-summary');
+    const setReviewerRole = async (role: 'viewer' | 'reviewer') => {
+      const members = (await (await owner.context.request.get(`${live.server.url}/api/teams/${teamId}/members`)).json()) as {
+        members: { userId: string; email: string }[];
+      };
+      const userId = members.members.find((member) => member.email === reviewerAccount.email)?.userId;
+      const answer = await owner.context.request.patch(`${live.server.url}/api/teams/${teamId}/members/${userId}`, {
+        data: { role },
+        headers: { origin: live.server.url },
+      });
+      expect(answer.status()).toBe(200);
+    };
+    await setReviewerRole('viewer');
+    await summary.fill('Too late: no longer a reviewer.');
+    await shown(page, 'decision-section').getByRole('button', { name: 'Revise', exact: true }).click();
+    await eventually(() => shown(page, 'decision-error').textContent()).toBe('A viewer of this team may not do that.');
+    expect(await summary.inputValue()).toBe('Too late: no longer a reviewer.');
+    expect(reviewer.problems).toEqual([expect.stringMatching(/status of 403 .*\/decisions\)$/)]);
+    reviewer.problems.length = 0;
+    await setReviewerRole('reviewer');
+    await summary.fill('');
+
     await summary.focus();
     // Straight to the buttons with nothing written: the form names the field it needs.
     await page.keyboard.press('Tab');
