@@ -1,5 +1,6 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
+import { expectAccessible } from '../support/axe';
 import { liveServerAndBrowser, screenshot, viewports } from '../support/browser';
 import { demo, eventually, shown } from './journeys/journey';
 
@@ -138,6 +139,8 @@ describe('a hostile remark in Chromium', { timeout: 240_000 }, () => {
       // The mentioned owner is marked and named for screen readers; other @ text is plain.
       expect(seen.mentions, size).toEqual([{ label: `mention of ${ownerName}`, text: `@${ownerName}` }]);
       await screenshot(page, `remark-safety-${size}`);
+      // The link and the mention keep the panel within WCAG A/AA.
+      await expectAccessible(page, `hostile remark in the review panel at ${size}`);
     }
 
     // The version's notes hold the same text and are drawn by the same view.
