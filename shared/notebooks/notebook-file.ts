@@ -83,6 +83,12 @@ export const notebookFileRemarkSchema = z
       ctx.addIssue({ code: 'custom', path: ['removedAt'], message: 'is required when the body is null (a removed remark)' });
     if (remark.body !== null && remark.removedAt !== null)
       ctx.addIssue({ code: 'custom', path: ['body'], message: 'must be null for a removed remark' });
+    // Removing a remark drops its earlier texts too; an edited one says when.
+    const earlier = Array.isArray(remark.earlierBodies) ? remark.earlierBodies.length : 0;
+    if (earlier > 0 && remark.removedAt)
+      ctx.addIssue({ code: 'custom', path: ['earlierBodies'], message: 'must be empty for a removed remark' });
+    if (earlier > 0 && !remark.removedAt && remark.editedAt === null)
+      ctx.addIssue({ code: 'custom', path: ['editedAt'], message: 'is required when earlier texts are kept' });
   });
 export type NotebookFileRemark = z.infer<typeof notebookFileRemarkSchema>;
 

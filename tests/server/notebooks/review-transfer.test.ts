@@ -296,6 +296,13 @@ describe('export and import of the review', () => {
           { ...thread, status: 'resolved' },
           { ...thread, remarks: [{ ...remark, body: null }] },
           { ...thread, remarks: [] },
+          {
+            ...thread,
+            remarks: [
+              { ...remark, body: null, removedAt: '2025-11-02T12:00:00Z', earlierBodies: [{ body: 'Gone', replacedAt: '2025-11-02T11:30:00Z' }] },
+              { ...remark, earlierBodies: [{ body: 'Before', replacedAt: '2025-11-02T11:30:00Z' }] },
+            ],
+          },
         ],
         decisions: [
           { version: 3, reviewerName: 'Tomas Reyes', outcome: 'approved', summary: 'Fine.', createdAt: '2025-11-02T12:00:00Z' },
@@ -313,6 +320,8 @@ describe('export and import of the review', () => {
       'review.threads.4.resolvedAt': 'is required for a resolved thread',
       'review.threads.5.remarks.0.removedAt': 'is required when the body is null (a removed remark)',
       'review.threads.6.remarks': 'must hold at least one remark',
+      'review.threads.7.remarks.0.earlierBodies': 'must be empty for a removed remark',
+      'review.threads.7.remarks.1.editedAt': 'is required when earlier texts are kept',
       'review.decisions.0.version': 'must be one of the versions in the file',
       'review.decisions.0.outcome': 'must be signed-off, signed-off-with-remarks or revise',
     });
