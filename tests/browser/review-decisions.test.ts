@@ -192,7 +192,7 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
     await page.reload();
     await eventually(() => page.getByRole('radio', { name: 'Signed off with remarks', exact: true }).getAttribute('aria-checked')).toBe('true');
     await showsOnly();
-    await owner.shoot('list-filtered', ['phone', 'wide']);
+    await owner.shoot('list-filtered');
   });
 
   it('starts v2 unreviewed, naming the v1 sign-off and what changed, with no sign-off buttons for its author', async () => {

@@ -20,12 +20,11 @@ export const tableRowStyle = StyleSheet.create({
   },
 }).row;
 
-/** Title, owner, updated, latest version, its review state, actions: the wide table's columns. */
+/** Title, owner, updated, latest version with its review state, actions: the wide table's columns. */
 export const columnStyle: TextStyle[] = [
   { flex: 3, minWidth: 0 },
   { flex: 1.2, minWidth: 0 },
   { width: 110 },
-  { width: 70 },
   { width: 160 },
   { width: 250 },
 ];
@@ -55,13 +54,11 @@ export function DesignRow({ design, wide, ...actions }: Props) {
         <Text role="cell" variant="small" tone="muted" style={columnStyle[2]}>
           {formatDay(design.updatedAt)}
         </Text>
-        <Text role="cell" variant="number" style={columnStyle[3]}>
-          v{design.latestVersion}
-        </Text>
-        <View role="cell" style={columnStyle[4]}>
+        <View role="cell" style={[columnStyle[3], styles.latestCell]}>
+          <Text variant="number">v{design.latestVersion}</Text>
           <ReviewStateBadge state={design.latestReviewState} compact testID={`review-state-${design.title}`} />
         </View>
-        <View role="cell" style={columnStyle[5]}>
+        <View role="cell" style={columnStyle[4]}>
           <RowActions design={design} {...actions} />
         </View>
       </View>
@@ -163,6 +160,7 @@ function RowActions({ design, owner, onEdit, onArchive, archiving }: Omit<Props,
 const styles = StyleSheet.create({
   block: { gap: space.xxs, paddingVertical: space.md, borderBottomWidth: 1, borderBottomColor: colors.line },
   titleCell: { gap: space.xxs, alignItems: 'flex-start' },
+  latestCell: { gap: space.xxs, alignItems: 'flex-start' },
   marks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   link: { color: colors.primary, textDecorationLine: 'underline', fontFamily: fonts.semibold },
   // A chip that is also a link: the accent fill says "baseline", the underline says "opens";

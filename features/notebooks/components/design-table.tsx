@@ -72,7 +72,7 @@ export function DesignTable({ designs, wide, owner, emptyText, error, loading }:
         <View role="table" aria-label="Designs">
           {wide ? (
             <View role="row" style={[tableRowStyle, styles.headerRow]}>
-              {['Title', 'Owner', 'Updated', 'Latest', 'Review', ''].map((title, i) => (
+              {['Title', 'Owner', 'Updated', 'Latest and review', ''].map((title, i) => (
                 <Text
                   key={title || 'actions'}
                   role="columnheader"

@@ -62,7 +62,9 @@ function ReviewCell({ n, state }: { n: number; state: VersionReviewState | undef
 /** Newest first: number, author, date, message, review state and the figures a reviewer scans for. */
 export function HistoryTable({ versions, current, baselineVersion, onOpen, onCompare, reviewStates }: Props) {
   const layout = useLayout();
-  const wide = layout !== 'phone';
+  // Ten columns need a wide screen: on a tablet the message and author were squeezed to a letter
+  // a line, so tablets get the phone's stacked rows.
+  const wide = layout === 'wide';
   return (
     <View role="table" aria-label="Version history" testID="history-table">
       {wide ? (
