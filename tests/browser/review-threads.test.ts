@@ -125,6 +125,7 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     await form.getByRole('radio', { name: 'Slits' }).click();
     await form.getByRole('radio', { name: 'Exit slit width' }).click();
     await eventually(() => shown(page, 'pin-preview').textContent()).toBe('Pinned to: Exit slit width');
+    await reviewer.checkA11y('the new-remark form in the sheet');
 
     // Over the limit first: the error names the remark.
     const body = shown(page, 'new-remark-body');
@@ -234,6 +235,23 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     expect(await thread.getByTestId('remark-body').nth(1).textContent()).toBe(reply);
     await shoot(reviewer, 'thread');
 
+    // One's own remark: edited (the earlier text can be read), then a removal asked for and kept.
+    const second = thread.getByTestId('remark').nth(1);
+    await second.getByRole('button', { name: 'Edit your remark on Exit slit width' }).click();
+    const edit = shown(page, 'edit-remark-body');
+    await edit.fill(`${reply} Checked at 589.0 and 589.6 nm.`);
+    await shown(page, 'save-remark').click();
+    await eventually(() => thread.getByTestId('remark-body').nth(1).textContent()).toBe(`${reply} Checked at 589.0 and 589.6 nm.`);
+    await second.getByRole('button', { name: 'edited, show the earlier text' }).click();
+    await eventually(() => second.getByTestId('remark-earlier').textContent()).toContain(reply);
+    await second.getByRole('button', { name: 'Remove your remark on Exit slit width' }).click();
+    await second.getByRole('button', { name: 'Keep it' }).click();
+    expect(await thread.getByTestId('remark-body').count()).toBe(2);
+    await second.getByRole('button', { name: 'Remove your remark on Exit slit width' }).click();
+    await second.getByRole('button', { name: 'Remove', exact: true }).click();
+    await eventually(() => thread.getByTestId('remark-removed').textContent()).toMatch(/^A remark was removed/);
+    expect(await thread.getByTestId('remark-body').count()).toBe(1);
+
     await thread.getByRole('button', { name: 'Resolve the thread on Exit slit width' }).focus();
     await page.keyboard.press('Enter');
     await eventually(() => page.getByRole('radio', { name: 'Open (1)' }).count()).toBe(1);
@@ -275,7 +293,8 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
     // A link to a resolved thread opens the resolved list.
     const thread = shown(page, `thread-${threadId}`);
     await eventually(() => thread.getByTestId('thread-resolved').textContent()).toMatch(/^Resolved by Tobiah Rennick on /);
-    expect(await thread.getByTestId('remark-body').count()).toBe(2);
+    expect(await thread.getByTestId('remark-body').count()).toBe(1);
+    expect(await thread.getByTestId('remark-removed').count()).toBe(1);
     expect(await shown(page, 'new-remark').count()).toBe(0);
     expect(await thread.getByRole('button', { name: /^(Reply|Reopen|Edit|Remove)/ }).count()).toBe(0);
     await viewer.checkA11y('a resolved thread read by a viewer');

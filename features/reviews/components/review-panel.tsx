@@ -60,7 +60,7 @@ function ReviewContent({ design, version, userId, focus, onFocus, onShowPin, def
     if (!focusedThread) return;
     const timer = setTimeout(() => scrollIntoView(threadNodes.current.get(focusedThread.id)), 50);
     return () => clearTimeout(timer);
-  }, [focusedThread?.id]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [focus, focusedThread?.id]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const counts = useMemo(
     () => ({ open: threads.filter((t) => t.status === 'open').length, resolved: threads.filter((t) => t.status === 'resolved').length }),
