@@ -26,7 +26,8 @@ export function NotebookScreen() {
   const notebook = useNotebookQuery(notebookId);
   const userId = session.data?.user?.id ?? '';
 
-  if (notebook.isError) {
+  // A background refetch that fails keeps the design on screen: only a first load that fails replaces it.
+  if (notebook.isError && !notebook.data) {
     const gone = notebook.error instanceof ApiError && notebook.error.status === 404;
     return (
       <Screen>
