@@ -3,28 +3,11 @@ import { describe, expect, it } from 'vitest';
 import { fieldLabel } from '../../shared/design-fields';
 import { formatDay } from '../../shared/format';
 import { liveServerAndBrowser } from '../support/browser';
-import { demo, eventually, expectNoProblems, person, shown, type Person } from './journeys/journey';
+import { demo, eventually, expectNoProblems, openReview, signInAs, person, shown, type Person } from './journeys/journey';
 
 const reviewerAccount = { email: 'tobiah.reviewer@quillmere-lab.example.com', name: 'Tobiah Rennick' };
 const title = 'Review decisions: argon line survey';
 const remarks = 'Signed off for the teaching lab; the 25 µm exit slit only just splits the 696/697 nm pair.';
-
-/** Signs the person's context in as a demo account (cookies are shared with its page). */
-async function signIn(who: Person, server: { url: string }, email: string) {
-  const answer = await who.context.request.post(`${server.url}/api/auth/sign-in`, {
-    data: { email, password: demo.password },
-    headers: { origin: server.url },
-  });
-  expect(answer.status()).toBe(200);
-}
-
-/** Opens the version's review from the design bar (a side panel when wide, a sheet on a phone). */
-async function openReview(page: Page) {
-  const toggle = page.getByRole('button', { name: 'Review', exact: true }).filter({ visible: true });
-  await toggle.first().waitFor();
-  if ((await toggle.first().getAttribute('aria-expanded')) !== 'true') await toggle.first().click();
-  await shown(page, 'decision-section').waitFor();
-}
 
 /** The accessible name of the element that has the keyboard focus. */
 function focusedName(page: Page) {
@@ -51,7 +34,7 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
 
   it('lets the owner request a review of v1 from the demo reviewer, with a due date checked first', async () => {
     owner = await person(live.browser, 'review-owner', 'wide');
-    await signIn(owner, live.server, demo.owner);
+    await signInAs(owner, live.server, demo.owner);
     const api = owner.context.request;
     const teams = (await (await api.get(`${live.server.url}/api/teams`)).json()) as { teams: { id: string; name: string }[] };
     teamId = teams.teams.find((team) => team.name === demo.teamName)?.id ?? '';
@@ -72,7 +55,7 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
     page.setDefaultTimeout(15_000);
     await page.goto(`${live.server.url}/notebooks/${designId}/v/1`);
     await shown(page, 'notebook-title').filter({ hasText: title }).waitFor();
-    await openReview(page);
+    await openReview(page, 'decision-section');
     const section = shown(page, 'decision-section');
     await eventually(() => shown(page, 'review-state').textContent()).toBe('Not reviewed');
     // The owner wrote v1: no way to decide on it, and a line that says why.
@@ -105,12 +88,12 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
 
   it('lets the reviewer sign v1 off with remarks on a phone, with the keyboard, after a 403 in its own words and a missing summary named', async () => {
     reviewer = await person(live.browser, 'review-reviewer', 'phone');
-    await signIn(reviewer, live.server, reviewerAccount.email);
+    await signInAs(reviewer, live.server, reviewerAccount.email);
     const { page } = reviewer;
     page.setDefaultTimeout(15_000);
     await page.goto(`${live.server.url}/notebooks/${designId}/v/1`);
     await shown(page, 'notebook-title').filter({ hasText: title }).waitFor();
-    await openReview(page);
+    await openReview(page, 'decision-section');
     await eventually(() => shown(page, 'review-state').textContent()).toBe('Review requested');
     await eventually(() => shown(page, 'review-request-item').textContent()).toContain('waiting');
 
@@ -204,7 +187,7 @@ describe('review requests and sign-off in Chromium', { timeout: 240_000 }, () =>
     await shown(page, 'save-version').click();
     await eventually(() => shown(page, 'version-line').textContent()).toContain('v2 of 2');
 
-    await openReview(page);
+    await openReview(page, 'decision-section');
     await eventually(() => shown(page, 'review-state').textContent()).toBe('Not reviewed');
     const earlier = shown(page, 'earlier-sign-off');
     await eventually(() => earlier.textContent()).toContain(`v1 was signed off with remarks by ${reviewerAccount.name} on `);

@@ -2,7 +2,7 @@ import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { expectAccessible } from '../support/axe';
 import { liveServerAndBrowser, screenshot, viewports, type ViewportName } from '../support/browser';
-import { demo, eventually, expectNoProblems, linkPath, newestMail, person, shown, type Person } from './journeys/journey';
+import { demo, eventually, expectNoProblems, openReview, signInAs, linkPath, newestMail, person, shown, type Person } from './journeys/journey';
 
 const reviewerAccount = { email: 'tobiah.reviewer@quillmere-lab.example.com', name: 'Tobiah Rennick' };
 const ownerName = 'Maren Okafor-Lind';
@@ -10,23 +10,6 @@ const title = 'Review threads: sodium lamp exit slit';
 const exitSlit = 'slits.exitWidthUm';
 const remark = 'The exit slit is too wide for the 0.2 nm requirement between the sodium lines; narrow it.';
 const reply = 'Narrowed to 60 µm in v3; the bandpass is now under 0.2 nm across the doublet.';
-
-/** Signs the person's context in as a demo account (cookies are shared with its page). */
-async function signIn(who: Person, server: { url: string }, email: string) {
-  const answer = await who.context.request.post(`${server.url}/api/auth/sign-in`, {
-    data: { email, password: demo.password },
-    headers: { origin: server.url },
-  });
-  expect(answer.status()).toBe(200);
-}
-
-/** Opens the version's review from the design bar (a side panel from 1024 px, a sheet below). */
-async function openReview(page: Page) {
-  const toggle = page.getByRole('button', { name: 'Review', exact: true }).filter({ visible: true }).first();
-  await toggle.waitFor();
-  if ((await toggle.getAttribute('aria-expanded')) !== 'true') await toggle.click();
-  await shown(page, 'review-panel').waitFor();
-}
 
 /** The test id, else the accessible name, of the element with the keyboard focus. */
 function focused(page: Page) {
@@ -67,7 +50,7 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
 
   it('starts from a design of its own with v2 at a 100 µm exit slit', async () => {
     owner = await person(live.browser, 'threads-owner', 'wide');
-    await signIn(owner, live.server, demo.owner);
+    await signInAs(owner, live.server, demo.owner);
     const api = owner.context.request;
     const url = live.server.url;
     const teams = (await (await api.get(`${url}/api/teams`)).json()) as { teams: { id: string; name: string }[] };
@@ -101,7 +84,7 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
 
   it('lets the reviewer pin a remark to the exit slit of v2 on a phone, mentioning the owner', async () => {
     reviewer = await person(live.browser, 'threads-reviewer', 'phone');
-    await signIn(reviewer, live.server, reviewerAccount.email);
+    await signInAs(reviewer, live.server, reviewerAccount.email);
     const { page } = reviewer;
     page.setDefaultTimeout(15_000);
     await page.goto(`${live.server.url}/notebooks/${designId}/v/2`);
@@ -284,7 +267,7 @@ describe('review threads pinned to a field, in Chromium', { timeout: 300_000 }, 
 
   it('lets a viewer follow a link to the resolved thread on v2 and read it, with nothing to write', async () => {
     const viewer = await person(live.browser, 'threads-viewer', 'tablet');
-    await signIn(viewer, live.server, 'juno.viewer@quillmere-lab.example.com');
+    await signInAs(viewer, live.server, 'juno.viewer@quillmere-lab.example.com');
     const { page } = viewer;
     page.setDefaultTimeout(15_000);
     const review = (await (await viewer.context.request.get(`${live.server.url}/api/designs/${designId}/versions/2/review`)).json()) as {

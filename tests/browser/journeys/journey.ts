@@ -223,3 +223,23 @@ export function shown(page: Page, testID: string): Locator {
 export function eventually<T>(read: () => T | Promise<T>, timeout = 15_000) {
   return expect.poll(read, { timeout });
 }
+
+/** Signs the person's context in as a demo account through the API (cookies are shared with its page). */
+export async function signInAs(who: Person, server: { url: string }, email: string) {
+  const answer = await who.context.request.post(`${server.url}/api/auth/sign-in`, {
+    data: { email, password: demo.password },
+    headers: { origin: server.url },
+  });
+  expect(answer.status()).toBe(200);
+}
+
+/**
+ * Opens the version's review from the design bar (a side panel from 1024 px, a sheet below) and
+ * waits for `ready` (a test id inside it) to show.
+ */
+export async function openReview(page: Page, ready = 'review-panel') {
+  const toggle = page.getByRole('button', { name: 'Review', exact: true }).filter({ visible: true }).first();
+  await toggle.waitFor();
+  if ((await toggle.getAttribute('aria-expanded')) !== 'true') await toggle.click();
+  await shown(page, ready).waitFor();
+}
