@@ -35,7 +35,13 @@ export function NotebookListScreen() {
     const made = await importFile.mutateAsync(file);
     router.push(`/notebooks/${made.design.id}` as Href);
   };
-  useDocumentTitle(teams.data && !team ? 'No such team' : team ? `Designs of ${team.personal ? 'your personal workspace' : team.name}` : 'Team designs');
+  useDocumentTitle(
+    teams.data && !team
+      ? 'No such team'
+      : team
+        ? `Designs of ${team.personal ? 'your personal workspace' : team.name}`
+        : 'Team designs',
+  );
 
   if (teams.data && !team) {
     return (
@@ -94,9 +100,9 @@ export function NotebookListScreen() {
       {owner ? (
         <Card title="Import">
           <Text tone="muted">
-            A notebook file exported from Blazebook: every version and its notes. It becomes a new design
-            here, marked as imported, and opens. Problems are listed with their place in the file, and
-            nothing is half-imported.
+            A notebook file exported from Blazebook: every version, its notes and its review threads and
+            decisions. It becomes a new design here, marked as imported, and opens. Problems are listed with
+            their place in the file, and nothing is half-imported.
           </Text>
           <ImportButton onImport={importAndOpen} busy={importFile.isPending} />
         </Card>
