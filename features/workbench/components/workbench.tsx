@@ -216,9 +216,13 @@ export function Workbench({
     );
   }
 
-  if (layout === 'tablet') {
+  if (layout === 'tablet' || aside) {
+    // Editor, then the review when it is open (the middle column), then figures, read-out and table.
     return (
-      <View style={[styles.root, styles.row]} testID="workbench-tablet">
+      <View
+        style={[styles.root, styles.row]}
+        testID={layout === 'tablet' ? 'workbench-tablet' : 'workbench-wide'}
+      >
         <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
           {header}
           {editor}
@@ -228,28 +232,6 @@ export function Workbench({
             {aside}
           </ScrollView>
         ) : null}
-        <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
-          {blocked}
-          {graphics}
-          {warnings}
-          {readout}
-          {table}
-        </ScrollView>
-      </View>
-    );
-  }
-
-  if (aside) {
-    // The review takes the middle column; the figures, read-out and table share the last one.
-    return (
-      <View style={[styles.root, styles.row]} testID="workbench-wide">
-        <ScrollView style={styles.editorPane} contentContainerStyle={[styles.column, pad]}>
-          {header}
-          {editor}
-        </ScrollView>
-        <ScrollView style={styles.asidePane} contentContainerStyle={[styles.column, pad]}>
-          {aside}
-        </ScrollView>
         <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
           {blocked}
           {graphics}
