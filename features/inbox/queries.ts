@@ -1,6 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiContract } from '@/shared/contract';
-import type { MailSettings, MarkReadRequest } from '@/shared/reviews';
+import type { InboxItem, MailSettings, MarkReadRequest } from '@/shared/reviews';
 import { call, routeKey, staleTime } from '@/features/api';
 
 const routes = apiContract.inbox;
@@ -39,13 +39,33 @@ export function useInboxQuery(onlyUnread: boolean) {
   });
 }
 
+type InboxAnswer = { items: InboxItem[]; unread: number };
+
+/**
+ * What every cached list looks like once `body` is read: items marked read now, and gone from the
+ * unread-only list. Without it, switching "Only unread" off after "Mark all read" would show the
+ * other list's cached copy, still saying Unread, until its refetch came back.
+ */
+export function listAfterMarkRead(answer: InboxAnswer, body: MarkReadRequest, unread: number, now: string, onlyUnread: boolean): InboxAnswer {
+  const marked = (item: InboxItem) => 'all' in body || body.ids.includes(item.id);
+  const items = answer.items
+    .filter((item) => !(onlyUnread && marked(item)))
+    .map((item) => (marked(item) && item.readAt === null ? { ...item, readAt: now } : item));
+  return { items, unread };
+}
+
 /** Marks items (or all) read; the answer is the new unread count, so the badge changes at once. */
 export function useMarkReadMutation() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: MarkReadRequest) => call(routes.markRead, { body }),
-    onSuccess: ({ unread }) => {
+    onSuccess: ({ unread }, body) => {
       queryClient.setQueryData(unreadKey, { unread });
+      const now = new Date().toISOString();
+      for (const onlyUnread of [false, true]) {
+        const key = routeKey(routes.list, { query: { unread: onlyUnread ? ('only' as const) : ('all' as const) } });
+        queryClient.setQueryData<InboxAnswer>(key, (answer) => (answer ? listAfterMarkRead(answer, body, unread, now, onlyUnread) : answer));
+      }
     },
     onSettled: () => queryClient.invalidateQueries({ queryKey: routeKey(routes.list) }),
   });
