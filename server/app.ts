@@ -14,6 +14,7 @@ import { createOutboxRepository } from './mail/outbox-repository';
 import { createInbox } from './inbox/index';
 import { createNotebooks } from './notebooks/index';
 import { createReviews } from './reviews/index';
+import { createSheets } from './sheets/index';
 import { openApiRoute } from './openapi';
 import { solveRoute } from './solve/router';
 import { createTeams } from './teams/index';
@@ -109,6 +110,7 @@ export function createApp(deps: AppDeps) {
   const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock });
   const inbox = createInbox({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl, log: deps.log });
   const reviews = createReviews({ db: deps.database.db, clock: deps.clock, notifier: inbox.notifier, lists: notebooks.lists });
+  const sheets = createSheets({ db: deps.database.db, clock: deps.clock, publicUrl, notebooks: notebooks.service, reviews: reviews.service });
   apiRouter.use(
     mountContract(
       {
@@ -116,6 +118,7 @@ export function createApp(deps: AppDeps) {
         teams: teams.router,
         notebooks: notebooks.router,
         reviews: reviews.router,
+        sheets: sheets.router,
         inbox: inbox.router,
         platform: {
           solve: solveRoute(deps.rateLimits),

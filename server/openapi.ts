@@ -50,6 +50,17 @@ export async function buildOpenApiDocument(version: string): Promise<Document> {
     const access = entry.meta.access;
     operation.description = [operation.description, accessText(access)].filter(Boolean).join('\n\n');
     if (access.kind === 'signed-in' || access.kind === 'team') operation.security = [{ [sessionScheme]: [] }];
+    if (entry.meta.file) {
+      // A file answer has no JSON schema: say what it is instead.
+      const { mediaType } = entry.meta.file;
+      operation.responses = {
+        ...operation.responses,
+        [String(entry.status)]: {
+          description: `The file (${mediaType}), built whole before it is sent; Content-Disposition names it.`,
+          content: { [mediaType]: { schema: { type: 'string', contentMediaType: mediaType } } },
+        },
+      };
+    }
     operation.responses = { ...operation.responses, '4XX': errorResponse('Refused: the error shape names the reason and any bad fields.'), '5XX': errorResponse('Unexpected failure (no detail is given).') };
   }
   return document;

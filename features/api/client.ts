@@ -67,20 +67,46 @@ export async function call<R extends Route>(route: R, input: RouteInput<R>, opti
     signal: options.signal,
   });
   const payload: unknown = response.status === 204 ? undefined : await response.json().catch(() => null);
-  if (!response.ok) {
-    const parsed = errorBodySchema.safeParse(payload);
-    if (parsed.success) {
-      const { code, message, fields, details } = parsed.data.error;
-      throw new ApiError(response.status, code, message, fields, details);
-    }
-    throw new ApiError(response.status, 'unexpected', `The server answered ${response.status}.`);
-  }
+  if (!response.ok) throw refusal(response.status, payload);
   if (status === 204 || !output) return undefined as RouteAnswer<R>;
   const parsed = (output as z.ZodType).safeParse(payload);
   if (!parsed.success) {
     throw new ApiError(response.status, 'bad_response', `The server's answer to ${routeName(route)} did not match what this app expects.`);
   }
   return parsed.data as RouteAnswer<R>;
+}
+
+/** The error an answer that is not ok carries: the server's error shape, or a plain one. */
+function refusal(status: number, payload: unknown): ApiError {
+  const parsed = errorBodySchema.safeParse(payload);
+  if (parsed.success) {
+    const { code, message, fields, details } = parsed.data.error;
+    return new ApiError(status, code, message, fields, details);
+  }
+  return new ApiError(status, 'unexpected', `The server answered ${status}.`);
+}
+
+/** A downloaded file: its bytes and the name the server's Content-Disposition gave it. */
+export type DownloadedFile = { blob: Blob; fileName: string | null };
+
+/**
+ * Fetches a route whose answer is a file (`file` in the contract, e.g. a design sheet): the bytes
+ * whole, or the server's error shape as an `ApiError`, like `call`.
+ */
+export async function fetchFile<R extends Route>(route: R, input: RouteInput<R>, options: { signal?: AbortSignal } = {}): Promise<DownloadedFile> {
+  const { method, meta } = describe(route);
+  if (!meta.file) throw new Error(`${routeName(route)} answers JSON: use call().`);
+  const response = await fetch(urlFor(route, input as PartValues), {
+    method,
+    credentials: 'same-origin',
+    headers: { accept: `${meta.file.mediaType}, application/json` },
+    signal: options.signal,
+  });
+  if (!response.ok) throw refusal(response.status, await response.json().catch(() => null));
+  const blob = await response.blob();
+  const disposition = response.headers.get('content-disposition') ?? '';
+  const fileName = /filename="([^"]+)"/.exec(disposition)?.[1] ?? null;
+  return { blob, fileName };
 }
 
 /** Every key of one contract group (`['teams']`): invalidates all of its routes at once. */

@@ -1,2 +1,2 @@
-export { ApiError, call, groupKey, routeKey, urlFor, withParams } from './client';
+export { ApiError, call, fetchFile, groupKey, routeKey, urlFor, withParams, type DownloadedFile } from './client';
 export { createQueryClient, staleTime } from './query-client';

@@ -73,6 +73,21 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
     return { design, version };
   }
 
+  async function openShare(token: string) {
+    const found = await store.shareLinkByTokenHash(await hashToken(token));
+    const now = clock.now();
+    if (!found || found.link.revokedAt || (found.link.expiresAt && found.link.expiresAt <= now)) throw shareGone();
+    const version = await store.version(found.link.designId, found.link.version ?? found.latestVersion);
+    if (!version) throw shareGone();
+    return {
+      designId: found.link.designId,
+      title: found.title,
+      pinned: found.link.version !== null,
+      expiresAt: found.link.expiresAt?.toISOString() ?? null,
+      version,
+    };
+  }
+
   /** A new design with its versions, all by `user` (and an imported file's review), in one transaction. */
   async function insertNotebook(
     user: User,
@@ -269,20 +284,16 @@ export function createNotebooksService({ store, roles, clock }: NotebooksService
 
     /** Signed out: the token is the credential, and it opens exactly one version. */
     async shared(token: string): Promise<SharedVersionResponse> {
-      const found = await store.shareLinkByTokenHash(await hashToken(token));
-      const now = clock.now();
-      if (!found || found.link.revokedAt || (found.link.expiresAt && found.link.expiresAt <= now))
-        throw shareGone();
-      const version = await store.version(found.link.designId, found.link.version ?? found.latestVersion);
-      if (!version) throw shareGone();
+      const { title, pinned, expiresAt, version } = await openShare(token);
       const { number, message, createdAt, params, notes, summary } = version;
-      return {
-        title: found.title,
-        pinned: found.link.version !== null,
-        expiresAt: found.link.expiresAt?.toISOString() ?? null,
-        version: { number, message, createdAt, params, notes, summary },
-      };
+      return { title, pinned, expiresAt, version: { number, message, createdAt, params, notes, summary } };
     },
+
+    /** A design with one of its versions, for a member who may read it (the design sheet's door). */
+    versionWithDesign: withVersion,
+
+    /** What a live share link opens, with the design's id (for the design sheet); 404 `share_gone` otherwise. */
+    openShare,
 
     async exportFile(user: User, designId: string): Promise<NotebookFile> {
       const design = await designFor(user, designId, 'designs.read');

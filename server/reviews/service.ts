@@ -222,49 +222,57 @@ export function createReviewsService({ repository, clock, notifier, lists, log =
     return rows.map((row) => toRequest(row, names));
   }
 
+  /** Version `n`'s review as the panel shows it; callers check access first. */
+  async function reviewOf(designId: string, n: number): Promise<VersionReview> {
+    const version = await versionOf(designId, n);
+    const threads = await repository.threadsFor(designId, n);
+    // Field pins compare with the value kept on the thread; other pins need their version's design.
+    const earlier = [...new Set(threads.filter((t) => t.versionNumber < n && (t.pin as Pin).kind !== 'field').map((t) => t.versionNumber))];
+    const [remarks, decisions, params, signOff, state] = await Promise.all([
+      repository.remarksOf(threads.map((t) => t.id)),
+      repository.decisions(designId, n),
+      repository.versionParams(designId, earlier),
+      repository.earlierSignOff(designId, n),
+      repository.versionState(designId, n),
+    ]);
+    const requests = await requestsAnswer(designId, n);
+    const names = await repository.names(
+      idsOf(threads, remarks, [...decisions.map((d) => d.reviewerId), signOff?.reviewerId ?? null]),
+    );
+    const remarksBy = new Map<string, RemarkRow[]>();
+    for (const remark of remarks) remarksBy.set(remark.threadId, [...(remarksBy.get(remark.threadId) ?? []), remark]);
+    let signOffPaths: string[] = [];
+    if (signOff) {
+      const then = (await repository.versionParams(designId, [signOff.versionNumber])).get(signOff.versionNumber);
+      signOffPaths = then ? changedPaths(then as Design, version.params as Design) : [];
+    }
+    return {
+      version: n,
+      authorId: version.authorId,
+      state,
+      threads: threads.map((thread) =>
+        toThread(
+          thread,
+          remarksBy.get(thread.id) ?? [],
+          names,
+          carryOf(thread, n, params.get(thread.versionNumber), version.params),
+        ),
+      ),
+      requests,
+      decisions: decisions.map((row) => toDecision(row, names)),
+      earlierSignOff: signOff ? { decision: toDecision(signOff, names), changedPaths: signOffPaths } : null,
+    };
+  }
+
   return {
     /** Version `n`'s review panel: its threads, the open ones carried from earlier versions, requests, decisions, state. */
     async get(user: User, designId: string, n: number): Promise<VersionReview> {
       await designFor(user, designId, 'designs.read');
-      const version = await versionOf(designId, n);
-      const threads = await repository.threadsFor(designId, n);
-      // Field pins compare with the value kept on the thread; other pins need their version's design.
-      const earlier = [...new Set(threads.filter((t) => t.versionNumber < n && (t.pin as Pin).kind !== 'field').map((t) => t.versionNumber))];
-      const [remarks, decisions, params, signOff, state] = await Promise.all([
-        repository.remarksOf(threads.map((t) => t.id)),
-        repository.decisions(designId, n),
-        repository.versionParams(designId, earlier),
-        repository.earlierSignOff(designId, n),
-        repository.versionState(designId, n),
-      ]);
-      const requests = await requestsAnswer(designId, n);
-      const names = await repository.names(
-        idsOf(threads, remarks, [...decisions.map((d) => d.reviewerId), signOff?.reviewerId ?? null]),
-      );
-      const remarksBy = new Map<string, RemarkRow[]>();
-      for (const remark of remarks) remarksBy.set(remark.threadId, [...(remarksBy.get(remark.threadId) ?? []), remark]);
-      let signOffPaths: string[] = [];
-      if (signOff) {
-        const then = (await repository.versionParams(designId, [signOff.versionNumber])).get(signOff.versionNumber);
-        signOffPaths = then ? changedPaths(then as Design, version.params as Design) : [];
-      }
-      return {
-        version: n,
-        authorId: version.authorId,
-        state,
-        threads: threads.map((thread) =>
-          toThread(
-            thread,
-            remarksBy.get(thread.id) ?? [],
-            names,
-            carryOf(thread, n, params.get(thread.versionNumber), version.params),
-          ),
-        ),
-        requests,
-        decisions: decisions.map((row) => toDecision(row, names)),
-        earlierSignOff: signOff ? { decision: toDecision(signOff, names), changedPaths: signOffPaths } : null,
-      };
+      return reviewOf(designId, n);
     },
+
+    /** The same without an access check: for the design sheet, whose route checked access already. */
+    reviewOf,
 
     /** Every version's state, newest first. */
     async states(user: User, designId: string): Promise<VersionReviewState[]> {

@@ -25,6 +25,12 @@ export type RouteMeta = {
    * cookie and write nothing (the solver), which lab scripts call without an Origin header.
    */
   originExempt?: boolean;
+  /**
+   * The answer is a file of this media type (sent as bytes with a Content-Disposition naming it),
+   * not JSON: the route has no output schema, the client downloads it (`features/api` `fetchFile`)
+   * and the OpenAPI document describes it as binary.
+   */
+  file?: { mediaType: 'application/pdf' };
 };
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -54,10 +60,11 @@ export type RouteSpec<Params, Query, Body, O> = {
   params?: Params;
   query?: Query;
   body?: Body;
-  /** The answer's schema; omitted only with status 204. */
+  /** The answer's schema; omitted only with status 204 or a `file` answer. */
   output?: O;
   access: Access;
   originExempt?: boolean;
+  file?: RouteMeta['file'];
   tag: string;
 };
 
@@ -91,7 +98,7 @@ export function route<
       tags: [spec.tag],
       inputStructure: 'detailed',
     })
-    .meta({ access: spec.access, ...(spec.originExempt ? { originExempt: true } : {}) })
+    .meta({ access: spec.access, ...(spec.originExempt ? { originExempt: true } : {}), ...(spec.file ? { file: spec.file } : {}) })
     .input(z.object(shape));
   return (spec.output ? procedure.output(spec.output) : procedure) as unknown as Route<InputSchema<Params, Query, Body>, O>;
 }
