@@ -4,7 +4,7 @@ import type { InboxItem } from '@/shared/reviews';
 
 const item = (id: string, readAt: string | null): InboxItem => ({
   id,
-  kind: 'mention',
+  kind: 'mentioned',
   designId: 'd1',
   designTitle: 'Bench monochromator',
   version: 2,
