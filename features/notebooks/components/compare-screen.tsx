@@ -4,6 +4,7 @@ import { Pressable, StyleSheet, View, type LayoutChangeEvent } from 'react-nativ
 import { flattenDesign } from '@/shared/design-diff';
 import type { CompareResponse, Version } from '@/shared/notebooks';
 import { LinePlot, type PlotSeries } from '@/features/plots';
+import { SheetButton } from '@/features/sheets';
 import { OverlaySketch } from '@/features/sketch';
 import { Card, Heading, Screen, Text, colors, fonts, space, useDocumentTitle, useLayout } from '@/features/ui';
 import { compareSeries, type ComparedMetric } from '../compare-series';
@@ -279,6 +280,13 @@ export function CompareScreen() {
           onChange={(n) => pick({ b: n })}
           testID="compare-b"
         />
+        {/* Once the comparison loads, so the sheet is offered only for a pair that exists. */}
+        {data ? (
+          <SheetButton
+            target={{ kind: 'compare', designId: notebookId, a: data.a.number, b: data.b.number, title: notebook.data?.design.title ?? '' }}
+            testID="compare-sheet-download"
+          />
+        ) : null}
       </Card>
       {compare.isError ? (
         <Text role="alert" tone="danger">

@@ -7,6 +7,7 @@ import { pinLabel, pinnedResults, type Pin, type PinnedResult } from '@/shared/r
 import { can, roleLabels } from '@/shared/teams';
 import { ApiError } from '@/features/api';
 import { ReviewSheet, ReviewSidePanel, useVersionReviewQuery, type ReviewFocus, type ReviewPanelProps } from '@/features/reviews';
+import { SheetButton } from '@/features/sheets';
 import { Button, Card, Text, colors, minTouch, radius, space } from '@/features/ui';
 import {
   draftFromDesign,
@@ -360,7 +361,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
           onDiscard={discard}
         />
       ) : null}
-      <View role="group" aria-label={`Version ${version.number}: save, notes and review`} style={styles.bar} testID="design-bar">
+      <View role="group" aria-label={`Version ${version.number}: save, notes, review and design sheet`} style={styles.bar} testID="design-bar">
         {editable ? <PanelToggle label="Save version" open={open.has('save')} onPress={() => toggle('save')} testID="bar-save" /> : null}
         <PanelToggle label="Notes" open={open.has('notes')} onPress={() => toggle('notes')} testID="bar-notes" />
         <PanelToggle label="Review" open={open.has('review')} onPress={() => toggle('review')} testID="bar-review" buttonRef={reviewButton} />
@@ -370,6 +371,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
             Unsaved changes
           </Text>
         ) : null}
+        <SheetButton target={{ kind: 'version', designId: design.id, version: version.number, title: design.title }} />
       </View>
       {editable && open.has('save') ? (
         <SaveCard

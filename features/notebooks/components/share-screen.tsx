@@ -2,6 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { useCallback } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/features/api';
+import { SheetButton } from '@/features/sheets';
 import { Card, Heading, Screen, Text, colors, space, useDocumentTitle } from '@/features/ui';
 import { draftFromDesign, Workbench } from '@/features/workbench';
 import { formatDay, formatWhen } from '../format';
@@ -70,6 +71,7 @@ export function ShareScreen() {
               </Text>
             ) : null}
           </View>
+          <SheetButton target={{ kind: 'shared', token, version: version.number, title: data.title }} />
           <Card title="Notes" testID="notes-card">
             <MarkdownView source={version.notes} testID="notes" />
           </Card>
