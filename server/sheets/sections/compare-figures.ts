@@ -1,10 +1,55 @@
+import { formatQuantity } from '../../../shared/format';
+import type { FigureChange } from '../../../shared/notebooks/index';
+import { changeTone, figureLabels, formatFigure, formatRelativeChange } from '../../../shared/notebooks/figure-labels';
 import type { CompareSheetSection } from '../section';
+import { sheetColors, textSize } from '../writer';
 
-/** PLACEHOLDER until its owner fills it in: prints the heading only. */
+/** "better" / "worse" in words beside the change, as the compare screen's colours say it, so it survives a grey printer. */
+const toneWords = { ok: 'better', danger: 'worse', muted: '' } as const;
+
+/** A figure that moved: its value differs between the versions (or one side has none). */
+const moved = (figure: FigureChange) => figure.before !== figure.after;
+
+/** The compare screen's derived figures, before and after, with their relative change ("−12 %"). */
 export const compareFiguresSection: CompareSheetSection = {
   id: 'compare-figures',
   title: 'Figure changes',
-  draw(writer) {
+  draw(writer, sheet) {
     writer.sectionHeading(this.title);
+    const va = `v${sheet.a.version.number}`;
+    const vb = `v${sheet.b.version.number}`;
+    if (sheet.figures.length === 0) {
+      writer.paragraph('None.');
+      return;
+    }
+    const centreA = sheet.a.version.summary.centreWavelengthNm;
+    const centreB = sheet.b.version.summary.centreWavelengthNm;
+    const centres =
+      centreA === centreB
+        ? `at the range centre, ${formatQuantity(centreA, 'nm')}`
+        : `each at its own range centre (${va} ${formatQuantity(centreA, 'nm')}, ${vb} ${formatQuantity(centreB, 'nm')})`;
+    writer.paragraph(
+      `Key figures ${centres}; the change is (${vb} − ${va}) / ${va}. Warnings count the default sweep of each range.`,
+      { size: textSize.small, color: sheetColors.muted },
+    );
+    writer.table(
+      [
+        { header: 'Figure', width: 0.34 },
+        { header: va, width: 0.2, align: 'right' },
+        { header: vb, width: 0.2, align: 'right' },
+        { header: 'Change', width: 0.14, align: 'right', font: 'semibold' },
+        { header: '', width: 0.12 },
+      ],
+      sheet.figures.map((figure) => ({
+        cells: [
+          figureLabels[figure.key].label,
+          formatFigure(figure.key, figure.before),
+          formatFigure(figure.key, figure.after),
+          formatRelativeChange(figure.relativeChange),
+          toneWords[changeTone(figure.key, figure.relativeChange)],
+        ],
+        marked: moved(figure),
+      })),
+    );
   },
 };

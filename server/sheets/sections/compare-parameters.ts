@@ -1,10 +1,95 @@
+import type { Design } from '../../../shared/design';
+import { describeDesignPath, describedFieldByPath, describedSections, type DescribedField } from '../../../shared/design-fields';
+import { formatNumber } from '../../../shared/format';
+import type { CompareSheetContext } from '../context';
 import type { CompareSheetSection } from '../section';
+import type { TableRow } from '../writer';
+import { sheetColors, textSize } from '../writer';
 
-/** PLACEHOLDER until its owner fills it in: prints the heading only. */
+/** The word in the marker column: printed, not only tinted, so a grey printout still shows it. */
+export const CHANGED = 'changed';
+
+/** The stored value at `section.key`, or undefined when the section or field is absent. */
+function valueAt(params: Design, path: string): unknown {
+  const [section, key] = path.split('.') as [string, string];
+  const inner = (params as Record<string, Record<string, unknown> | undefined>)[section];
+  return inner?.[key];
+}
+
+/** A value as the editor shows it: a choice by its label ("Czerny–Turner"), a number in full, an absent one "not set". */
+function formatValue(field: DescribedField | undefined, value: unknown): string {
+  if (value === null || value === undefined) return 'not set';
+  if (field?.kind === 'choice' && typeof value === 'string') {
+    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
+  }
+  // A stored parameter is shown in full, not cut to the four figures of a derived one.
+  if (typeof value === 'number') return formatNumber(value, 12);
+  return String(value);
+}
+
+/** The editor's label with the unit its box shows: "Exit slit width (µm)". */
+function fieldName(field: DescribedField): string {
+  return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
+}
+
+function row(name: string, before: string, after: string, changed: boolean): TableRow {
+  return { cells: [name, before, after, changed ? CHANGED : ''], marked: changed };
+}
+
+/**
+ * Every parameter of both versions side by side, under the editor's section headings, a changed
+ * row tinted and marked in words. What counts as changed is the compare answer's (the one design
+ * diff), not a second comparison here.
+ */
+export function compareParameterRows(sheet: CompareSheetContext): TableRow[] {
+  const changed = new Set(sheet.changes.map((change) => change.path));
+  const rows: TableRow[] = [];
+  for (const section of describedSections) {
+    const present = (params: Design) => (params as Record<string, unknown>)[section.id] !== undefined;
+    rows.push({ cells: [section.title, '', '', ''], bold: true });
+    if (!present(sheet.a.params) && !present(sheet.b.params)) {
+      rows.push(row('Not used in either version', '', '', false));
+      continue;
+    }
+    for (const field of section.fields) {
+      const before = valueAt(sheet.a.params, field.path);
+      const after = valueAt(sheet.b.params, field.path);
+      rows.push(row(fieldName(field), formatValue(field, before), formatValue(field, after), changed.has(field.path)));
+    }
+  }
+  // A difference at a path the editor does not describe (none today) is still listed, never dropped.
+  const unknown = sheet.changes.filter((change) => !describedFieldByPath.has(change.path));
+  if (unknown.length > 0) {
+    rows.push({ cells: ['Other', '', '', ''], bold: true });
+    for (const change of unknown) {
+      rows.push(row(describeDesignPath(change.path), formatValue(undefined, change.before), formatValue(undefined, change.after), true));
+    }
+  }
+  return rows;
+}
+
 export const compareParametersSection: CompareSheetSection = {
   id: 'compare-parameters',
   title: 'Parameters side by side',
-  draw(writer) {
+  draw(writer, sheet) {
     writer.sectionHeading(this.title);
+    const va = `v${sheet.a.version.number}`;
+    const vb = `v${sheet.b.version.number}`;
+    const count = sheet.changes.length;
+    writer.paragraph(
+      count === 0
+        ? 'No parameter differs.'
+        : `${count} ${count === 1 ? 'parameter differs' : 'parameters differ'}, tinted and marked “${CHANGED}”.`,
+      { size: textSize.small, color: sheetColors.muted },
+    );
+    writer.table(
+      [
+        { header: 'Parameter', width: 0.46 },
+        { header: va, width: 0.2, align: 'right' },
+        { header: vb, width: 0.2, align: 'right' },
+        { header: '', width: 0.14 },
+      ],
+      compareParameterRows(sheet),
+    );
   },
 };
