@@ -88,7 +88,7 @@ export function cautionsFor(design: Design): Caution[] {
       'Arc and discharge lamps (mercury, deuterium, xenon, neon and other calibration lamps) start and run from supplies ' +
       'of hundreds to thousands of volts. Switch off and unplug the supply and let it stand before touching the lamp, ' +
       'its leads or its housing, and keep the housing closed while it runs. Lamps also run hot.',
-    why: 'Every design is calibrated and run with lamps on such supplies.',
+    why: 'Applies to every design: wavelength calibration uses discharge lamps on such supplies.',
     closing: cautionClosingLine,
   });
   const lines = mercuryLinesInRange(design);
@@ -112,7 +112,7 @@ export function cautionsFor(design: Design): Caution[] {
       'Alignment lasers and laser sources can injure the eye, and a grating or mirror sends the beam, and its other ' +
       'orders, off in directions that are easy to forget. Keep beams low and below eye level, block stray orders, ' +
       'remove watches and rings, and wear eyewear rated for the laser’s wavelength and power.',
-    why: 'Every design is aligned with a laser, and gratings are often tested with laser lines.',
+    why: 'Applies to every design: optics are usually aligned with a laser, and gratings tested with laser lines.',
     closing: cautionClosingLine,
   });
   return cautions;

@@ -1,10 +1,12 @@
+import { drawMarkdown } from '../markdown-pdf';
 import type { SheetSection } from '../section';
 
-/** PLACEHOLDER until its owner fills it in: prints the heading only. */
+/** The version's notes, Markdown drawn as the app reads it (see markdown-pdf.ts). */
 export const notesSection: SheetSection = {
   id: 'notes',
   title: 'Version notes',
-  draw(writer) {
+  draw(writer, sheet) {
     writer.sectionHeading(this.title);
+    drawMarkdown(writer, sheet.version.notes, { emptyText: 'No notes on this version.' });
   },
 };
