@@ -117,6 +117,8 @@ export type SpanTableRow = {
    */
   span?: { from: number; text: string; font?: SheetFont; color?: string };
   marked?: boolean;
+  /** The first cell in semibold, as a heading for the row. */
+  headed?: boolean;
 };
 
 export type SpanTableOptions = {
@@ -143,10 +145,10 @@ function tableGrid(writer: SheetWriter, columns: readonly TableColumn[], { size,
   }
   const right = x + width;
   const cellWidth = (from: number, to = from + 1) => (xs[to] ?? right) - xs[from]! - 2 * PAD;
-  const fontOf = (i: number): SheetFont => columns[i]!.font ?? 'regular';
+  const fontOf = (i: number, row?: SpanTableRow): SheetFont => (row?.headed && i === 0 ? 'semibold' : (columns[i]!.font ?? 'regular'));
   const headerHeight = Math.max(...columns.map((c, i) => writer.measure(c.header, 'semibold', size, cellWidth(i)))) + 2 * PAD;
   const rowHeight = (row: SpanTableRow) => {
-    const heights = row.cells.map((cell, i) => writer.measure(cell, fontOf(i), size, cellWidth(i)));
+    const heights = row.cells.map((cell, i) => writer.measure(cell, fontOf(i, row), size, cellWidth(i)));
     if (row.span) heights.push(writer.measure(row.span.text, row.span.font ?? 'regular', size, cellWidth(row.span.from, columns.length)));
     return Math.max(...heights) + 2 * PAD;
   };
@@ -181,7 +183,7 @@ export function spanTable(writer: SheetWriter, columns: readonly TableColumn[], 
     const y = writer.y;
     if (row.marked) doc.rect(x, y, width, height).fill('#FFF2E6');
     row.cells.forEach((cell, i) => {
-      writer.use(fontOf(i), size).doc.fillColor(sheetColors.ink).text(cell, xs[i]! + PAD, y + PAD, { width: cellWidth(i), align: columns[i]!.align ?? 'left' });
+      writer.use(fontOf(i, row), size).doc.fillColor(sheetColors.ink).text(cell, xs[i]! + PAD, y + PAD, { width: cellWidth(i), align: columns[i]!.align ?? 'left' });
     });
     if (row.span) {
       const { from, text, font, color } = row.span;

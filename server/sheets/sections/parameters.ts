@@ -3,14 +3,14 @@ import { NOT_SET, parameterGroups, spanTable, spanTableHeight, type ParameterGro
 import { margins, textSize, type TableColumn } from '../writer';
 
 const columns: TableColumn[] = [
-  { header: 'Parameter', width: 0.67 },
-  { header: 'Value', width: 0.33 },
+  { header: 'Parameter', width: 0.685 },
+  { header: 'Value', width: 0.315 },
 ];
 
 /** A group's heading row (the editor's section title) and its fields; "Not set" for a section left out. */
 function groupRows({ section, set, rows }: ParameterGroup): SpanTableRow[] {
   const heading: SpanTableRow = { cells: [], span: { from: 0, text: section.title, font: 'semibold' } };
-  if (!set) return [{ cells: [section.title, NOT_SET] }];
+  if (!set) return [{ cells: [section.title, NOT_SET], headed: true }];
   return [heading, ...rows.map(({ field, text }) => ({ cells: [field.label, text] }))];
 }
 
@@ -37,7 +37,7 @@ export const parametersSection: SheetSection = {
   title: 'Parameters',
   draw(writer, sheet) {
     const [left, right] = halves(parameterGroups(sheet.params).map(groupRows));
-    const gutter = 14;
+    const gutter = 12;
     const width = (writer.contentWidth - gutter) / 2;
     const size = textSize.body;
     const placed = [

@@ -65,12 +65,6 @@ export const performanceSection: SheetSection = {
         span: { from: 2, text: `Cannot be reached: ${point.reason ?? 'no grating angle delivers it'}`, font: 'semibold', color: sheetColors.danger },
       };
     });
-    const size = textSize.small;
-    // The heading keeps the whole table with it while it fits a page (a handful of rows always does).
-    writer.sectionHeading(this.title, Math.min(spanTableHeight(writer, columns, rows, { size }), writer.bottom - margins.top - 60));
-    spanTable(writer, columns, rows, { size });
-    writer.gap(6);
-
     const notes = [
       'RLD: reciprocal linear dispersion at the exit plane. Bandpass: slit-limited FWHM. R: resolving power, ' +
         'with the slit and diffraction widths added in quadrature. Blaze efficiency: scalar estimate of the blaze ' +
@@ -91,6 +85,14 @@ export const performanceSection: SheetSection = {
     } else {
       notes.push('No detector is set (a scanning monochromator), so pixels per bandpass does not apply.');
     }
-    for (const note of notes) writer.paragraph(note, { size: textSize.small, color: sheetColors.muted, gapAfter: 2 });
+    const legend = notes.join('\n');
+    const size = textSize.small;
+    const legendHeight = writer.measure(legend, 'regular', size);
+    // The heading keeps the table and the legend's first lines with it while they fit a page (a handful of rows always does).
+    const keepWith = spanTableHeight(writer, columns, rows, { size }) + 6 + Math.min(legendHeight, 3 * size * 1.25);
+    writer.sectionHeading(this.title, Math.min(keepWith, writer.bottom - margins.top - 60));
+    spanTable(writer, columns, rows, { size });
+    writer.gap(6);
+    writer.paragraph(legend, { size, color: sheetColors.muted });
   },
 };
