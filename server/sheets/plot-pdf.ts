@@ -1,5 +1,12 @@
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
-import { axisTitleOf, labelWidthPx, sharesAxis, valueScale, valueTicks, type AxisSeries } from '../../features/plots/axes';
+import {
+  axisTitleOf,
+  labelWidthPx,
+  sharesAxis,
+  valueScale,
+  valueTicks,
+  type AxisSeries,
+} from '../../features/plots/axes';
 import { linePath, type Interval, type Values } from '../../features/plots/plot-paths';
 import { colors } from '../../features/ui/theme';
 import { sheetColors, textSize, type SheetFont, type SheetWriter } from './writer';
@@ -64,20 +71,28 @@ function headerKeys(plot: PdfPlot): { keys: Key[] } {
     keys.push({ label: axisTitleOf(plot.series), swatch: 'line', series: plot.series });
     keys.push({ label: axisTitleOf(plot.secondSeries), swatch: 'line', series: plot.secondSeries });
   }
-  if (plot.shadedLabel && plot.shaded && plot.shaded.length > 0) keys.push({ label: plot.shadedLabel, swatch: 'shade' });
+  if (plot.shadedLabel && plot.shaded && plot.shaded.length > 0)
+    keys.push({ label: plot.shadedLabel, swatch: 'shade' });
   return { keys };
 }
 
 function footerParts(plot: PdfPlot): Part[] {
   const parts: Part[] = [];
-  if (plot.caution) parts.push({ text: plot.caution, font: 'semibold', size: textSize.small, color: sheetColors.warning });
-  if (plot.caption) parts.push({ text: plot.caption, font: 'regular', size: textSize.small, color: sheetColors.muted });
+  if (plot.caution)
+    parts.push({ text: plot.caution, font: 'semibold', size: textSize.small, color: sheetColors.warning });
+  if (plot.caption)
+    parts.push({ text: plot.caption, font: 'regular', size: textSize.small, color: sheetColors.muted });
   return parts;
 }
 
 /** Height of the title and keys above the plot area at `width`, pt. */
 export function plotHeaderHeight(writer: SheetWriter, plot: PdfPlot, width: number): number {
-  return writer.measure(plot.title, 'semibold', textSize.body, width) + 3 + headerKeys(plot).keys.length * KEY_PT + 4;
+  return (
+    writer.measure(plot.title, 'semibold', textSize.body, width) +
+    3 +
+    headerKeys(plot).keys.length * KEY_PT +
+    4
+  );
 }
 
 /**
@@ -85,7 +100,10 @@ export function plotHeaderHeight(writer: SheetWriter, plot: PdfPlot, width: numb
  * one header height so their axes line up), plot area with its axes, caution and caption.
  */
 export function linePlotHeight(writer: SheetWriter, plot: PdfPlot, width: number, headerPt?: number): number {
-  const footer = footerParts(plot).reduce((h, p) => h + writer.measure(p.text, p.font, p.size, width) + CAPTION_GAP_PT, 0);
+  const footer = footerParts(plot).reduce(
+    (h, p) => h + writer.measure(p.text, p.font, p.size, width) + CAPTION_GAP_PT,
+    0,
+  );
   return (headerPt ?? plotHeaderHeight(writer, plot, width)) + PLOT_AREA_PT + X_AXIS_PT + footer;
 }
 
@@ -111,7 +129,8 @@ function layoutFrame(plot: PdfPlot, box: { x: number; y: number; width: number }
   const yTicks = valueTicks(y, series.tickFormat);
   const y2 = secondSeries && !shared ? valueScale([secondSeries], top, bottom) : null;
   const y2Ticks = y2 ? valueTicks(y2, secondSeries?.tickFormat) : null;
-  const margin = (labels: readonly string[]) => TITLE_BAND_PT + labelWidthPx(labels, TICK_PT) + TICK_GAP_PT + 2;
+  const margin = (labels: readonly string[]) =>
+    TITLE_BAND_PT + labelWidthPx(labels, TICK_PT) + TICK_GAP_PT + 2;
   const left = box.x + margin(yTicks.labels);
   const right = box.x + box.width - (y2Ticks ? margin(y2Ticks.labels) : MIN_SIDE_PT);
   const xs = plot.wavelengthsNm;
@@ -135,7 +154,10 @@ export function drawLinePlot(
   const { doc } = writer;
   const cursor = { x: doc.x, y: doc.y };
   let y = at.y;
-  writer.use('semibold', textSize.body).doc.fillColor(sheetColors.ink).text(plot.title, at.x, y, { width: at.width });
+  writer
+    .use('semibold', textSize.body)
+    .doc.fillColor(sheetColors.ink)
+    .text(plot.title, at.x, y, { width: at.width });
   y += writer.measure(plot.title, 'semibold', textSize.body, at.width) + 3;
   for (const key of headerKeys(plot).keys) {
     drawKey(writer, key, at.x, y);
@@ -159,12 +181,19 @@ function drawKey(writer: SheetWriter, key: Key, x: number, y: number): void {
   const mid = y + KEY_PT / 2 - 1;
   doc.save();
   if (key.swatch === 'shade') {
-    doc.rect(x, mid - 3.5, 14, 7).lineWidth(0.5).fillAndStroke(colors.warningSoft, sheetColors.line);
+    doc
+      .rect(x, mid - 3.5, 14, 7)
+      .lineWidth(0.5)
+      .fillAndStroke(colors.warningSoft, sheetColors.line);
   } else if (key.series) {
     stroke(writer, `M${x},${mid}H${x + 14}`, key.series.color, 1.3, key.series.dash);
   }
   doc.restore();
-  label(writer, key.label, x + 18, mid + TICK_PT * 0.35, { font: 'regular', size: AXIS_TITLE_PT, color: sheetColors.muted });
+  label(writer, key.label, x + 18, mid + TICK_PT * 0.35, {
+    font: 'regular',
+    size: AXIS_TITLE_PT,
+    color: sheetColors.muted,
+  });
 }
 
 function drawBody(writer: SheetWriter, plot: PdfPlot, frame: Frame, at: { x: number; width: number }): void {
@@ -185,7 +214,8 @@ function drawBody(writer: SheetWriter, plot: PdfPlot, frame: Frame, at: { x: num
   const xTicks = x.ticks(Math.max(2, Math.floor((right - left) / 48)));
   const xFormat = x.tickFormat(xTicks.length);
   let marks =
-    xTicks.map((t) => `M${x(t)},${bottom}v2.5`).join('') + yTicks.values.map((t) => `M${left},${y(t)}h-2.5`).join('');
+    xTicks.map((t) => `M${x(t)},${bottom}v2.5`).join('') +
+    yTicks.values.map((t) => `M${left},${y(t)}h-2.5`).join('');
   if (y2 && y2Ticks) marks += y2Ticks.values.map((t) => `M${right},${y2(t)}h2.5`).join('');
   stroke(writer, marks, sheetColors.muted, 0.6);
 
@@ -201,28 +231,47 @@ function drawBody(writer: SheetWriter, plot: PdfPlot, frame: Frame, at: { x: num
     label(writer, xFormat(t), x(t), bottom + 3 + TICK_PT, { ...tick, anchor });
   }
   yTicks.values.forEach((t, i) =>
-    label(writer, yTicks.labels[i] ?? '', left - TICK_GAP_PT, y(t) + TICK_PT * 0.35, { ...tick, anchor: 'end' }),
+    label(writer, yTicks.labels[i] ?? '', left - TICK_GAP_PT, y(t) + TICK_PT * 0.35, {
+      ...tick,
+      anchor: 'end',
+    }),
   );
   if (y2 && y2Ticks && secondSeries) {
     y2Ticks.values.forEach((t, i) =>
-      label(writer, y2Ticks.labels[i] ?? '', right + TICK_GAP_PT, y2(t) + TICK_PT * 0.35, { ...tick, color: secondSeries.color }),
+      label(writer, y2Ticks.labels[i] ?? '', right + TICK_GAP_PT, y2(t) + TICK_PT * 0.35, {
+        ...tick,
+        color: secondSeries.color,
+      }),
     );
   }
   const axisTitle = { font: 'regular' as const, size: AXIS_TITLE_PT, anchor: 'middle' as const };
-  label(writer, 'Wavelength (nm)', (left + right) / 2, bottom + X_AXIS_PT - 4, { ...axisTitle, color: sheetColors.ink });
+  label(writer, 'Wavelength (nm)', (left + right) / 2, bottom + X_AXIS_PT - 4, {
+    ...axisTitle,
+    color: sheetColors.ink,
+  });
   const midY = (top + bottom) / 2;
+  // Turned titles: their glyphs rise from the baseline towards the plot's outer edge.
   // One axis for two lines: its title belongs to both, so it takes neither line's colour.
   const yTitleColor = secondSeries && !y2 ? sheetColors.ink : series.color;
-  label(writer, axisTitleOf(series), at.x + AXIS_TITLE_PT, midY, { ...axisTitle, color: yTitleColor, rotate: -90 });
+  label(writer, axisTitleOf(series), at.x + AXIS_TITLE_PT, midY, {
+    ...axisTitle,
+    color: yTitleColor,
+    rotate: -90,
+  });
   if (secondSeries && y2) {
-    label(writer, axisTitleOf(secondSeries), at.x + at.width - AXIS_TITLE_PT + 2, midY, {
+    label(writer, axisTitleOf(secondSeries), at.x + at.width - AXIS_TITLE_PT, midY, {
       ...axisTitle,
       color: secondSeries.color,
       rotate: 90,
     });
   }
   if (!d && plot.emptyMessage) {
-    label(writer, plot.emptyMessage, (left + right) / 2, midY, { font: 'regular', size: textSize.body, color: sheetColors.muted, anchor: 'middle' });
+    label(writer, plot.emptyMessage, (left + right) / 2, midY, {
+      font: 'regular',
+      size: textSize.body,
+      color: sheetColors.muted,
+      anchor: 'middle',
+    });
   }
 }
 
@@ -242,7 +291,13 @@ function label(
   text: string,
   x: number,
   y: number,
-  options: { font: SheetFont; size: number; color: string; anchor?: 'start' | 'middle' | 'end'; rotate?: number },
+  options: {
+    font: SheetFont;
+    size: number;
+    color: string;
+    anchor?: 'start' | 'middle' | 'end';
+    rotate?: number;
+  },
 ): void {
   const { doc } = writer;
   writer.use(options.font, options.size);

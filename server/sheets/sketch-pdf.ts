@@ -29,7 +29,10 @@ export function sketchSceneOptions(writer: SheetWriter): SceneOptions {
 }
 
 /** Height the framed sketch takes across the content column, pt. */
-export function sketchFigureHeight(writer: SheetWriter, scene: Pick<SketchScene, 'widthPx' | 'heightPx'>): number {
+export function sketchFigureHeight(
+  writer: SheetWriter,
+  scene: Pick<SketchScene, 'widthPx' | 'heightPx'>,
+): number {
   const inner = writer.contentWidth - 2 * FRAME_PAD_PT;
   return (scene.heightPx * inner) / scene.widthPx + 2 * FRAME_PAD_PT;
 }
@@ -45,7 +48,10 @@ export function drawSketchFigure(writer: SheetWriter, scene: SketchScene, keepWi
   const frame = writer.box(height);
   const { doc } = writer;
   doc.save();
-  doc.rect(frame.x, frame.y, frame.width, frame.height).lineWidth(0.5).fillAndStroke('#FFFFFF', sheetColors.line);
+  doc
+    .rect(frame.x, frame.y, frame.width, frame.height)
+    .lineWidth(0.5)
+    .fillAndStroke('#FFFFFF', sheetColors.line);
   doc.restore();
   // pdfkit moves its cursor to each label it sets (in the scene's scaled units): keep the writer's.
   const { x, y } = doc;
@@ -64,7 +70,10 @@ export function drawSketchFigure(writer: SheetWriter, scene: SketchScene, keepWi
  * The words beside a sketch, as the saved SVG file carries them: its one-line description
  * (`<title>`) and the drawing's notes and unreachable wavelengths (`<desc>`).
  */
-export function sketchWords(geometry: SketchGeometry, design: Design): { description: string; notes: string[] } {
+export function sketchWords(
+  geometry: SketchGeometry,
+  design: Design,
+): { description: string; notes: string[] } {
   return {
     description: describeSketch(geometry, design),
     notes: [
@@ -97,9 +106,10 @@ export function printableScene(writer: SheetWriter, scene: SketchScene): SketchS
       return false;
     }
   };
-  const shapes = scene.shapes.map(
-    (shape): SketchShape =>
-      shape.type === 'text' && shape.weight === 'mono' && !settable(shape.text) ? { ...shape, weight: 'regular' } : shape,
+  const shapes = scene.shapes.map((shape): SketchShape =>
+    shape.type === 'text' && shape.weight === 'mono' && !settable(shape.text)
+      ? { ...shape, weight: 'regular' }
+      : shape,
   );
   return { ...scene, shapes };
 }

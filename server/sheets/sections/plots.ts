@@ -23,13 +23,24 @@ export function sheetPlots(evaluation: SheetContext['evaluation']): PdfPlot[] {
     {
       title: 'Reciprocal dispersion',
       wavelengthsNm: xs,
-      series: { label: 'Reciprocal dispersion', unit: 'nm/mm', values: data.reciprocalDispersionNmPerMm, color: colors.primary },
+      series: {
+        label: 'Reciprocal dispersion',
+        unit: 'nm/mm',
+        values: data.reciprocalDispersionNmPerMm,
+        color: colors.primary,
+      },
       emptyMessage: NO_VALUE,
     },
     {
       title: 'Bandpass and resolving power',
       wavelengthsNm: xs,
-      series: { label: 'Bandpass', unit: 'nm', axisTitle: 'bandpass, nm', values: data.bandpassNm, color: colors.primary },
+      series: {
+        label: 'Bandpass',
+        unit: 'nm',
+        axisTitle: 'bandpass, nm',
+        values: data.bandpassNm,
+        color: colors.primary,
+      },
       secondSeries: {
         label: 'R',
         unit: '',
@@ -61,7 +72,13 @@ export function sheetPlots(evaluation: SheetContext['evaluation']): PdfPlot[] {
     {
       title: 'Grating rotation (scan curve)',
       wavelengthsNm: xs,
-      series: { label: 'Rotation', unit: '°', axisTitle: 'rotation φ, °', values: data.gratingRotationDeg, color: colors.primary },
+      series: {
+        label: 'Rotation',
+        unit: '°',
+        axisTitle: 'rotation φ, °',
+        values: data.gratingRotationDeg,
+        color: colors.primary,
+      },
       emptyMessage: NO_VALUE,
     },
   ];
@@ -81,8 +98,10 @@ export const plotsSection: SheetSection = {
     const width = (writer.contentWidth - COLUMN_GAP_PT) / 2;
     const rows = [plots.slice(0, 2), plots.slice(2, 4)];
     // Plots side by side share a header height, so their plot areas line up.
-    const headerOf = (row: PdfPlot[]) => Math.max(...row.map((plot) => plotHeaderHeight(writer, plot, width)));
-    const rowHeight = (row: PdfPlot[]) => Math.max(...row.map((plot) => linePlotHeight(writer, plot, width, headerOf(row))));
+    const headerOf = (row: PdfPlot[]) =>
+      Math.max(...row.map((plot) => plotHeaderHeight(writer, plot, width)));
+    const rowHeight = (row: PdfPlot[]) =>
+      Math.max(...row.map((plot) => linePlotHeight(writer, plot, width, headerOf(row))));
     const missing = unreachableCount(sheet.evaluation);
     const note =
       missing > 0
@@ -94,7 +113,9 @@ export const plotsSection: SheetSection = {
       if (i > 0) writer.gap(ROW_GAP_PT);
       const box = writer.box(rowHeight(row));
       const headerPt = headerOf(row);
-      row.forEach((plot, j) => drawLinePlot(writer, plot, { x: box.x + j * (width + COLUMN_GAP_PT), y: box.y, width, headerPt }));
+      row.forEach((plot, j) =>
+        drawLinePlot(writer, plot, { x: box.x + j * (width + COLUMN_GAP_PT), y: box.y, width, headerPt }),
+      );
     });
   },
 };

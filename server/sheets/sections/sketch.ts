@@ -21,6 +21,7 @@ export const sketchSection: SheetSection = {
     drawSketchFigure(writer, scene, keepWith);
     writer.gap(5);
     writer.paragraph(description);
-    for (const note of notes) writer.paragraph(note, { size: textSize.small, color: sheetColors.muted, gapAfter: 2 });
+    for (const note of notes)
+      writer.paragraph(note, { size: textSize.small, color: sheetColors.muted, gapAfter: 2 });
   },
 };
