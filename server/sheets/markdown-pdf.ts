@@ -87,6 +87,8 @@ function hasGlyph(writer: SheetWriter, font: SheetFont, char: string): boolean {
     writer.use(font, textSize.body);
     const face = (writer.doc as unknown as { _font?: { font?: { hasGlyphForCodePoint?: (codePoint: number) => boolean } } })._font?.font;
     known = face?.hasGlyphForCodePoint?.(char.codePointAt(0)!) ?? true;
+    // Notes can hold any character: keep the memo small.
+    if (glyphs.size > 4096) glyphs.clear();
     glyphs.set(key, known);
   }
   return known;

@@ -126,6 +126,18 @@ describe('design review on the sheet', () => {
     }
   });
 
+  it('writes a mention as the plain name and emphasis without its marks', async () => {
+    const review = sampleReview();
+    const first = review.threads[0]!;
+    review.threads[0] = {
+      ...first,
+      remarks: [{ ...first.remarks[0]!, body: '@Mira Okafor, is *this* the slit we ordered?', mentions: [{ id: 'u_author', displayName: 'Mira Okafor' }] }],
+    };
+    const text = await flatText([reviewSection], { review });
+    expect(text).toContain('Mira Okafor, is this the slit we ordered?');
+    expect(text).not.toContain('@Mira');
+  });
+
   it('counts resolved threads without printing them', async () => {
     const review = sampleReview();
     review.threads[1] = { ...review.threads[1]!, status: 'resolved', resolvedAt: '2026-11-30T09:00:00.000Z' };
