@@ -74,15 +74,20 @@ export function ordinal(order: number): string {
 
 /**
  * The other orders leaving the grating at this wavelength's angle, as the workbench's read-out
- * words them ("m=2: 300 nm"), at most `maxListed` of them and then "+N more", so a cut list never
+ * words them ("m=2: 300 nm"): the `maxListed` nearest the working order `order` (the hardest to
+ * filter out, as the solver ranks them), by increasing |n|, then "+N more", so a cut list never
  * reads as complete (the rule of features/workbench/overlaps.ts). "none" when there are none.
  */
-export function overlapsText(point: Pick<WavelengthPoint, 'overlaps' | 'overlapCount'>, maxListed = 4): string {
+export function overlapsText(point: Pick<WavelengthPoint, 'overlaps' | 'overlapCount'>, order: number, maxListed = 4): string {
   if (point.overlapCount === 0) return 'none';
-  const listed = point.overlaps.slice(0, maxListed);
-  const parts = listed.map((o: Overlap) => keepTogether(`m=${formatInteger(o.order)}: ${formatQuantity(o.wavelengthNm, 'nm')}`));
+  const distance = (o: Overlap) => Math.abs(Math.abs(o.order) - Math.abs(order));
+  const listed = [...point.overlaps]
+    .sort((a, b) => distance(a) - distance(b) || Math.abs(a.order) - Math.abs(b.order))
+    .slice(0, maxListed)
+    .sort((a, b) => Math.abs(a.order) - Math.abs(b.order));
+  const parts = listed.map((o) => keepTogether(`m=${formatInteger(o.order)}: ${formatQuantity(o.wavelengthNm, 'nm')}`));
   const hidden = point.overlapCount - listed.length;
-  if (hidden > 0) parts.push(`+${formatInteger(hidden)} more`);
+  if (hidden > 0) parts.push(keepTogether(`+${formatInteger(hidden)} more`));
   return parts.join(', ');
 }
 

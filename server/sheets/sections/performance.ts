@@ -20,14 +20,14 @@ export function pixelsPerBandpass(point: WavelengthPoint, detector: Design['dete
  * efficiency as a whole percentage, as `formatPercent` rounds it. Units live in the headers, so
  * each cell is a plain number.
  */
-function figures(point: WavelengthPoint, detector: Design['detector']): string[] {
+function figures(point: WavelengthPoint, { grating, detector }: Design): string[] {
   const cells = [
     formatNumber(point.gratingRotationDeg, 5),
     formatNumber(point.reciprocalDispersionNmPerMm),
     formatNumber(point.bandpassNm),
     formatNumber(point.resolvingPower, 3),
     point.blazeEfficiency === null ? '—' : formatFixed(point.blazeEfficiency * 100, 0),
-    overlapsText(point),
+    overlapsText(point, grating.order),
   ];
   if (detector) cells.push(formatNumber(pixelsPerBandpass(point, detector), 3));
   return cells;
@@ -58,7 +58,7 @@ export const performanceSection: SheetSection = {
     ];
     const rows: SpanTableRow[] = sheet.performance.map(({ label, point }) => {
       const lead = [label, formatNumber(point.wavelengthNm, 5)];
-      if (point.reachable) return { cells: [...lead, ...figures(point, detector)] };
+      if (point.reachable) return { cells: [...lead, ...figures(point, sheet.params)] };
       return {
         cells: lead,
         marked: true,

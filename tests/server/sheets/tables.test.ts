@@ -13,6 +13,7 @@ import { parametersSection } from '../../../server/sheets/sections/parameters';
 import { performanceSection } from '../../../server/sheets/sections/performance';
 import { titleSection } from '../../../server/sheets/sections/title';
 import { warningsSection } from '../../../server/sheets/sections/warnings';
+import { overlapsText } from '../../../server/sheets/sheet-text';
 import { pdfText } from './pdf-text';
 import { sampleReview, sampleSheet, sampleVersion } from './sample';
 
@@ -256,6 +257,16 @@ describe('performance section', () => {
     expect(squeezed(lines.join(' '))).toContain(squeezed('No detector is set (a scanning monochromator), so pixels per bandpass does not apply.'));
     expect(squeezed(lines.join(' '))).toContain(squeezed('No blaze wavelength is set, so there is no efficiency estimate.'));
     expect(lineWith(lines, 'Centre 600', '—')).toBeDefined();
+  });
+});
+
+describe('overlapping orders in a cell', () => {
+  it('names the orders nearest the working one (the hardest to filter out) and counts the rest', () => {
+    // Order 4 at 600 nm: order n puts 4 × 600 / n nm on the same angle (mλ = nλ').
+    const overlaps = [1, 2, 3, 5, 6, 7, 8].map((n) => ({ order: n, wavelengthNm: 2400 / n }));
+    const text = plain(overlapsText({ overlaps, overlapCount: 9 }, 4));
+    expect(text).toBe('m=2: 1200 nm, m=3: 800 nm, m=5: 480 nm, m=6: 400 nm, +5 more');
+    expect(overlapsText({ overlaps: [], overlapCount: 0 }, 1)).toBe('none');
   });
 });
 
