@@ -65,13 +65,13 @@ describe('version notes on the sheet', () => {
     expect(await flatText([notesSection], withNotes('  \n'))).toContain('No notes on this version.');
   });
 
-  it('breaks a 40,000-character note across pages and keeps every line inside the margins', async () => {
+  it.each(['a4', 'letter'] as const)('breaks a 40,000-character note across pages and keeps every line inside the margins (%s)', async (paper) => {
     const paragraph = 'The grating turns through the range while the exit slit stays put, so the bandpass follows the dispersion. ';
     const longWord = 'x'.repeat(3000);
     const longCode = `\`\`\`\n${'y'.repeat(400)}\n\`\`\``;
     let notes = `${longWord}\n\n${longCode}\n\n`;
     while (notes.length < 40_000) notes += `${paragraph.repeat(4)}\n\n- ${paragraph}\n\n`;
-    const bytes = await buildSheet(sampleSheet(withNotes(notes)), [notesSection]);
+    const bytes = await buildSheet(sampleSheet({ ...withNotes(notes), paper }), [notesSection]);
     const task = getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false, verbosity: 0 });
     const doc = await task.promise;
     try {
