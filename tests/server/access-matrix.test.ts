@@ -36,7 +36,8 @@ type Fixture = {
   invite(teamId: string, email: string, role?: Role): Promise<{ id: string; token: string }>;
 };
 
-type Case = { params?: Record<string, string>; body?: unknown };
+/** `query`: for a route that needs one to answer at all (the compare sheet names both versions). */
+type Case = { params?: Record<string, string>; query?: Record<string, string>; body?: unknown };
 /**
  * `session`: 'own' when the call ends or replaces the session it carries (sign-up, sign-in,
  * sign-out), so it must not use the shared agent; 'ends-all' when it may end every session of the
@@ -226,6 +227,10 @@ const matrix: Record<string, Row> = {
   },
   // The token is the credential: signed in or not, member or not, it shows one version and nothing else.
   'notebooks.shared': { prepare: async (fx) => ({ params: { token: (await newShareLink(fx)).token } }) },
+  // Design sheets: read like the version they print; the share link's sheet like its page.
+  'sheets.version': { prepare: versionParams },
+  'sheets.compare': { prepare: async (fx) => ({ ...(await designParams(fx)), query: { a: '1', b: '1' } }) },
+  'sheets.shared': { prepare: async (fx) => ({ params: { token: (await newShareLink(fx)).token } }) },
 
   // Anyone holding the link may read what it offers; only its addressee may accept it.
   'teams.previewInvitation': {
@@ -334,7 +339,8 @@ describe('access matrix: every API route × every kind of caller', () => {
       return encodeURIComponent(value);
     });
     const agent = row.session ? await fx.freshAgent(actor) : await fx.agent(actor);
-    const call = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](path);
+    const bare = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](path);
+    const call = prepared.query ? bare.query(prepared.query) : bare;
     let res: Awaited<typeof call>;
     try {
       res = await (prepared.body === undefined ? call : call.send(prepared.body as object));

@@ -63,6 +63,16 @@ describe('GET /api/openapi.json', () => {
     }
   });
 
+  it('describes a file answer by its media type: the design sheets answer application/pdf', () => {
+    const files = apiRoutes.filter((entry) => entry.meta.file);
+    expect(files.map((entry) => entry.name).sort()).toEqual(expect.arrayContaining(['sheets.compare', 'sheets.shared', 'sheets.version']));
+    for (const entry of files) {
+      const ok = document.paths[entry.path]?.[entry.method.toLowerCase()]?.responses[String(entry.status)];
+      expect(Object.keys(ok?.content ?? {}), entry.name).toEqual([entry.meta.file!.mediaType]);
+    }
+    expect(Object.keys(document.paths['/designs/{id}/versions/{n}/sheet.pdf']!.get!.responses['200']!.content!)).toEqual(['application/pdf']);
+  });
+
   it('describes the solver’s real answer: a POST /api/solve answer validates against the documented schema', async () => {
     const schema = document.paths['/solve']!.post!.responses['200']!.content!['application/json']!.schema;
     const validate = compile(schema);
