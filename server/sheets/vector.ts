@@ -28,6 +28,9 @@ export function drawShapes(
   options: { opacity?: number; only?: 'paths' | 'texts' } = {},
 ): void {
   const { doc } = writer;
+  // pdfkit's text() moves its cursor to the last label, in the scene's scaled units: keep the
+  // writer's cursor where it was.
+  const cursor = { x: doc.x, y: doc.y };
   doc.save();
   doc.translate(at.x, at.y).scale(at.scale);
   const fade = options.opacity ?? 1;
@@ -36,6 +39,8 @@ export function drawShapes(
     if (shape.type === 'text' && options.only !== 'paths') drawText(writer, shape, fade);
   }
   doc.restore();
+  doc.x = cursor.x;
+  doc.y = cursor.y;
 }
 
 /** The whole scene fitted into `box`. */

@@ -27,7 +27,10 @@ let fontBytes: Record<SheetFont, Buffer> | null = null;
 /** The font files, read once per process. */
 function loadFonts(): Record<SheetFont, Buffer> {
   fontBytes ??= Object.fromEntries(
-    Object.entries(fontFiles).map(([name, file]) => [name, readFileSync(`${fontDir}${file}`)]),
+    // Padded with zeros: IBM Plex Mono's empty glyphs (space, no-break space) sit at the very end
+    // of its glyph table, and fontkit 2.0.4 reads a glyph header past the end of the file for
+    // them (a RangeError that would fail the whole sheet). The padding is never referenced.
+    Object.entries(fontFiles).map(([name, file]) => [name, Buffer.concat([readFileSync(`${fontDir}${file}`), Buffer.alloc(64)])]),
   ) as Record<SheetFont, Buffer>;
   return fontBytes;
 }
