@@ -12,6 +12,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 // The file, not the notebooks index: that index reaches back into this feature.
 import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
 import { PerformancePlots } from '@/features/plots';
+import { CautionsCard } from '@/features/safety';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
 import { Card, colors, space, useLayout } from '@/features/ui';
 import type { Draft } from '../draft';
@@ -197,6 +198,8 @@ export function Workbench({
   );
   const warnings = <WarningList warnings={deferredEvaluation.warnings} onShowField={showField} />;
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
+  // Last in every layout: what to take care of at the bench, for this design's range and source.
+  const cautions = <CautionsCard design={bench.design} />;
   const pad = { paddingBottom: insets.bottom + space.xxl };
 
   if (layout === 'phone') {
@@ -211,6 +214,7 @@ export function Workbench({
           {readout}
           {graphics}
           {table}
+          {cautions}
         </ScrollView>
       </View>
     );
@@ -238,6 +242,7 @@ export function Workbench({
           {warnings}
           {readout}
           {table}
+          {cautions}
         </ScrollView>
       </View>
     );
@@ -257,6 +262,7 @@ export function Workbench({
         {warnings}
         {readout}
         {table}
+        {cautions}
       </ScrollView>
     </View>
   );
