@@ -65,7 +65,7 @@ export function SheetButton({ target, testID = 'sheet-download', style }: Props)
       </View>
       {download.isError ? (
         <Text role="alert" variant="small" tone="danger" testID={`${testID}-error`}>
-          The {what} could not be made: {download.error.message}
+          The {what} could not be made. {download.error.message}
         </Text>
       ) : null}
     </View>
