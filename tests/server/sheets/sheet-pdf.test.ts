@@ -1,12 +1,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { describedSections, type DescribedField } from '../../../shared/design-fields';
 import { evaluatePoint, prepareDesign, type WavelengthPoint } from '../../../features/solver/index';
-import { buildSheet } from '../../../server/sheets/build';
+import { buildCompareSheet, buildSheet } from '../../../server/sheets/build';
 import type { SheetContext } from '../../../server/sheets/context';
-import { sheetSections } from '../../../server/sheets/registry';
+import { compareSheetSections, sheetSections } from '../../../server/sheets/registry';
 import { textSize } from '../../../server/sheets/writer';
 import { pdfText, printedNumber, type PdfText, type TextPiece } from './pdf-text';
-import { sampleReview, sampleSheet } from './sample';
+import { sampleCompareSheet, sampleReview, sampleSheet } from './sample';
 
 /**
  * The design sheet read back by another program (pdfjs-dist): every registered section is there,
@@ -96,7 +96,7 @@ describe('design sheet PDF, read back with pdfjs-dist', () => {
     pdf.pages.forEach((page, i) => expect(page).toContain(`Page ${i + 1} of ${pdf.pages.length}`));
   });
 
-  it('lists every parameter of the version with the editor’s label, its value and its unit', () => {
+  it('lists every parameter of the version with the editor’s label, its value in full and its unit', () => {
     const pieces = sectionPieces(pdf, titleOf('parameters'));
     const valueOf = (field: DescribedField): TextPiece | undefined => {
       // A long label may wrap: its first line starts the row, and the value stands on that line.
@@ -120,7 +120,8 @@ describe('design sheet PDF, read back with pdfjs-dist', () => {
           const options = field.options as Record<string, { label: string }>;
           expect(text, field.label).toBe(options[stored as string]!.label);
         } else {
-          expectPrinted(text, stored as number, field.label);
+          // An input is printed in full, as the editor shows it, not rounded like a result.
+          expect(printedNumber(text)?.value, `${field.label}: "${text}"`).toBe(stored);
           if (field.kind === 'quantity' && field.unitLabel) {
             const unit = text.slice(printedNumber(text)!.printed.length).replace(/^[\s\u00A0\u202F]+/, '');
             expect(unit, `${field.label}'s unit`).toBe(field.unitLabel);
@@ -185,6 +186,13 @@ describe('design sheet PDF, read back with pdfjs-dist', () => {
     });
   });
 
+  it('prints the whole link back to the version in every page’s footer, for a real id and address', async () => {
+    // A design id as the database makes them (a UUID) behind a deployment's address.
+    const link = 'https://blazebook.example-lab.org/notebooks/3f6c2a9e-8b1d-4c7e-9a51-2d0e7b6c4f18/v/12';
+    const long = await pdfText(await buildSheet(sampleSheet({ link })));
+    long.pages.forEach((page, i) => expect(page.replace(/\n/g, ''), `page ${i + 1}`).toContain(link));
+  });
+
   it('through a share link, leaves out the team’s name and the review threads’ text', async () => {
     const shared = await pdfText(await buildSheet(sampleSheet({ audience: 'link', design: { ...sheet.design, teamName: null } })));
     expect(headingIndex(shared, titleOf('review'))).toBeGreaterThanOrEqual(0);
@@ -195,5 +203,19 @@ describe('design sheet PDF, read back with pdfjs-dist', () => {
     // …which the team's own sheet does print, so the check above can fail.
     expect(pdf.text).toContain('Harbourview teaching lab');
     expect(pdf.text.replace(/\s+/g, ' ')).toContain('Bandpass at 589 nm needs a second look');
+  });
+});
+
+describe('compare sheet PDF, read back with pdfjs-dist', () => {
+  it('prints every registered compare section’s heading, in order, and both version numbers', async () => {
+    const compare = await pdfText(await buildCompareSheet(sampleCompareSheet()));
+    const order = compareSheetSections.map((section) => {
+      const at = inOrder(compare).findIndex((piece) => isHeading(piece, section.title));
+      expect(at, `heading "${section.title}"`).toBeGreaterThanOrEqual(0);
+      return at;
+    });
+    expect(order).toEqual([...order].sort((a, b) => a - b));
+    expect(compare.text).toMatch(/v2/);
+    expect(compare.text).toMatch(/v3/);
   });
 });
