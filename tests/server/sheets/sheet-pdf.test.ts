@@ -4,7 +4,7 @@ import { evaluatePoint, prepareDesign, type WavelengthPoint } from '../../../fea
 import { buildCompareSheet, buildSheet } from '../../../server/sheets/build';
 import type { SheetContext } from '../../../server/sheets/context';
 import { compareSheetSections, sheetSections } from '../../../server/sheets/registry';
-import { textSize } from '../../../server/sheets/writer';
+import { SheetWriter, textSize } from '../../../server/sheets/writer';
 import { pdfText, printedNumber, type PdfText, type TextPiece } from './pdf-text';
 import { sampleCompareSheet, sampleReview, sampleSheet } from './sample';
 
@@ -58,6 +58,43 @@ function expectPrinted(text: string | undefined, expected: number, what: string)
   const printed = printedNumber(text ?? '');
   expect(printed, `${what}: no number in "${text}"`).not.toBeNull();
   expect(Math.abs(printed!.value - expected), `${what}: printed "${printed!.printed}", solver ${expected}`).toBeLessThanOrEqual(printed!.halfUnit * (1 + 1e-9));
+}
+
+/**
+ * The characters a build laid out in a font that has no glyph for them (pdfkit prints those as
+ * glyph 0, .notdef: an empty box on paper). pdfkit lays text out word by word and keeps each
+ * word's layout per font for the document, so the writer's fonts are read as it is finished.
+ */
+async function missingGlyphs(build: () => Promise<Buffer>): Promise<string[]> {
+  type Embedded = { name: string; font: { hasGlyphForCodePoint(cp: number): boolean }; layoutCache?: Record<string, unknown> };
+  const finish = SheetWriter.prototype.finish;
+  const fonts: Embedded[] = [];
+  SheetWriter.prototype.finish = function (this: SheetWriter) {
+    // The shipped fonts; pdfkit's own default (Helvetica, a standard font) is opened but never written with.
+    const opened = Object.values((this.doc as unknown as { _fontFamilies: Record<string, Partial<Embedded>> })._fontFamilies);
+    fonts.push(...opened.filter((font): font is Embedded => typeof font.font?.hasGlyphForCodePoint === 'function'));
+    return finish.call(this);
+  };
+  try {
+    await build();
+  } finally {
+    SheetWriter.prototype.finish = finish;
+  }
+  expect(fonts.length, 'fonts seen').toBeGreaterThan(0);
+  expect(fonts.every((font) => font.layoutCache), 'pdfkit keeps each word\'s layout').toBe(true);
+  const missing = new Set<string>();
+  for (const font of fonts) {
+    for (const word of Object.keys(font.layoutCache!)) {
+      for (const char of word) {
+        // Line breaks are measured with their words but never drawn.
+        if (char === '\n' || char === '\r') continue;
+        if (!font.font.hasGlyphForCodePoint(char.codePointAt(0)!)) {
+          missing.add(`${font.name}: U+${char.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')} in "${word}"`);
+        }
+      }
+    }
+  }
+  return [...missing];
 }
 
 describe('printedNumber (the parser the checks below read figures with)', () => {
@@ -184,6 +221,14 @@ describe('design sheet PDF, read back with pdfjs-dist', () => {
       expectPrinted(row.Bandpass, point.bandpassNm!, 'bandpass at 589 nm');
       expectPrinted(row.R, point.resolvingPower!, 'resolving power at 589 nm');
     });
+  });
+
+  it('has a glyph for every character it prints, in the font it prints it in', async () => {
+    expect(await missingGlyphs(() => buildSheet(sampleSheet()))).toEqual([]);
+    expect(await missingGlyphs(() => buildCompareSheet(sampleCompareSheet()))).toEqual([]);
+    // …and sees one when a font lacks it: IBM Plex Mono has no narrow no-break space (U+202F).
+    const mono = { id: 'mono', title: 'Mono', draw: (writer: SheetWriter) => void writer.use('mono', 9).doc.text('12\u202F300', 48, 100) };
+    expect(await missingGlyphs(() => buildSheet(sampleSheet(), [mono]))).toEqual([expect.stringContaining('U+202F')]);
   });
 
   it('prints the whole link back to the version in every page’s footer, for a real id and address', async () => {
