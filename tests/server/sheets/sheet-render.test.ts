@@ -6,7 +6,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { buildCompareSheet, buildSheet } from '../../../server/sheets/build';
 import { margins, paperPt } from '../../../server/sheets/writer';
 import type { Paper } from '../../../shared/sheets';
-import { sampleCompareSheet, sampleSheet } from './sample';
+import { exampleDesign } from '../../../shared/design';
+import { sampleCompareSheet, sampleSheet, sampleVersion } from './sample';
 
 /**
  * The sample sheets rendered by another program — poppler's pdftoppm, as Debian ships it — and
@@ -121,7 +122,27 @@ function renderAndCheck(name: string, paper: Paper, bytes: Buffer): Rendered {
 
 const pageNumber = (file: string) => Number(/-(\d+)\.\w+$/.exec(file)?.[1] ?? 0);
 
+/**
+ * The longest words the product lets in (a 120-character title with an unbroken run, a
+ * 200-character message), no source or detector, and eight picked wavelengths, two of which no
+ * grating angle reaches: the widest rows and the longest lines a sheet can get.
+ */
+function stressSheet() {
+  const { source: _source, detector: _detector, ...params } = exampleDesign;
+  const base = sampleSheet();
+  const title = `Sodium-doublet monochromator ${'Czerny–Turner-with-a-very-long-unbroken-name'.repeat(2)}`.slice(0, 120);
+  const version = { ...sampleVersion(params), message: 'Narrower exit slit '.repeat(11).slice(0, 200).trim() };
+  return sampleSheet({
+    paper: 'letter',
+    params,
+    version,
+    design: { ...base.design, title, teamName: 'Harbourview teaching laboratory, optics and spectroscopy section (second floor)' },
+    picked: [250, 404.7, 435.8, 546.1, 577, 589, 2500, 5000],
+  });
+}
+
 const sheets: { name: string; paper: Paper; build: () => Promise<Buffer> }[] = [
+  { name: 'sheet-stress-letter', paper: 'letter', build: () => buildSheet(stressSheet()) },
   { name: 'sheet-a4', paper: 'a4', build: () => buildSheet(sampleSheet()) },
   { name: 'sheet-letter', paper: 'letter', build: () => buildSheet(sampleSheet({ paper: 'letter' })) },
   { name: 'compare-a4', paper: 'a4', build: () => buildCompareSheet(sampleCompareSheet()) },
