@@ -5,7 +5,7 @@ import { errorBodySchema } from '../../../shared/api-error';
 import { createShareLinkResponseSchema } from '../../../shared/notebooks';
 import { MAX_SHEET_WAVELENGTHS, sheetFileName } from '../../../shared/sheets';
 import { sheetSections } from '../../../server/sheets/registry';
-import { browserAgent } from '../../support/test-app';
+import { browserAgent, testOrigin } from '../../support/test-app';
 import { createNotebook, createNotebookFixture, designWith, saveVersion, type NotebookFixture } from '../notebooks/fixture';
 import { pdfText } from './pdf-text';
 
@@ -71,9 +71,11 @@ describe('GET /api/designs/:id/versions/:n/sheet.pdf', () => {
     expect(sheetFileName(title, 2)).toBe('visible-scanner-v2.pdf');
     expect(res.headers['cache-control']).toMatch(/\bprivate\b/);
     expect(res.headers['cache-control']).toMatch(/\bno-store\b/);
-    // It is the sheet of the version asked for: the footer links back to it.
+    // It is the sheet of the version asked for: the footer links back to it…
     const { text } = await pdfText(res.body);
-    expect(text).toContain(`/notebooks/${designId}/v/2`);
+    // …on one line, so it can be read and copied whole.
+    const link = `${testOrigin}/notebooks/${designId}/v/2`;
+    expect(text.split('\n').filter((line) => line.includes(link)), `the footer's link ${link}, whole on one line`).not.toEqual([]);
   });
 
   it.each([
@@ -198,7 +200,8 @@ describe('GET /api/share/:token/sheet.pdf', () => {
     const { text, pageSizes } = await pdfText(res.body);
     expect(pageSizes[0]).toEqual({ width: 612, height: 792 });
     // The footer leads back to the share page, not into the team's workspace.
-    expect(text).toContain(`/share/${token}`);
+    const link = `${testOrigin}/share/${token}`;
+    expect(text.split('\n').filter((line) => line.includes(link)), `the footer's link ${link}, whole on one line`).not.toEqual([]);
     expect(text).not.toContain(`/notebooks/${designId}`);
   });
 
