@@ -2,9 +2,10 @@
  * Design sheet benchmark: the median time to build the sample version's sheet and the sample
  * compare sheet in memory (solver run, sections drawn, fonts subset, file written), and their
  * sizes, against issue 14's targets for one version: ≤ 300 ms and ≤ 400 KB. The first build is
- * shown apart: it reads the font files and warms the code up. The process's CPU time per build is
- * shown beside the wall-clock time: on a machine shared with other work (load above its core
- * count) the wall clock waits for a core, and the CPU time is the sheet's own cost. Prints figures only; run with
+ * shown apart: it reads the font files and warms the code up. The process's CPU time per build
+ * (all its threads, the garbage collector's included, so it can exceed the wall clock) is shown
+ * beside the wall-clock time: on a machine shared with other work the wall clock also waits for a
+ * core, the CPU time does not. Prints figures only; run with
  * `npm run bench:sheet`.
  */
 
