@@ -79,10 +79,43 @@ async function placedText(bytes: Uint8Array): Promise<Placed[]> {
         });
       }
     }
-    return items;
+    return joinWords(items);
   } finally {
     await task.destroy();
   }
+}
+
+/**
+ * pdfjs reports a label set in IBM Plex Mono as one run per word (its space glyph is empty), where
+ * a reader sees one label: join runs on one baseline whose gap is at most a space's width.
+ */
+function joinWords(items: Placed[]): Placed[] {
+  const joined: Placed[] = [];
+  for (const item of items) {
+    const last = joined.at(-1);
+    const gap = last ? item.left - last.right : Infinity;
+    if (
+      last &&
+      !last.rotated &&
+      !item.rotated &&
+      last.page === item.page &&
+      Math.abs(last.baseline - item.baseline) < 0.5 &&
+      Math.abs(last.size - item.size) < 0.1 &&
+      gap > -0.5 &&
+      gap < 0.7 * item.size
+    ) {
+      joined[joined.length - 1] = {
+        ...last,
+        str: `${last.str}${gap > 0.15 * item.size && !last.str.endsWith(' ') ? ' ' : ''}${item.str}`,
+        right: item.right,
+        top: Math.min(last.top, item.top),
+        bottom: Math.max(last.bottom, item.bottom),
+      };
+    } else {
+      joined.push(item);
+    }
+  }
+  return joined;
 }
 
 /** A sheet's text runs where they stand, and its text as a reader reads it (white space flattened). */
