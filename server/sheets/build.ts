@@ -4,9 +4,9 @@ import { compareSheetSections, sheetSections } from './registry';
 import type { CompareSheetSection, SheetSection } from './section';
 import { SheetWriter } from './writer';
 
-/** The generation time and the way back to the version, on every page. */
-function footerLine(generatedAt: Date, link: string): string {
-  return `Generated ${formatWhen(generatedAt, 'UTC')} UTC · ${link}`;
+/** The generation time, printed on every page beside the way back to the version. */
+function generatedNote(generatedAt: Date): string {
+  return `Generated ${formatWhen(generatedAt, 'UTC')} UTC`;
 }
 
 /**
@@ -21,7 +21,7 @@ export async function buildSheet(sheet: SheetContext, sections: readonly SheetSe
     createdAt: sheet.generatedAt,
   });
   for (const section of sections) section.draw(writer, sheet);
-  writer.footers(footerLine(sheet.generatedAt, sheet.link));
+  writer.footers(generatedNote(sheet.generatedAt), sheet.link);
   return writer.finish();
 }
 
@@ -36,6 +36,6 @@ export async function buildCompareSheet(
     createdAt: sheet.generatedAt,
   });
   for (const section of sections) section.draw(writer, sheet);
-  writer.footers(footerLine(sheet.generatedAt, sheet.link));
+  writer.footers(generatedNote(sheet.generatedAt), sheet.link);
   return writer.finish();
 }

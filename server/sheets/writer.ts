@@ -258,19 +258,34 @@ export class SheetWriter {
     return box;
   }
 
-  /** Page numbers and the footer line on every page, once all pages exist. */
-  footers(line: string): void {
+  /**
+   * Page numbers and the footer on every page, once all pages exist: the generation note, then the
+   * link back, each kept whole on its line (a link broken at one of an id's hyphens cannot be
+   * followed or copied); when both fit on one line they share it.
+   */
+  footers(note: string, link: string): void {
     const range = this.doc.bufferedPageRange();
+    const pageWidth = 70;
+    const room = this.contentWidth - pageWidth - 8;
     for (let i = range.start; i < range.start + range.count; i += 1) {
       this.doc.switchToPage(i);
       const y = this.pageHeight - margins.bottom + 22;
-      const width = this.contentWidth;
       // pdfkit would add a page for text below the bottom margin: lift the margin while writing here.
       const saved = this.doc.page.margins.bottom;
       this.doc.page.margins.bottom = 0;
-      this.doc.moveTo(this.left, y - 6).lineTo(this.left + width, y - 6).lineWidth(0.4).strokeColor(sheetColors.line).stroke();
-      this.use('regular', textSize.small).doc.fillColor(sheetColors.muted).text(line, this.left, y, { width: width - 70, lineBreak: false, ellipsis: true });
-      this.doc.text(`Page ${i - range.start + 1} of ${range.count}`, this.left + width - 70, y, { width: 70, align: 'right', lineBreak: false });
+      this.doc.moveTo(this.left, y - 6).lineTo(this.left + this.contentWidth, y - 6).lineWidth(0.4).strokeColor(sheetColors.line).stroke();
+      this.use('regular', textSize.small).doc.fillColor(sheetColors.muted);
+      const oneLine = `${note} · ${link}`;
+      if (this.doc.widthOfString(oneLine) <= room) {
+        this.doc.text(oneLine, this.left, y, { lineBreak: false });
+      } else {
+        this.doc.text(note, this.left, y, { lineBreak: false });
+        // A very long link (a long public address) gets a smaller size rather than a break.
+        const size = Math.max(5, Math.min(textSize.small, (textSize.small * room) / this.doc.widthOfString(link)));
+        this.use('regular', size).doc.text(link, this.left, y + 9, { lineBreak: false });
+        this.use('regular', textSize.small);
+      }
+      this.doc.text(`Page ${i - range.start + 1} of ${range.count}`, this.left + this.contentWidth - pageWidth, y, { width: pageWidth, align: 'right', lineBreak: false });
       this.doc.page.margins.bottom = saved;
     }
   }
