@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import * as fontkit from 'fontkit';
 import PDFDocument from 'pdfkit';
 import type { Paper } from '../../shared/sheets';
 import { colors } from '../../features/ui/theme';
@@ -22,17 +23,25 @@ const fontFiles: Record<SheetFont, string> = {
 };
 
 const fontDir = fileURLToPath(new URL('../../assets/fonts/', import.meta.url));
-let fontBytes: Record<SheetFont, Buffer> | null = null;
+let parsedFonts: Record<SheetFont, fontkit.Font> | null = null;
 
-/** The font files, read once per process. */
-function loadFonts(): Record<SheetFont, Buffer> {
-  fontBytes ??= Object.fromEntries(
-    // Padded with zeros: IBM Plex Mono's empty glyphs (space, no-break space) sit at the very end
-    // of its glyph table, and fontkit 2.0.4 reads a glyph header past the end of the file for
-    // them (a RangeError that would fail the whole sheet). The padding is never referenced.
-    Object.entries(fontFiles).map(([name, file]) => [name, Buffer.concat([readFileSync(`${fontDir}${file}`), Buffer.alloc(64)])]),
-  ) as Record<SheetFont, Buffer>;
-  return fontBytes;
+/**
+ * The fonts, read and parsed once per process: pdfkit takes a parsed font as well as bytes, and
+ * parsing each font again for every sheet was most of a sheet's time (measured with
+ * `npm run bench:sheet`: one version's sheet 274 → 126 ms, the compare sheet 177 → 39 ms, the same
+ * bytes out). Each document still makes its own subset of the glyphs it uses.
+ */
+function loadFonts(): Record<SheetFont, fontkit.Font> {
+  parsedFonts ??= Object.fromEntries(
+    Object.entries(fontFiles).map(([name, file]) => {
+      // Padded with zeros: IBM Plex Mono's empty glyphs (space, no-break space) sit at the very end
+      // of its glyph table, and fontkit 2.0.4 reads a glyph header past the end of the file for
+      // them (a RangeError that would fail the whole sheet). The padding is never referenced.
+      const bytes = Buffer.concat([readFileSync(`${fontDir}${file}`), Buffer.alloc(64)]);
+      return [name, fontkit.create(bytes) as fontkit.Font];
+    }),
+  ) as Record<SheetFont, fontkit.Font>;
+  return parsedFonts;
 }
 
 /** Paper sizes in points (ISO 216 A4 210 × 297 mm; US Letter 8.5 × 11 in). */
@@ -110,7 +119,16 @@ export class SheetWriter {
       lang: 'en',
       displayTitle: true,
     });
-    for (const [name, bytes] of Object.entries(loadFonts())) this.doc.registerFont(name, bytes);
+    for (const [name, font] of Object.entries(loadFonts())) {
+      // fontkit keeps each glyph with the characters it was first laid out for, and pdfkit writes
+      // those into the file's text map (what copying and screen readers get). Shared across sheets,
+      // a glyph first met as one character (Inter draws the space and the no-break space alike)
+      // would read as that character in every later sheet: start each sheet with none kept, as a
+      // freshly parsed font would (fontkit 2.0.4's `_glyphs`, pinned).
+      (font as unknown as { _glyphs: Record<number, unknown> })._glyphs = {};
+      // pdfkit's types list only paths and bytes; its code takes a parsed font (anything with `layout`).
+      this.doc.registerFont(name, font as unknown as Buffer);
+    }
     this.use('regular', textSize.body);
     this.doc.fillColor(sheetColors.ink);
   }
