@@ -9,6 +9,11 @@ const MAX_BASE_CHARS = 60;
  * spaces; spaces become dashes; at most 60 characters; "notebook" when nothing is left.
  */
 export function exportFileName(title: string): string {
+  return `${plainFileBase(title, 'notebook')}${NOTEBOOK_FILE_SUFFIX}`;
+}
+
+/** A title in plain letters for any file name (the rule above); `fallback` when nothing is left. */
+export function plainFileBase(title: string, fallback: string): string {
   const base = title
     .normalize('NFKD')
     .replace(/[^\w -]+/g, '')
@@ -16,5 +21,5 @@ export function exportFileName(title: string): string {
     .replace(/\s+/g, '-')
     .toLowerCase()
     .slice(0, MAX_BASE_CHARS);
-  return `${base || 'notebook'}${NOTEBOOK_FILE_SUFFIX}`;
+  return base || fallback;
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainFileBase } from './export-file-name';
 import { versionNumberText } from './notebooks/version-number';
 
 /**
@@ -46,17 +47,7 @@ export type SheetQuery = z.output<typeof sheetQuerySchema>;
 export const compareSheetQuerySchema = z.object({ a: versionNumberText, b: versionNumberText, paper });
 export type CompareSheetQuery = z.output<typeof compareSheetQuerySchema>;
 
-/** A design title in plain letters for a file name (accents dropped, spaces to dashes, ≤ 60). */
-function fileBase(title: string): string {
-  const base = title
-    .normalize('NFKD')
-    .replace(/[^\w -]+/g, '')
-    .trim()
-    .replace(/\s+/g, '-')
-    .toLowerCase()
-    .slice(0, 60);
-  return base || 'design';
-}
+const fileBase = (title: string) => plainFileBase(title, 'design');
 
 /** `<design>-v<n>.pdf`, the name the download is saved under. */
 export function sheetFileName(title: string, version: number): string {

@@ -1,4 +1,4 @@
-import { describeDesignPath, describedFieldByPath, describedSections, fieldTableName } from '@/shared/design-fields';
+import { describeDesignPath } from '@/shared/design-fields';
 import { formatNumber } from '@/shared/format';
 import type { VersionSummary } from '@/shared/notebooks';
 import { formatFigure } from '@/shared/notebooks/figure-labels';
@@ -32,42 +32,5 @@ export function withArticle(word: string): string {
 /** `slits.exitWidthUm` → "Slits: exit width (µm)"; a whole section → "Detector". */
 export const describePath = describeDesignPath;
 
-/** A parameter value as it reads in a table: numbers plainly, sections as "set" / "not set". */
-export function formatParam(value: unknown): string {
-  if (value === null || value === undefined) return 'not set';
-  // A stored parameter is shown in full, not cut to the four figures of a derived one.
-  if (typeof value === 'number') return formatNumber(value, 12);
-  if (typeof value === 'string') return value;
-  if (typeof value === 'object') {
-    return Object.entries(value as Record<string, unknown>)
-      .map(([key, inner]) => `${fieldTableName(key)} ${formatParam(inner)}`)
-      .join(', ');
-  }
-  return String(value);
-}
-
-/**
- * A field path in the editor's own words, for tables a person compares by eye: the editor's
- * label with the unit its box shows ("Exit slit width (µm)", "Mount type"); a section path
- * gives the editor's heading ("Mount"). Unknown paths are shown as they are.
- */
-export function editorFieldName(path: string): string {
-  const field = describedFieldByPath.get(path);
-  if (field) return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
-  return describedSections.find((section) => section.id === path)?.title ?? path;
-}
-
-/** The editor's heading of the section a path is in ("Mount" for `layout.kind`). */
-export function editorSectionTitle(path: string): string {
-  const id = path.split('.')[0] ?? path;
-  return describedSections.find((section) => section.id === id)?.title ?? id;
-}
-
-/** A stored value at a path as the editor shows it: a choice by its label ("Czerny–Turner"), the rest as `formatParam`. */
-export function formatParamAt(path: string, value: unknown): string {
-  const field = describedFieldByPath.get(path);
-  if (field?.kind === 'choice' && typeof value === 'string') {
-    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
-  }
-  return formatParam(value);
-}
+// Stored values and field paths in the editor's words are shared with the design sheet.
+export { editorFieldName, editorSectionTitle, formatParam, formatParamAt } from '@/shared/design-values';

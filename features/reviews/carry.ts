@@ -1,20 +1,9 @@
-import { describedFieldByPath } from '@/shared/design-fields';
-import { formatDay, formatNumber, formatQuantity } from '@/shared/format';
+import { formatStoredValue } from '@/shared/design-values';
+import { formatDay } from '@/shared/format';
 import type { Carry, Thread } from '@/shared/reviews';
 
-/** A stored field value as the editor shows it: with its unit ("100 µm"), a choice by its label. */
-export function formatPinnedValue(path: string, value: unknown): string {
-  if (value === null || value === undefined) return 'not set';
-  const field = describedFieldByPath.get(path);
-  if (typeof value === 'number') {
-    // Stored values are shown in full, not cut to the four figures of a derived one.
-    return field?.kind === 'quantity' ? formatQuantity(value, field.unitLabel, 12) : formatNumber(value, 12);
-  }
-  if (typeof value === 'string' && field?.kind === 'choice') {
-    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
-  }
-  return String(value);
-}
+/** A stored field value as the editor shows it (shared with the design sheet). */
+export const formatPinnedValue = formatStoredValue;
 
 /**
  * How a thread of an earlier version reads here: "Still applies (from v2)", "Field changed since

@@ -14,7 +14,7 @@ export { fontAssets } from './fonts';
 export { installFocusRing } from './focus-ring';
 export { printHidden } from './print';
 export { installPrintStyles } from './print-styles';
-export { saveTextFile } from './save-text-file';
+export { downloadBlob, saveTextFile } from './save-text-file';
 export { useLayout } from './theme-context';
 export {
   breakpoints,

@@ -8,3 +8,8 @@ export async function saveTextFile(text: string, fileName: string, _mimeType?: s
   const result = await Share.share({ message: text, title: fileName });
   return result.action === Share.sharedAction;
 }
+
+/** Native has no browser download: files go to the share sheet (see features/sheets). */
+export function downloadBlob(_blob: Blob, _fileName: string): void {
+  throw new Error('A download needs a browser; on this device files go to the share sheet.');
+}

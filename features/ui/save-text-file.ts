@@ -4,7 +4,13 @@ export async function saveTextFile(
   fileName: string,
   mimeType = 'application/json',
 ): Promise<boolean> {
-  const url = URL.createObjectURL(new Blob([text], { type: mimeType }));
+  downloadBlob(new Blob([text], { type: mimeType }), fileName);
+  return true;
+}
+
+/** Web: the browser saves `blob` as a download named `fileName`. */
+export function downloadBlob(blob: Blob, fileName: string): void {
+  const url = URL.createObjectURL(blob);
   try {
     const link = document.createElement('a');
     link.href = url;
@@ -13,7 +19,6 @@ export async function saveTextFile(
     document.body.appendChild(link);
     link.click();
     link.remove();
-    return true;
   } finally {
     // Revoke after the click has been handled; revoking at once cancels the download in some browsers.
     setTimeout(() => URL.revokeObjectURL(url), 1000);

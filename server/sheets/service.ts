@@ -1,5 +1,6 @@
 import type { User } from 'lucia';
 import { storedDesignSchema, type Design } from '../../shared/design';
+import type { Notebook } from '../../shared/notebooks/index';
 import { compareSheetFileName, sheetFileName, type CompareSheetQuery, type SheetQuery } from '../../shared/sheets';
 import { evaluateDesign } from '../../features/solver/index';
 import type { Clock } from '../clock';
@@ -22,6 +23,12 @@ export type SheetsServiceDeps = {
 /** Stored parameters in the schema's order (jsonb keeps its own key order). */
 const designOf = (params: unknown): Design => storedDesignSchema.parse(params) as Design;
 
+/** What the title block says of a design a member reads. */
+function titleBlock(design: Notebook, teamName: string | null) {
+  const { id, title, clonedFrom, importedAt } = design;
+  return { id, title, teamName, clonedFrom, importedAt };
+}
+
 /**
  * Gathers a version (access checked by the notebooks module, exactly as for reading it on screen),
  * its review and the solver's results, and builds the PDF in memory.
@@ -34,14 +41,7 @@ export function createSheetsService({ notebooks, reviews, repository, clock, pub
       const sheet = sheetContext({
         paper: query.paper,
         audience: 'team',
-        design: {
-          id: design.id,
-          title: design.title,
-          teamName,
-          clonedFrom: design.clonedFrom,
-          importedAt: design.importedAt,
-          isBaseline: design.baselineVersion === n,
-        },
+        design: { ...titleBlock(design, teamName), isBaseline: design.baselineVersion === n },
         version,
         params: designOf(version.params),
         review,
@@ -79,14 +79,7 @@ export function createSheetsService({ notebooks, reviews, repository, clock, pub
       };
       const bytes = await buildCompareSheet({
         paper: query.paper,
-        design: {
-          id: design.id,
-          title: design.title,
-          teamName,
-          clonedFrom: design.clonedFrom,
-          importedAt: design.importedAt,
-          isBaseline: null,
-        },
+        design: { ...titleBlock(design, teamName), isBaseline: null },
         a: side(a),
         b: side(b),
         changes,

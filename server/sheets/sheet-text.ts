@@ -1,5 +1,6 @@
 import type { Design } from '../../shared/design';
 import { describedSections, layoutKindOptions, type DescribedField, type DescribedSection } from '../../shared/design-fields';
+import { formatStoredValue } from '../../shared/design-values';
 import { formatDay, formatInteger, formatNumber, formatQuantity, keepTogether } from '../../shared/format';
 import type { Overlap, WavelengthPoint } from '../../features/solver/index';
 import type { SheetContext } from './context';
@@ -14,18 +15,9 @@ import { sheetColors, type SheetFont, type SheetWriter, type TableColumn } from 
 /** What an optional field or section the design leaves out reads as. */
 export const NOT_SET = 'Not set';
 
-/**
- * A stored value as the editor shows it: a quantity with its unit, in full rather than cut to the
- * four figures of a derived result ("0.0125 mm" stays itself), a whole number grouped, a choice by
- * its label. Mirrors `formatPinnedValue` in features/reviews/carry.ts, which the server cannot import.
- */
+/** A stored value as the editor shows it, in full with its unit ("0.0125 mm" stays itself); "Not set" when left out. */
 export function storedValueText(field: DescribedField, value: unknown): string {
-  if (value === undefined || value === null) return NOT_SET;
-  if (field.kind === 'choice') {
-    return typeof value === 'string' ? ((field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value) : String(value);
-  }
-  if (typeof value !== 'number') return String(value);
-  return field.kind === 'quantity' ? formatQuantity(value, field.unitLabel, 12) : formatNumber(value, 12);
+  return value === undefined || value === null ? NOT_SET : formatStoredValue(field.path, value);
 }
 
 export type ParameterGroup = {

@@ -17,8 +17,10 @@ describe('the API contract', () => {
     expect(Object.keys(params?.shape ?? {}).sort()).toEqual(inPath);
   });
 
-  it.each(apiRoutes.map((entry) => [entry.name, entry] as const))('%s: an answer schema unless it answers 204, and a capability for team routes', (_name, entry) => {
-    expect(entry.output === undefined).toBe(entry.status === 204);
+  it.each(apiRoutes.map((entry) => [entry.name, entry] as const))('%s: an answer schema unless it answers 204 or a file, and a capability for team routes', (_name, entry) => {
+    expect(entry.output === undefined).toBe(entry.status === 204 || entry.meta.file !== undefined);
+    // A file answers with a body: never a 204.
+    if (entry.meta.file) expect(entry.status).toBe(200);
     if (entry.meta.access.kind === 'team') expect(entry.meta.access.capability).toMatch(/^\w+\.\w+$/);
     // A GET carries no body; the Origin check may only be skipped by a route that reads no session.
     if (entry.method === 'GET') expect(entry.parts.body).toBeUndefined();

@@ -1,6 +1,6 @@
 import type { Design } from '../../../shared/design';
-import { describeDesignPath, describedFieldByPath, describedSections, type DescribedField } from '../../../shared/design-fields';
-import { formatNumber } from '../../../shared/format';
+import { describeDesignPath, describedFieldByPath, describedSections } from '../../../shared/design-fields';
+import { editorFieldName, formatParamAt } from '../../../shared/design-values';
 import type { CompareSheetContext } from '../context';
 import type { CompareSheetSection } from '../section';
 import type { TableRow } from '../writer';
@@ -14,22 +14,6 @@ function valueAt(params: Design, path: string): unknown {
   const [section, key] = path.split('.') as [string, string];
   const inner = (params as Record<string, Record<string, unknown> | undefined>)[section];
   return inner?.[key];
-}
-
-/** A value as the editor shows it: a choice by its label ("Czerny–Turner"), a number in full, an absent one "not set". */
-function formatValue(field: DescribedField | undefined, value: unknown): string {
-  if (value === null || value === undefined) return 'not set';
-  if (field?.kind === 'choice' && typeof value === 'string') {
-    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
-  }
-  // A stored parameter is shown in full, not cut to the four figures of a derived one.
-  if (typeof value === 'number') return formatNumber(value, 12);
-  return String(value);
-}
-
-/** The editor's label with the unit its box shows: "Exit slit width (µm)". */
-function fieldName(field: DescribedField): string {
-  return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
 }
 
 function row(name: string, before: string, after: string, changed: boolean): TableRow {
@@ -54,7 +38,7 @@ export function compareParameterRows(sheet: CompareSheetContext): TableRow[] {
     for (const field of section.fields) {
       const before = valueAt(sheet.a.params, field.path);
       const after = valueAt(sheet.b.params, field.path);
-      rows.push(row(fieldName(field), formatValue(field, before), formatValue(field, after), changed.has(field.path)));
+      rows.push(row(editorFieldName(field.path), formatParamAt(field.path, before), formatParamAt(field.path, after), changed.has(field.path)));
     }
   }
   // A difference at a path the editor does not describe (none today) is still listed, never dropped.
@@ -62,7 +46,7 @@ export function compareParameterRows(sheet: CompareSheetContext): TableRow[] {
   if (unknown.length > 0) {
     rows.push({ cells: ['Other', '', '', ''], bold: true });
     for (const change of unknown) {
-      rows.push(row(describeDesignPath(change.path), formatValue(undefined, change.before), formatValue(undefined, change.after), true));
+      rows.push(row(describeDesignPath(change.path), formatParamAt(change.path, change.before), formatParamAt(change.path, change.after), true));
     }
   }
   return rows;

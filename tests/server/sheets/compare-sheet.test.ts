@@ -1,5 +1,3 @@
-import type { Response } from 'superagent';
-import type { Test } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { exampleDesign, type Design } from '../../../shared/design';
 import { describedFieldByPath } from '../../../shared/design-fields';
@@ -15,6 +13,7 @@ import { CHANGED } from '../../../server/sheets/sections/compare-parameters';
 import { createNotebook, createNotebookFixture, designWith, saveVersion, type NotebookFixture } from '../notebooks/fixture';
 import { pdfText } from './pdf-text';
 import { sampleCompareSheet } from './sample';
+import { bytesOf } from './http';
 
 /**
  * The compare sheet: both versions' values side by side with the changes marked in words, the
@@ -140,14 +139,6 @@ describe('both sketches at one scale', () => {
   });
 });
 
-/** The answer's bytes whatever its type (supertest leaves a PDF unread otherwise). */
-function bytesOf(call: Test): Promise<Response & { body: Buffer }> {
-  return call.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (chunk: Buffer) => chunks.push(chunk));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  }) as unknown as Promise<Response & { body: Buffer }>;
-}
 
 describe('GET /api/designs/:id/compare.pdf', () => {
   let fx: NotebookFixture;

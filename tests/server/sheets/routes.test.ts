@@ -1,5 +1,4 @@
 import type { Response } from 'superagent';
-import type { Test } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../../shared/api-error';
 import { createShareLinkResponseSchema } from '../../../shared/notebooks';
@@ -8,6 +7,7 @@ import { sheetSections } from '../../../server/sheets/registry';
 import { browserAgent, testOrigin } from '../../support/test-app';
 import { createNotebook, createNotebookFixture, designWith, saveVersion, type NotebookFixture } from '../notebooks/fixture';
 import { pdfText } from './pdf-text';
+import { bytesOf } from './http';
 
 /**
  * The design sheet's three routes over HTTP: who gets the PDF, what it is called and how it is
@@ -28,14 +28,6 @@ afterAll(() => fx?.ctx.close());
 
 const anonymous = () => browserAgent(fx.ctx.app);
 
-/** The answer's bytes whatever its type (supertest leaves a PDF unread otherwise). */
-function bytesOf(call: Test): Promise<Response & { body: Buffer }> {
-  return call.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (chunk: Buffer) => chunks.push(chunk));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  }) as unknown as Promise<Response & { body: Buffer }>;
-}
 
 /** A refusal: JSON in the one error shape, and no PDF bytes. */
 function errorOf(res: Response & { body: Buffer }) {

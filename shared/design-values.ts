@@ -1,0 +1,62 @@
+import { describedFieldByPath, describedSections, fieldTableName } from './design-fields';
+import { formatNumber, formatQuantity } from './format';
+
+/**
+ * Stored design values and field paths in the editor's own words, for every place that shows a
+ * saved design to a person: the compare screen and conflict card, review threads' carry lines,
+ * and the design sheet on the server.
+ */
+
+/** A parameter value as it reads in a table: numbers plainly, sections as "set" / "not set". */
+export function formatParam(value: unknown): string {
+  if (value === null || value === undefined) return 'not set';
+  // A stored parameter is shown in full, not cut to the four figures of a derived one.
+  if (typeof value === 'number') return formatNumber(value, 12);
+  if (typeof value === 'string') return value;
+  if (typeof value === 'object') {
+    return Object.entries(value as Record<string, unknown>)
+      .map(([key, inner]) => `${fieldTableName(key)} ${formatParam(inner)}`)
+      .join(', ');
+  }
+  return String(value);
+}
+
+/**
+ * A field path in the editor's own words, for tables a person compares by eye: the editor's
+ * label with the unit its box shows ("Exit slit width (µm)", "Mount type"); a section path
+ * gives the editor's heading ("Mount"). Unknown paths are shown as they are.
+ */
+export function editorFieldName(path: string): string {
+  const field = describedFieldByPath.get(path);
+  if (field) return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
+  return describedSections.find((section) => section.id === path)?.title ?? path;
+}
+
+/** The editor's heading of the section a path is in ("Mount" for `layout.kind`). */
+export function editorSectionTitle(path: string): string {
+  const id = path.split('.')[0] ?? path;
+  return describedSections.find((section) => section.id === id)?.title ?? id;
+}
+
+/** A stored value at a path as the editor shows it: a choice by its label ("Czerny–Turner"), the rest as `formatParam`. */
+export function formatParamAt(path: string, value: unknown): string {
+  const field = describedFieldByPath.get(path);
+  if (field?.kind === 'choice' && typeof value === 'string') {
+    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
+  }
+  return formatParam(value);
+}
+
+/** A stored field value as the editor shows it: with its unit ("100 µm"), a choice by its label. */
+export function formatStoredValue(path: string, value: unknown): string {
+  if (value === null || value === undefined) return 'not set';
+  const field = describedFieldByPath.get(path);
+  if (typeof value === 'number') {
+    // Stored values are shown in full, not cut to the four figures of a derived one.
+    return field?.kind === 'quantity' ? formatQuantity(value, field.unitLabel, 12) : formatNumber(value, 12);
+  }
+  if (typeof value === 'string' && field?.kind === 'choice') {
+    return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
+  }
+  return String(value);
+}
