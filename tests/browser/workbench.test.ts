@@ -117,6 +117,26 @@ describe('design workbench in Chromium', () => {
     await context.close();
   });
 
+  it('lists the safety cautions that apply, the ultraviolet one only while the design reaches below 300 nm', async () => {
+    const { context, page, errors } = await open('wide');
+    const card = page.getByTestId('cautions-card');
+    await card.getByRole('heading', { name: 'Safety cautions' }).waitFor();
+    // The starting design works in the visible with a source from 350 nm: no deep-UV caution.
+    await page.getByTestId('caution-lasers').waitFor();
+    expect(await page.getByTestId('caution-deep-uv').count()).toBe(0);
+    await field(page, 'source.minNm').fill('200');
+    await page.getByTestId('caution-deep-uv').waitFor();
+    expect(await page.getByTestId('caution-deep-uv').textContent()).toMatch(/200\snm/);
+    // Every caution still listed ends with the line that leaves the decision to the site.
+    const items = await card.locator('[data-testid^="caution-"]').allTextContents();
+    expect(items.length).toBeGreaterThanOrEqual(2);
+    for (const text of items) expect(text).toContain('safety officer decide');
+    await card.scrollIntoViewIfNeeded();
+    await screenshot(page, 'workbench-cautions-wide');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('finds the design as it was left after a reload', async () => {
     const { context, page } = await open('tablet');
     await field(page, 'grating.grooveDensityPerMm').fill('1800');
