@@ -110,7 +110,14 @@ export function createApp(deps: AppDeps) {
   const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock });
   const inbox = createInbox({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl, log: deps.log });
   const reviews = createReviews({ db: deps.database.db, clock: deps.clock, notifier: inbox.notifier, lists: notebooks.lists });
-  const sheets = createSheets({ db: deps.database.db, clock: deps.clock, publicUrl, notebooks: notebooks.service, reviews: reviews.service });
+  const sheets = createSheets({
+    db: deps.database.db,
+    clock: deps.clock,
+    publicUrl,
+    rateLimits: deps.rateLimits,
+    notebooks: notebooks.service,
+    reviews: reviews.service,
+  });
   apiRouter.use(
     mountContract(
       {

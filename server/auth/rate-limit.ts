@@ -16,6 +16,8 @@ export type RateLimits = {
   /** `POST /api/solve` calls per IP per `solveWindowMs`. */
   solvePerIp: number;
   solveWindowMs: number;
+  /** Design sheets (PDFs) per IP per `solveWindowMs`, all three routes together. */
+  sheetsPerIp: number;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -32,6 +34,9 @@ export const defaultRateLimits: RateLimits = {
   // thread (`npm run bench:solver`), so one address holds it for at most ~10 s a minute.
   solvePerIp: 120,
   solveWindowMs: 60_000,
+  // A sheet takes ~0.13 s of the thread (`npm run bench:sheet`, up to ~0.6 s for the first of a
+  // process): 60 a minute holds it for well under half of each minute, and nobody reads one a second.
+  sheetsPerIp: 60,
 };
 
 type KeyBy = 'ip' | 'email' | 'email-and-ip';
@@ -99,5 +104,16 @@ export function createSolveRateLimiter(
     'ip',
     false,
     'Too many solve requests from this address. Wait a minute and try again.',
+  );
+}
+
+/** Design sheets per IP (the share link's route needs no session): one counter for the three routes. */
+export function createSheetRateLimiter(limits: Pick<RateLimits, 'sheetsPerIp' | 'solveWindowMs'>): RequestHandler {
+  return limiter(
+    limits.sheetsPerIp,
+    limits.solveWindowMs,
+    'ip',
+    false,
+    'Too many design sheets from this address. Wait a minute and try again.',
   );
 }

@@ -4,6 +4,8 @@ import { route } from './route';
 
 const tag = 'Design sheets';
 const pdf = { mediaType: 'application/pdf' } as const;
+const description =
+  'Built whole in memory before it is sent. The three sheet routes share one allowance of 60 sheets a minute per address, then 429 `rate_limited`.';
 
 /**
  * Design sheets: PDFs built in memory on the server and sent whole (a failure answers the JSON
@@ -19,6 +21,7 @@ export const sheets = {
     params: versionParamsSchema,
     query: sheetQuerySchema,
     file: pdf,
+    description,
   }),
   compare: route({
     tag,
@@ -29,6 +32,7 @@ export const sheets = {
     params: designParamsSchema,
     query: compareSheetQuerySchema,
     file: pdf,
+    description,
   }),
   shared: route({
     tag,
@@ -39,5 +43,6 @@ export const sheets = {
     params: shareTokenParamsSchema,
     query: sheetQuerySchema,
     file: pdf,
+    description,
   }),
 };

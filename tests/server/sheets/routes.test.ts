@@ -4,7 +4,8 @@ import { errorBodySchema } from '../../../shared/api-error';
 import { createShareLinkResponseSchema } from '../../../shared/notebooks';
 import { MAX_SHEET_WAVELENGTHS, sheetFileName } from '../../../shared/sheets';
 import { sheetSections } from '../../../server/sheets/registry';
-import { browserAgent, testOrigin } from '../../support/test-app';
+import request from 'supertest';
+import { browserAgent, createTestApp, testOrigin } from '../../support/test-app';
 import { createNotebook, createNotebookFixture, designWith, saveVersion, type NotebookFixture } from '../notebooks/fixture';
 import { pdfText } from './pdf-text';
 import { bytesOf } from './http';
@@ -216,6 +217,24 @@ describe('GET /api/share/:token/sheet.pdf', () => {
       expect(sheet.status, token).toBe(404);
       const page = await anonymous().get(`/api/share/${token}`).expect(404);
       expect(errorOf(sheet), token).toEqual(page.body.error);
+    }
+  });
+});
+
+describe('how many sheets one address may ask for', () => {
+  it('answers 429 in the error shape once the minute’s allowance is spent', async () => {
+    const { token } = await createLink({ version: 1 });
+    // A second app on the same data with a tiny allowance: its counters start at zero.
+    const limited = await createTestApp({ database: fx.ctx.database, rateLimits: { sheetsPerIp: 2 } });
+    try {
+      await bytesOf(request(limited.app).get(`/api/share/${token}/sheet.pdf`)).then((res) => expect(res.status).toBe(200));
+      await bytesOf(request(limited.app).get(`/api/share/${token}/sheet.pdf?paper=letter`)).then((res) => expect(res.status).toBe(200));
+      const refused = await request(limited.app).get(`/api/share/${token}/sheet.pdf`);
+      expect(refused.status).toBe(429);
+      expect(refused.headers['content-type']).toMatch(/^application\/json/);
+      expect(errorBodySchema.parse(refused.body).error.code).toBe('rate_limited');
+    } finally {
+      await limited.close();
     }
   });
 });
