@@ -1,8 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { exampleDesign, type Design } from '../../../shared/design';
 import { describedFieldByPath } from '../../../shared/design-fields';
-import { errorBodySchema } from '../../../shared/api-error';
-import { compareSheetFileName } from '../../../shared/sheets';
 import { evaluatePoint, prepareDesign } from '../../../features/solver/index';
 import { sketchGeometry } from '../../../features/sketch/geometry';
 import { buildSketchScene, type SketchShape } from '../../../features/sketch/sketch-scene';
@@ -10,15 +8,14 @@ import { buildCompareSheet } from '../../../server/sheets/build';
 import { compareSketchScene, printedReduction } from '../../../server/sheets/compare-scene';
 import { compareSheetSections } from '../../../server/sheets/registry';
 import { CHANGED } from '../../../server/sheets/sections/compare-parameters';
-import { createNotebook, createNotebookFixture, designWith, saveVersion, type NotebookFixture } from '../notebooks/fixture';
+import { designWith } from '../notebooks/fixture';
 import { pdfText } from './pdf-text';
 import { sampleCompareSheet } from './sample';
-import { bytesOf } from './http';
 
 /**
  * The compare sheet: both versions' values side by side with the changes marked in words, the
- * figure changes equal to the solver's at the printed precision, both sketches at one scale, and
- * its route over HTTP.
+ * figure changes equal to the solver's at the printed precision, and both sketches at one scale.
+ * Its route is checked with the other sheet routes in routes.test.ts.
  */
 
 /** The PDF line that starts with `label` (table cells come back joined by spaces). */
@@ -136,47 +133,5 @@ describe('both sketches at one scale', () => {
     expect(printedReduction({ pxPerMm: 2 }, 0.5)).toBeCloseTo(72 / 25.4, 10);
     // Full size on paper: 72 / 25.4 pt per millimetre gives 1 : 1.
     expect(printedReduction({ pxPerMm: 72 / 25.4 }, 1)).toBeCloseTo(1, 10);
-  });
-});
-
-
-describe('GET /api/designs/:id/compare.pdf', () => {
-  let fx: NotebookFixture;
-  let designId: string;
-  const title = 'Visible scanner';
-  const path = (query: string) => `/api/designs/${designId}/compare.pdf?${query}`;
-
-  beforeAll(async () => {
-    fx = await createNotebookFixture();
-    designId = (await createNotebook(fx, title)).design.id;
-    await saveVersion(fx, designId, 1, designWith({ slits: { exitWidthUm: 40 } }), 'Narrow exit').expect(201);
-  }, 60_000);
-  afterAll(() => fx?.ctx.close());
-
-  it('gives the owner a PDF named <design>-v1-vs-v2.pdf with the change marked', async () => {
-    const res = await bytesOf(fx.owner.agent.get(path('a=1&b=2')));
-    expect(res.status).toBe(200);
-    expect(res.headers['content-type']).toBe('application/pdf');
-    expect(res.body.subarray(0, 4).toString('latin1')).toBe('%PDF');
-    // Quoted or not, as Express writes it (RFC 6266 allows both for a plain name).
-    expect(res.headers['content-disposition']).toMatch(new RegExp(`^attachment; filename="?${compareSheetFileName(title, 1, 2).replace(/\./g, '\\.')}"?$`));
-    expect(compareSheetFileName(title, 1, 2)).toBe('visible-scanner-v1-vs-v2.pdf');
-    const { text } = await pdfText(res.body);
-    expect(lineOf(text, editorName('slits.exitWidthUm'))).toMatch(new RegExp(`\\b100 40 ${CHANGED}$`));
-    expect(text).toContain('Narrow exit');
-  });
-
-  it('answers an unknown version b with 404 in the JSON error shape', async () => {
-    const res = await bytesOf(fx.owner.agent.get(path('a=1&b=9')));
-    expect(res.status).toBe(404);
-    expect(res.headers['content-type']).toMatch(/^application\/json/);
-    const { error } = errorBodySchema.parse(JSON.parse(res.body.toString('utf8')));
-    expect(error.code).toBe('not_found');
-  });
-
-  it('answers someone outside the team with 404, as if the design did not exist', async () => {
-    const res = await bytesOf(fx.outsider.agent.get(path('a=1&b=2')));
-    expect(res.status).toBe(404);
-    expect(res.body.subarray(0, 4).toString('latin1')).not.toBe('%PDF');
   });
 });

@@ -4,6 +4,7 @@ import { errorBodySchema } from '../../../shared/api-error';
 import { createShareLinkResponseSchema } from '../../../shared/notebooks';
 import { MAX_SHEET_WAVELENGTHS, sheetFileName } from '../../../shared/sheets';
 import { sheetSections } from '../../../server/sheets/registry';
+import { CHANGED } from '../../../server/sheets/sections/compare-parameters';
 import request from 'supertest';
 import { browserAgent, createTestApp, testOrigin } from '../../support/test-app';
 import { createNotebook, createNotebookFixture, designWith, saveVersion, type NotebookFixture } from '../notebooks/fixture';
@@ -164,8 +165,11 @@ describe('GET /api/designs/:id/compare.pdf', () => {
     expectWholePdf(res);
     expect(attachmentName(res)).toBe('visible-scanner-v1-vs-v2.pdf');
     expect(res.headers['cache-control']).toMatch(/\bprivate\b/);
-    const { pageSizes } = await pdfText(res.body);
+    const { pageSizes, text } = await pdfText(res.body);
     for (const size of pageSizes) expect([size.width, size.height]).toEqual([612, 792]);
+    // The saved change (exit slit 100 → 40 µm) is there, marked, with v2's message.
+    expect(text).toMatch(new RegExp(`Exit slit width \\(µm\\) 100 40 ${CHANGED}`));
+    expect(text).toContain('Narrow exit');
   });
 
   it('answers 404 for a version that does not exist and 400 without both versions', async () => {
