@@ -75,32 +75,12 @@ function sameAddress(shown: string, href: string): boolean {
   return trimmed === href || `${trimmed}/` === href || `mailto:${trimmed}` === href;
 }
 
-/**
- * Whether the font has a glyph for `char`, read from the font pdfkit loaded (its fontkit face; a
- * private field, so an unknown shape answers yes and the text is drawn as before).
- */
-const glyphs = new Map<string, boolean>();
-function hasGlyph(writer: SheetWriter, font: SheetFont, char: string): boolean {
-  const key = `${font}|${char}`;
-  let known = glyphs.get(key);
-  if (known === undefined) {
-    writer.use(font, textSize.body);
-    const face = (writer.doc as unknown as { _font?: { font?: { hasGlyphForCodePoint?: (codePoint: number) => boolean } } })._font?.font;
-    known = face?.hasGlyphForCodePoint?.(char.codePointAt(0)!) ?? true;
-    // Notes can hold any character: keep the memo small.
-    if (glyphs.size > 4096) glyphs.clear();
-    glyphs.set(key, known);
-  }
-  return known;
-}
-
 const isMono = (font: SheetFont) => font === 'mono' || font === 'monoMedium';
 
 /**
- * Mono runs made safe to draw. IBM Plex Mono as shipped keeps its empty glyphs (space, no-break
- * space) at the very end of its glyf table, where fontkit 2.0.4 (under pdfkit) reads past the
- * table and throws ("Offset is outside the bounds of the DataView"), so white space inside code is
- * set in Inter; so is any character Plex Mono lacks (Greek letters, for one), instead of a box.
+ * Mono runs made safe to draw: any character Plex Mono lacks (Greek letters, for one) is set in
+ * Inter instead of an empty box, and white space inside code is set in Inter too (an invisible
+ * character either way; this began as a way round a font-reading fault the writer now prevents).
  */
 function drawable(writer: SheetWriter, runs: readonly Run[]): Run[] {
   const out: Run[] = [];
@@ -116,7 +96,7 @@ function drawable(writer: SheetWriter, runs: readonly Run[]): Run[] {
     }
     for (const char of run.text) {
       if (/\s/u.test(char)) push(' ', 'regular', run.color);
-      else push(char, hasGlyph(writer, run.font, char) ? run.font : 'regular', run.color);
+      else push(char, writer.hasGlyph(run.font, char) ? run.font : 'regular', run.color);
     }
   }
   return out;
@@ -169,10 +149,10 @@ function drawCode(writer: SheetWriter, text: string, x: number, width: number, s
         column += 1;
         continue;
       }
-      const font: SheetFont = hasGlyph(writer, 'mono', chars[column]!) ? 'mono' : 'regular';
+      const font: SheetFont = writer.hasGlyph('mono', chars[column]!) ? 'mono' : 'regular';
       let end = column + 1;
       // A character the mono face lacks is drawn alone, in Inter, in its own column.
-      while (font === 'mono' && end < chars.length && !/\s/u.test(chars[end]!) && hasGlyph(writer, 'mono', chars[end]!)) end += 1;
+      while (font === 'mono' && end < chars.length && !/\s/u.test(chars[end]!) && writer.hasGlyph('mono', chars[end]!)) end += 1;
       writer
         .use(font, codeSize)
         .doc.fillColor(sheetColors.ink)

@@ -53,16 +53,13 @@ export function drawSketchFigure(writer: SheetWriter, scene: SketchScene, keepWi
     .lineWidth(0.5)
     .fillAndStroke('#FFFFFF', sheetColors.line);
   doc.restore();
-  // pdfkit moves its cursor to each label it sets (in the scene's scaled units): keep the writer's.
-  const { x, y } = doc;
+  // drawScene leaves the writer's cursor where it was.
   drawScene(writer, printableScene(writer, scene), {
     x: frame.x + FRAME_PAD_PT,
     y: frame.y + FRAME_PAD_PT,
     width: frame.width - 2 * FRAME_PAD_PT,
     height: frame.height - 2 * FRAME_PAD_PT,
   });
-  doc.x = x;
-  doc.y = y;
   return frame;
 }
 
@@ -83,29 +80,13 @@ export function sketchWords(
   };
 }
 
-/** pdfkit's current font, whose fontkit face answers which characters it has (pdfkit internals). */
-type FaceOwner = { _font?: { font?: { hasGlyphForCodePoint?: (codePoint: number) => boolean } } };
-
 /**
  * The scene with every monospaced label the shipped IBM Plex Mono cannot set moved to Inter, which
  * can. Plex Mono has no Greek (the angle labels "α 36.88°", "φ 21.88°"): a browser falls back per
- * character, a PDF prints an empty box. And pdfkit's font reader (fontkit 2.0.4) throws on Plex
- * Mono's space, the file's last glyph, whose empty outline it reads past the end of the file:
- * until the sheet's font loading works around that, a label with a space goes to Inter too.
+ * character, a PDF prints an empty box.
  */
 export function printableScene(writer: SheetWriter, scene: SketchScene): SketchScene {
-  writer.use('mono', 10);
-  const face = (writer.doc as unknown as FaceOwner)._font?.font;
-  const has = face?.hasGlyphForCodePoint?.bind(face) ?? (() => true);
-  const settable = (text: string) => {
-    if (!Array.from(text).every((c) => has(c.codePointAt(0) as number))) return false;
-    try {
-      writer.doc.widthOfString(text);
-      return true;
-    } catch {
-      return false;
-    }
-  };
+  const settable = (text: string) => Array.from(text).every((char) => writer.hasGlyph('mono', char));
   const shapes = scene.shapes.map((shape): SketchShape =>
     shape.type === 'text' && shape.weight === 'mono' && !settable(shape.text)
       ? { ...shape, weight: 'regular' }

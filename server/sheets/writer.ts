@@ -146,6 +146,14 @@ export class SheetWriter {
     return this;
   }
 
+  /**
+   * Whether `font` can set `char` (a PDF prints a character its font lacks as an empty box; IBM
+   * Plex Mono has no Greek, for one). Read from the parsed font, not from pdfkit's internals.
+   */
+  hasGlyph(font: SheetFont, char: string): boolean {
+    return loadFonts()[font].hasGlyphForCodePoint(char.codePointAt(0) ?? 0);
+  }
+
   /** Starts a new page when fewer than `heightPt` points are left on this one. */
   ensureSpace(heightPt: number): void {
     if (this.y + heightPt > this.bottom) this.newPage();
