@@ -15,6 +15,10 @@ function isPlainObject(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
 
+function sameList(a: readonly unknown[], b: readonly unknown[]): boolean {
+  return a.length === b.length && a.every((item, i) => Object.is(item, b[i]));
+}
+
 function walk(before: unknown, after: unknown, prefix: string): DesignChange[] {
   if (isPlainObject(before) || isPlainObject(after)) {
     const a = isPlainObject(before) ? before : {};
@@ -22,6 +26,8 @@ function walk(before: unknown, after: unknown, prefix: string): DesignChange[] {
     const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
     return keys.flatMap((key) => walk(a[key], b[key], prefix ? `${prefix}.${key}` : key));
   }
+  // A list (the requirements' wavelengths) is one value: equal when its items are.
+  if (Array.isArray(before) && Array.isArray(after) && sameList(before, after)) return [];
   if (Object.is(before ?? null, after ?? null)) return [];
   return [{ path: prefix, before: before ?? null, after: after ?? null }];
 }
@@ -66,10 +72,14 @@ export function flattenDesign(design: Design): Flat {
 
 /** The inverse of `flattenDesign`. */
 export function unflattenDesign(flat: Flat): Design {
-  const design: Record<string, Record<string, unknown>> = {};
+  const design: Record<string, unknown> = {};
   for (const [path, value] of Object.entries(flat)) {
-    const [section, field] = path.split('.') as [string, string];
-    (design[section] ??= {})[field] = value;
+    // Requirements nest one level deeper (`requirements.maxFootprintMm.widthMm`).
+    const keys = path.split('.');
+    const last = keys.pop() as string;
+    let target = design;
+    for (const key of keys) target = (target[key] ??= {}) as Record<string, unknown>;
+    target[last] = value;
   }
   return design as unknown as Design;
 }

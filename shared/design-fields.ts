@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { designSchema, type Design, type LayoutKind } from './design';
+import { describeRequirementPath } from './requirements';
 
 /**
  * How each field of a design is shown and named: the one description beside the schema from
@@ -55,7 +56,11 @@ type FieldDescriptions<S> = {
     : ChoiceDescription<Extract<S[K], string>>;
 };
 
-export type SectionId = keyof Design;
+/**
+ * The editor's sections: every part of a design but its requirements, which are limits on the
+ * results rather than parameters (shared/requirements.ts describes them).
+ */
+export type SectionId = Exclude<keyof Design, 'requirements'>;
 
 type DesignDescription = {
   [S in SectionId]-?: {
@@ -348,8 +353,9 @@ function objectShape(schema: z.ZodType): Record<string, z.ZodType> {
 }
 
 /** Every section and field of the design in the schema's order, with its description. */
-export const describedSections: readonly DescribedSection[] = Object.entries(designSchema.shape).map(
-  ([id, sectionSchema]) => {
+export const describedSections: readonly DescribedSection[] = Object.entries(designSchema.shape)
+  .filter(([id]) => id !== 'requirements')
+  .map(([id, sectionSchema]) => {
     const section = designDescription[id as SectionId];
     const descriptions = section.fields as Record<
       string,
@@ -373,8 +379,7 @@ export const describedSections: readonly DescribedSection[] = Object.entries(des
       optional: sectionSchema.isOptional(),
       fields,
     };
-  },
-);
+  });
 
 export const describedFields: readonly DescribedField[] = describedSections.flatMap(
   (section) => section.fields,
@@ -413,6 +418,8 @@ export function fieldTableName(key: string): string {
 
 /** A path as compare and conflict tables name it: `slits.exitWidthUm` → "Slits: exit width (µm)"; a section → "Detector". */
 export function describeDesignPath(path: string): string {
+  const requirement = describeRequirementPath(path);
+  if (requirement !== null) return requirement;
   const [sectionId, key] = path.split('.');
   const section = describedSections.find((s) => s.id === sectionId);
   const head = section?.short ?? sectionId ?? path;

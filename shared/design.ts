@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { formatNumber } from './format';
+import { requirementsSchema } from './requirements';
 import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
 
 /**
@@ -156,6 +157,8 @@ export const storedDesignSchema = section({
   /** What the light source emits; used to find other orders landing on the same angle. */
   source: sourceSchema.optional(),
   detector: detectorSchema.optional(),
+  /** What the instrument must do (shared/requirements.ts); checked, never used to compute. */
+  requirements: requirementsSchema.optional(),
 });
 
 /**

@@ -14,7 +14,7 @@ type FieldText<V> = Exclude<V, undefined> extends number ? string : Exclude<V, u
  * Every section and field of the design, optional or not; numbers as text, a choice as its value.
  */
 export type FormValues = {
-  [S in keyof Design]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
+  [S in Exclude<keyof Design, 'requirements'>]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
 };
 
 const text = z.string().max(200);
