@@ -1,0 +1,1 @@
+export { CandidateSearchPanel, type CandidateSearchPanelProps } from './components/candidate-search-panel';
