@@ -1,5 +1,7 @@
+import { requirementLabel } from './requirement-fields';
 import {
   describedSections,
+  fieldLabel as designFieldLabel,
   type DescribedInteger,
   type DescribedQuantity,
   type SectionId,
@@ -33,4 +35,7 @@ export const fieldByPath: ReadonlyMap<string, FieldSpec> = new Map(
   allFields.map((field) => [field.path, field]),
 );
 
-export { fieldLabel } from '@/shared/design-fields';
+/** The editor's label for a design or requirements path, for "fix …" notes; the path itself when unknown. */
+export function fieldLabel(path: string): string {
+  return requirementLabel(path) ?? designFieldLabel(path);
+}

@@ -5,6 +5,13 @@ import { describedFieldByPath, describedFields, describedSections } from '@/shar
 import { formatMachineNumber } from '@/shared/format';
 import { fieldErrors, type FieldErrors } from '@/shared/validation';
 import { allFields, type FieldSpec } from './fields';
+import {
+  requirementLabel,
+  requirementsFromText,
+  requirementsTextSchema,
+  requirementsToText,
+  type RequirementsText,
+} from './requirement-fields';
 
 type FieldText<V> = Exclude<V, undefined> extends number ? string : Exclude<V, undefined>;
 
@@ -15,14 +22,17 @@ type FieldText<V> = Exclude<V, undefined> extends number ? string : Exclude<V, u
  */
 export type FormValues = {
   [S in Exclude<keyof Design, 'requirements'>]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
+} & {
+  /** What the instrument must do, as typed (requirement-fields.ts); all blank for none. */
+  requirements: RequirementsText;
 };
 
 const text = z.string().max(200);
 
 /** The editor's text as a draft stores it, built from the described fields. */
 export const formValuesSchema = z.object(
-  Object.fromEntries(
-    describedSections.map((section) => [
+  Object.fromEntries([
+    ...describedSections.map((section) => [
       section.id,
       z.object(
         Object.fromEntries(
@@ -33,7 +43,9 @@ export const formValuesSchema = z.object(
         ),
       ),
     ]),
-  ),
+    // Drafts saved before requirements existed lack the key and read as none.
+    ['requirements', requirementsTextSchema],
+  ]),
 ) as unknown as z.ZodType<FormValues>;
 
 export type FormResult = { ok: true; design: Design } | { ok: false; fields: FieldErrors };
@@ -67,7 +79,8 @@ const FIELD_NAME = /\b(?:[a-z]+\.)?[a-z]+[A-Z]\w*\b/g;
 function speak(message: string): string {
   return message.replace(FIELD_NAME, (name) => {
     const field = describedFieldByPath.get(name) ?? describedFields.find((f) => f.key === name);
-    return field ? `the ${field.label.charAt(0).toLowerCase()}${field.label.slice(1)}` : name;
+    const label = field?.label ?? requirementLabel(name.startsWith('requirements.') ? name : `requirements.${name}`);
+    return label ? `the ${label.charAt(0).toLowerCase()}${label.slice(1)}` : name;
   });
 }
 
@@ -101,12 +114,19 @@ export function formToDesign(values: FormValues): FormResult {
       }
     }
   }
+  const typedRequirements = requirementsFromText(values.requirements);
+  Object.assign(errors, typedRequirements.errors);
+  if (typedRequirements.requirements) candidate.requirements = typedRequirements.requirements;
   const checked = designSchema.safeParse(candidate);
   if (checked.success && Object.keys(errors).length === 0) return { ok: true, design: checked.data };
   if (!checked.success) {
-    for (const [path, message] of Object.entries(fieldErrors(checked.error))) {
+    for (const [issuePath, message] of Object.entries(fieldErrors(checked.error))) {
+      // One field holds the whole wavelength list: its items' messages say which item.
+      const item = /^(requirements\.atWavelengthsNm)\.(\d+)$/.exec(issuePath);
+      const path = item ? (item[1] as string) : issuePath;
+      const said = item ? `wavelength ${Number(item[2]) + 1} ${message}` : message;
       // A field whose text could not be read already has the better message.
-      if (!(path in errors)) errors[path] = speak(message);
+      if (!(path in errors)) errors[path] = speak(said);
     }
   }
   return { ok: false, fields: errors };
@@ -152,7 +172,7 @@ export function designToForm(design: Design): FormValues {
       }),
     );
   }
-  return form as FormValues;
+  return { ...form, requirements: requirementsToText(design.requirements) } as FormValues;
 }
 
 /**

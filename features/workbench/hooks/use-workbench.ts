@@ -24,11 +24,15 @@ export const TABLE_ROWS = 11;
 
 /** Flat `{ 'slits.exitWidthUm': why }` → react-hook-form's nested error tree. */
 function nestErrors(fields: FieldErrors): FormErrors<FormValues> {
-  const tree: Record<string, Record<string, { type: string; message: string }>> = {};
+  type Tree = { [key: string]: Tree | { type: string; message: string } };
+  const tree: Tree = {};
   for (const [path, message] of Object.entries(fields)) {
-    const [section, key] = path.split('.');
-    if (!section || !key) continue;
-    (tree[section] ??= {})[key] = { type: 'validate', message };
+    const keys = path.split('.');
+    // A whole section (or the requirements block) has no field of its own to hold the message.
+    if (keys.length < 2) continue;
+    let node = tree;
+    for (const key of keys.slice(0, -1)) node = (node[key] ??= {}) as Tree;
+    node[keys[keys.length - 1] as string] = { type: 'validate', message };
   }
   return tree as FormErrors<FormValues>;
 }

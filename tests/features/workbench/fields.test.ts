@@ -34,7 +34,8 @@ describe('the editor fields and form, derived from the described schema', () => 
   it('holds every field as text in the editor form, and an absent one as empty text', () => {
     const { source: _source, ...withoutSource } = exampleDesign;
     const form = designToForm(withoutSource);
-    expect(Object.keys(form)).toEqual(parameterSections().map(([section]) => section));
+    // The parameter sections, then the requirements' text (requirement-fields.test.ts covers it).
+    expect(Object.keys(form)).toEqual([...parameterSections().map(([section]) => section), 'requirements']);
     expect(form.source).toEqual({ minNm: '', maxNm: '' });
     expect(form.layout.kind).toBe('czerny-turner');
     expect(form.grating.grooveDensityPerMm).toBe('1200');
