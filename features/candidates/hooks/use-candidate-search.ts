@@ -1,0 +1,70 @@
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { SearchAnswer, SearchRequest } from '@/shared/search';
+import { createSearchRunner, type SearchHandle, type SearchRunner } from '../search-runner';
+
+export type CandidateSearchState =
+  | { status: 'idle' }
+  | { status: 'running'; done: number; total: number | null }
+  | { status: 'cancelled'; done: number }
+  | { status: 'done'; answer: SearchAnswer; request: SearchRequest }
+  | { status: 'failed'; message: string };
+
+/**
+ * One search at a time, off the UI thread where the platform allows (search-runner.*). Starting
+ * again replaces the running search; progress from a replaced or cancelled run is ignored.
+ */
+export function useCandidateSearch() {
+  const [state, setState] = useState<CandidateSearchState>({ status: 'idle' });
+  const runner = useRef<SearchRunner | null>(null);
+  const current = useRef<{ handle: SearchHandle; done: number } | null>(null);
+
+  useEffect(
+    () => () => {
+      current.current = null;
+      runner.current?.dispose();
+      runner.current = null;
+    },
+    [],
+  );
+
+  const start = useCallback((request: SearchRequest) => {
+    current.current?.handle.cancel();
+    runner.current ??= createSearchRunner();
+    setState({ status: 'running', done: 0, total: null });
+    const run: { handle: SearchHandle | null; done: number } = { handle: null, done: 0 };
+    const handle = runner.current.start(request, (done, total) => {
+      if (current.current !== run) return;
+      run.done = done;
+      setState({ status: 'running', done, total });
+    });
+    run.handle = handle;
+    current.current = run as { handle: SearchHandle; done: number };
+    handle.outcome.then(
+      (outcome) => {
+        if (current.current !== run) return;
+        current.current = null;
+        setState(
+          outcome.kind === 'done'
+            ? { status: 'done', answer: outcome.answer, request }
+            : { status: 'cancelled', done: Math.max(outcome.done, run.done) },
+        );
+      },
+      (error: unknown) => {
+        if (current.current !== run) return;
+        current.current = null;
+        setState({
+          status: 'failed',
+          message: error instanceof Error && error.message ? error.message : 'The search stopped unexpectedly.',
+        });
+      },
+    );
+  }, []);
+
+  const cancel = useCallback(() => {
+    const run = current.current;
+    if (!run) return;
+    run.handle.cancel();
+  }, []);
+
+  return { state, start, cancel };
+}
