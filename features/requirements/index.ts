@@ -6,3 +6,5 @@
 export * from './types';
 export * from './check';
 export * from './footprint';
+export * from './design-change';
+export * from './solve-for';
