@@ -1,5 +1,6 @@
 import { describedFieldByPath, describedSections, fieldTableName } from './design-fields';
-import { formatNumber, formatQuantity } from './format';
+import { UNIT_SPACE, formatNumber, formatQuantity } from './format';
+import { requirementWords } from './requirements';
 
 /**
  * Stored design values and field paths in the editor's own words, for every place that shows a
@@ -7,17 +8,34 @@ import { formatNumber, formatQuantity } from './format';
  * and the design sheet on the server.
  */
 
+const REQUIREMENTS = 'requirements';
+
+/** The words for a `requirements.…` path (`requirements.maxFootprintMm.widthMm` included); null for other paths. */
+function requirementWordsAt(path: string): { label: string; short: string } | null {
+  if (!path.startsWith(`${REQUIREMENTS}.`)) return null;
+  return requirementWords[path.slice(REQUIREMENTS.length + 1) as keyof typeof requirementWords] ?? null;
+}
+
+/** The unit a requirement's name carries in brackets ("max bandpass (nm)" → "nm"); empty for counts and choices. */
+function requirementUnit(path: string): string {
+  return /\(([^)]+)\)$/.exec(requirementWordsAt(path)?.short ?? '')?.[1] ?? '';
+}
+
 /** A parameter value as it reads in a table: numbers plainly, sections as "set" / "not set". */
 export function formatParam(value: unknown): string {
   if (value === null || value === undefined) return 'not set';
   // A stored parameter is shown in full, not cut to the four figures of a derived one.
   if (typeof value === 'number') return formatNumber(value, 12);
   if (typeof value === 'string') return value;
+  if (typeof value === 'boolean') return value ? 'yes' : 'no';
+  // A list (the requirements' wavelengths) reads as its items, in order.
+  if (Array.isArray(value)) return value.map((item) => formatParam(item)).join(', ');
   if (typeof value === 'object') {
     return Object.entries(value as Record<string, unknown>)
       .map(([key, inner]) => `${fieldTableName(key)} ${formatParam(inner)}`)
       .join(', ');
   }
+  if (typeof value === 'boolean' || Array.isArray(value)) return formatParam(value);
   return String(value);
 }
 
@@ -27,6 +45,10 @@ export function formatParam(value: unknown): string {
  * gives the editor's heading ("Mount"). Unknown paths are shown as they are.
  */
 export function editorFieldName(path: string): string {
+  const requirement = requirementWordsAt(path);
+  // Requirements are named by their limit, unit in brackets: "Max bandpass (nm)".
+  if (requirement) return requirement.short.charAt(0).toUpperCase() + requirement.short.slice(1);
+  if (path === REQUIREMENTS) return 'Requirements';
   const field = describedFieldByPath.get(path);
   if (field) return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
   return describedSections.find((section) => section.id === path)?.title ?? path;
@@ -35,6 +57,7 @@ export function editorFieldName(path: string): string {
 /** The editor's heading of the section a path is in ("Mount" for `layout.kind`). */
 export function editorSectionTitle(path: string): string {
   const id = path.split('.')[0] ?? path;
+  if (id === REQUIREMENTS) return 'Requirements';
   return describedSections.find((section) => section.id === id)?.title ?? id;
 }
 
@@ -50,6 +73,12 @@ export function formatParamAt(path: string, value: unknown): string {
 /** A stored field value as the editor shows it: with its unit ("100 µm"), a choice by its label. */
 export function formatStoredValue(path: string, value: unknown): string {
   if (value === null || value === undefined) return 'not set';
+  if (requirementWordsAt(path)) {
+    const unit = requirementUnit(path);
+    // "404.7, 546.1 nm": the list's unit once, kept with its last item; the list itself may wrap.
+    if (typeof value === 'number' || Array.isArray(value)) return unit ? `${formatParam(value)}${UNIT_SPACE}${unit}` : formatParam(value);
+    return formatParam(value);
+  }
   const field = describedFieldByPath.get(path);
   if (typeof value === 'number') {
     // Stored values are shown in full, not cut to the four figures of a derived one.
@@ -58,5 +87,6 @@ export function formatStoredValue(path: string, value: unknown): string {
   if (typeof value === 'string' && field?.kind === 'choice') {
     return (field.options as Record<string, { label: string } | undefined>)[value]?.label ?? value;
   }
+  if (typeof value === 'boolean' || Array.isArray(value)) return formatParam(value);
   return String(value);
 }

@@ -1,13 +1,22 @@
 import { describeDesignPath } from '@/shared/design-fields';
 import { formatNumber } from '@/shared/format';
 import type { VersionSummary } from '@/shared/notebooks';
-import { formatFigure } from '@/shared/notebooks/figure-labels';
+import { formatFigure, formatRequirementsMet, requirementsMetLabel } from '@/shared/notebooks/figure-labels';
 
 // Screens in this folder still import the dates from here; new code imports '@/shared/format'.
 export { formatDay, formatWhen } from '@/shared/format';
 
 // The key figures' words are shared with the compare sheet on the server.
-export { changeTone, figureLabels, formatFigure, formatRelativeChange } from '@/shared/notebooks/figure-labels';
+export {
+  REQUIREMENTS_MET_LABEL,
+  changeTone,
+  figureLabels,
+  formatFigure,
+  formatRelativeChange,
+  formatRequirementsMet,
+  requirementsChange,
+  requirementsMetLabel,
+} from '@/shared/notebooks/figure-labels';
 
 /** "380–780 nm". */
 export function formatRange(summary: Pick<VersionSummary, 'rangeStartNm' | 'rangeEndNm'>): string {
@@ -21,6 +30,12 @@ export function summaryFigures(summary: VersionSummary) {
     bandpass: formatFigure('bandpassAtCentreNm', summary.bandpassAtCentreNm),
     resolvingPower: formatFigure('resolvingPowerAtCentre', summary.resolvingPowerAtCentre),
     fNumber: formatFigure('fNumber', summary.fNumber),
+    /** "4 of 5 met", or "—" for a version without requirements (or saved before they existed). */
+    requirements: formatRequirementsMet(summary.requirements),
+    /** The same read aloud, naming the failing ones. */
+    requirementsLabel: requirementsMetLabel(summary.requirements),
+    /** Whether the version states requirements at all (phones leave the words out when not). */
+    hasRequirements: (summary.requirements?.total ?? 0) > 0,
   };
 }
 

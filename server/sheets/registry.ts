@@ -7,6 +7,7 @@ import { notesSection } from './sections/notes';
 import { parametersSection } from './sections/parameters';
 import { performanceSection } from './sections/performance';
 import { plotsSection } from './sections/plots';
+import { requirementsSection } from './sections/requirements';
 import { reviewSection } from './sections/review';
 import { sketchSection } from './sections/sketch';
 import { titleSection } from './sections/title';
@@ -24,6 +25,7 @@ export const sheetSections: readonly SheetSection[] = [
   parametersSection,
   performanceSection,
   plotsSection,
+  requirementsSection,
   warningsSection,
   notesSection,
   reviewSection,

@@ -1,5 +1,7 @@
 import { NONE, formatInteger, formatNumber, formatPercent } from '../format';
+import type { RequirementId } from '../requirements';
 import type { FigureKey } from './compare';
+import type { RequirementsSummary } from './versions';
 
 /**
  * The compare answer's key figures in words: their labels, how a value and a change between two
@@ -38,4 +40,76 @@ export function changeTone(key: FigureKey, relative: number | null): 'ok' | 'dan
   const { lowerIsBetter } = figureLabels[key];
   if (relative === null || relative === 0 || lowerIsBetter === null) return 'muted';
   return (relative < 0) === lowerIsBetter ? 'ok' : 'danger';
+}
+
+/** Each requirement as a noun, for lists of which ones fail ("bandpass, f-number"). */
+export const requirementNames: Record<RequirementId, string> = {
+  maxBandpassNm: 'bandpass',
+  minResolvingPower: 'resolving power',
+  minBlazeEfficiency: 'blaze efficiency',
+  maxFNumber: 'f-number',
+  maxFocalLengthMm: 'focal length',
+  maxFootprintMm: 'footprint',
+  minPixelsPerBandpass: 'pixels per bandpass',
+  oneShotCoverage: 'one-shot coverage',
+  maxWavelengthErrorNm: 'wavelength error',
+  maxReciprocalDispersionNmPerMm: 'reciprocal dispersion',
+  orderOverlap: 'order overlap',
+};
+
+/** The key figure's name, in the history table's column and the compare tables. */
+export const REQUIREMENTS_MET_LABEL = 'Requirements met';
+
+/** "4 of 5 met"; a dash when the version states no requirements (or was saved before they existed). */
+export function formatRequirementsMet(summary: RequirementsSummary | null | undefined): string {
+  if (!summary || summary.total === 0) return NONE;
+  return `${formatInteger(summary.met)} of ${formatInteger(summary.total)} met`;
+}
+
+function namesText(ids: readonly RequirementId[]): string {
+  return ids.map((id) => requirementNames[id]).join(', ');
+}
+
+/**
+ * The figure read aloud, naming what a glance at "4 of 5 met" leaves out: "Requirements: 3 of 5
+ * met; failing: bandpass, f-number; 1 not checked".
+ */
+export function requirementsMetLabel(summary: RequirementsSummary | null | undefined): string {
+  if (!summary || summary.total === 0) return 'Requirements: none stated';
+  const parts = [`Requirements: ${formatRequirementsMet(summary)}`];
+  if (summary.failing.length > 0) parts.push(`failing: ${namesText(summary.failing)}`);
+  if (summary.unknown > 0) parts.push(`${formatInteger(summary.unknown)} not checked`);
+  return parts.join('; ');
+}
+
+/**
+ * How the requirements moved from one version to another, in words ("1 more met; bandpass no
+ * longer fails"), and whether that is for the better. Names come from the failing lists, so a
+ * requirement that went from failing to not checked reads as no longer failing: the count beside
+ * it still says it is not met.
+ */
+export function requirementsChange(
+  before: RequirementsSummary | null | undefined,
+  after: RequirementsSummary | null | undefined,
+): { text: string; tone: 'ok' | 'danger' | 'muted' } {
+  const a = before && before.total > 0 ? before : null;
+  const b = after && after.total > 0 ? after : null;
+  if (!a && !b) return { text: NONE, tone: 'muted' };
+  if (!a) return { text: 'requirements added', tone: 'muted' };
+  if (!b) return { text: 'requirements removed', tone: 'muted' };
+  const nowFailing = b.failing.filter((id) => !a.failing.includes(id));
+  const fixed = a.failing.filter((id) => !b.failing.includes(id));
+  const delta = b.met - a.met;
+  const parts: string[] = [];
+  if (delta > 0) parts.push(`${formatInteger(delta)} more met`);
+  if (delta < 0) parts.push(`${formatInteger(-delta)} fewer met`);
+  if (nowFailing.length > 0) parts.push(`${namesText(nowFailing)} now ${nowFailing.length === 1 ? 'fails' : 'fail'}`);
+  if (fixed.length > 0) parts.push(`${namesText(fixed)} no longer ${fixed.length === 1 ? 'fails' : 'fail'}`);
+  if (parts.length === 0) {
+    const same = a.total === b.total && a.unknown === b.unknown;
+    return { text: same ? 'no change' : `${formatInteger(b.total)} checked, was ${formatInteger(a.total)}`, tone: 'muted' };
+  }
+  const better = nowFailing.length === 0 && (fixed.length > 0 || delta > 0);
+  const worse = fixed.length === 0 && (nowFailing.length > 0 || delta < 0);
+  return { text: parts.join('; '), tone: better ? 'ok' : worse ? 'danger' : 'muted' };
 }

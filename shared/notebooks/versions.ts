@@ -1,6 +1,20 @@
 import { z } from 'zod';
 import { storedDesignSchema } from '../design';
+import { REQUIREMENT_IDS } from '../requirements';
 import { personSchema } from './fields';
+
+/**
+ * How a version stood against its own requirements when it was saved: `met` of `total` checks
+ * passed, `unknown` could not be judged (no detector, no blaze…), `failing` names the rest in
+ * `REQUIREMENT_IDS` order.
+ */
+export const requirementsSummarySchema = z.object({
+  met: z.number().int().nonnegative(),
+  total: z.number().int().nonnegative(),
+  unknown: z.number().int().nonnegative(),
+  failing: z.array(z.enum(REQUIREMENT_IDS)),
+});
+export type RequirementsSummary = z.infer<typeof requirementsSummarySchema>;
 
 /**
  * Key figures of a version, computed on the server with the solver when the version is saved
@@ -19,6 +33,11 @@ export const versionSummarySchema = z.object({
   fNumber: z.number().nullable(),
   /** Warnings over the default 101-point sweep of the range, as the workbench shows them. */
   warningCount: z.number().int().nonnegative(),
+  /**
+   * Left out when the design states no requirements, and absent from every summary stored before
+   * requirements existed: optional, so each stored summary (jsonb) still parses as it is.
+   */
+  requirements: requirementsSummarySchema.nullable().optional(),
 });
 export type VersionSummary = z.infer<typeof versionSummarySchema>;
 

@@ -16,6 +16,10 @@ import {
   formatFigure,
   formatParamAt,
   formatRelativeChange,
+  formatRequirementsMet,
+  REQUIREMENTS_MET_LABEL,
+  requirementsChange,
+  requirementsMetLabel,
 } from '../format';
 import { useCompareQuery, useNotebookQuery } from '../queries';
 import { VersionPicker } from './version-picker';
@@ -70,12 +74,53 @@ function FiguresTable({ data }: { data: CompareResponse }) {
           </Text>
         </View>
       ))}
+      <RequirementsRow data={data} />
     </View>
   );
 }
 
-/** Figures in the table's figure face; a choice ("Czerny–Turner") reads as words. */
-const valueVariant = (value: unknown) => (typeof value === 'string' ? 'small' : 'number');
+/**
+ * Requirements met before and after, and the change in words ("bandpass no longer fails"); only
+ * when either version states requirements, so older notebooks compare as they always did.
+ */
+function RequirementsRow({ data }: { data: CompareResponse }) {
+  const before = data.a.summary.requirements;
+  const after = data.b.summary.requirements;
+  if (!before?.total && !after?.total) return null;
+  const change = requirementsChange(before, after);
+  return (
+    <View role="row" style={styles.row} testID="figure-requirements">
+      <Text role="cell" variant="small" style={styles.wideCell}>
+        {REQUIREMENTS_MET_LABEL}
+      </Text>
+      <Text role="cell" variant="number" aria-label={requirementsMetLabel(before)} style={[styles.cell, styles.num]}>
+        {formatRequirementsMet(before)}
+      </Text>
+      <Text role="cell" variant="number" aria-label={requirementsMetLabel(after)} style={[styles.cell, styles.num]}>
+        {formatRequirementsMet(after)}
+      </Text>
+      <Text
+        role="cell"
+        variant="small"
+        weight="semibold"
+        tone={change.tone}
+        style={[styles.cell, styles.num]}
+        testID="change-requirements"
+      >
+        {change.text}
+      </Text>
+    </View>
+  );
+}
+
+/** Two stored values differ: lists (the requirements' wavelengths) by their items. */
+function valuesDiffer(a: unknown, b: unknown): boolean {
+  if (Array.isArray(a) && Array.isArray(b)) return a.length !== b.length || a.some((item, i) => !Object.is(item, b[i]));
+  return a !== b;
+}
+
+/** Figures in the table's figure face; a choice ("Czerny–Turner") and a yes/no read as words. */
+const valueVariant = (value: unknown) => (typeof value === 'string' || typeof value === 'boolean' ? 'small' : 'number');
 
 function ParametersTable({ data }: { data: CompareResponse }) {
   const [onlyChanged, setOnlyChanged] = useState(false);
@@ -105,7 +150,7 @@ function ParametersTable({ data }: { data: CompareResponse }) {
       <View role="table" aria-label="Parameters" testID="compare-params">
         <HeaderRow titles={['Parameter', `v${data.a.number}`, `v${data.b.number}`]} />
         {rows.map((path, i) => {
-          const differs = changed.has(path) || changed.has(path.split('.')[0] ?? '') || a[path] !== b[path];
+          const differs = changed.has(path) || changed.has(path.split('.')[0] ?? '') || valuesDiffer(a[path], b[path]);
           // Rows come section by section; each section opens under the editor's heading for it.
           const section = editorSectionTitle(path);
           const opensSection = i === 0 || editorSectionTitle(rows[i - 1] ?? '') !== section;

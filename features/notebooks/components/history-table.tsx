@@ -16,7 +16,7 @@ type Props = {
   reviewStates?: ReadonlyMap<number, VersionReviewState>;
 };
 
-const columns = ['Version', 'Message', 'Review', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', ''] as const;
+const columns = ['Version', 'Message', 'Review', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', 'Requirements', ''] as const;
 const columnStyle: TextStyle[] = [
   { width: 72 },
   { flex: 2, minWidth: 0 },
@@ -27,6 +27,7 @@ const columnStyle: TextStyle[] = [
   { width: 96 },
   { width: 72 },
   { width: 72 },
+  { width: 104 },
   { width: 190 },
 ];
 
@@ -59,10 +60,15 @@ function ReviewCell({ n, state }: { n: number; state: VersionReviewState | undef
   );
 }
 
+/** Danger when a requirement fails; the words say so too, so the colour is never the only sign. */
+function requirementsTone(version: VersionHeader): 'danger' | undefined {
+  return (version.summary.requirements?.failing.length ?? 0) > 0 ? 'danger' : undefined;
+}
+
 /** Newest first: number, author, date, message, review state and the figures a reviewer scans for. */
 export function HistoryTable({ versions, current, baselineVersion, onOpen, onCompare, reviewStates }: Props) {
   const layout = useLayout();
-  // Ten columns need a wide screen: on a tablet the message and author were squeezed to a letter
+  // Eleven columns need a wide screen: on a tablet the message and author were squeezed to a letter
   // a line, so tablets get the phone's stacked rows.
   const wide = layout === 'wide';
   return (
@@ -129,6 +135,17 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
               <Text role="cell" variant="small">
                 {figures.range} · bandpass {figures.bandpass} · R {figures.resolvingPower} · {figures.fNumber}
               </Text>
+              {figures.hasRequirements ? (
+                <Text
+                  role="cell"
+                  variant="small"
+                  tone={requirementsTone(version)}
+                  aria-label={figures.requirementsLabel}
+                  testID={`history-requirements-${version.number}`}
+                >
+                  Requirements: {figures.requirements}
+                </Text>
+              ) : null}
               <View role="cell">{actions}</View>
             </View>
           );
@@ -165,7 +182,17 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
             <Text role="cell" variant="number" style={[styles.figure, columnStyle[8]]}>
               {figures.fNumber}
             </Text>
-            <View role="cell" style={columnStyle[9]}>
+            <Text
+              role="cell"
+              variant="number"
+              tone={requirementsTone(version)}
+              aria-label={figures.requirementsLabel}
+              style={[styles.figure, columnStyle[9]]}
+              testID={`history-requirements-${version.number}`}
+            >
+              {figures.requirements}
+            </Text>
+            <View role="cell" style={columnStyle[10]}>
               {actions}
             </View>
           </View>

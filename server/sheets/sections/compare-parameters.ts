@@ -1,4 +1,5 @@
 import type { Design } from '../../../shared/design';
+import { flattenDesign } from '../../../shared/design-diff';
 import { describeDesignPath, describedFieldByPath, describedSections } from '../../../shared/design-fields';
 import { editorFieldName, formatParamAt } from '../../../shared/design-values';
 import type { CompareSheetContext } from '../context';
@@ -18,6 +19,29 @@ function valueAt(params: Design, path: string): unknown {
 
 function row(name: string, before: string, after: string, changed: boolean): TableRow {
   return { cells: [name, before, after, changed ? CHANGED : ''], marked: changed };
+}
+
+const isRequirementPath = (path: string) => path.startsWith('requirements.');
+
+/** Every `requirements.…` leaf of a design, flattened as the diff names them (`requirements.maxFootprintMm.widthMm`). */
+function requirementValues(params: Design): Record<string, unknown> {
+  return Object.fromEntries(Object.entries(flattenDesign(params)).filter(([path]) => isRequirementPath(path)));
+}
+
+/**
+ * The requirements of both versions under their own heading, in the first version's order and
+ * then any only the second states; nothing when neither states any, so older notebooks print as
+ * they always did.
+ */
+function requirementRows(sheet: CompareSheetContext, changed: ReadonlySet<string>): TableRow[] {
+  const a = requirementValues(sheet.a.params);
+  const b = requirementValues(sheet.b.params);
+  const paths = [...new Set([...Object.keys(a), ...Object.keys(b)])];
+  if (paths.length === 0) return [];
+  return [
+    { cells: ['Requirements', '', '', ''], bold: true },
+    ...paths.map((path) => row(editorFieldName(path), formatParamAt(path, a[path]), formatParamAt(path, b[path]), changed.has(path))),
+  ];
 }
 
 /**
@@ -41,8 +65,9 @@ export function compareParameterRows(sheet: CompareSheetContext): TableRow[] {
       rows.push(row(editorFieldName(field.path), formatParamAt(field.path, before), formatParamAt(field.path, after), changed.has(field.path)));
     }
   }
+  rows.push(...requirementRows(sheet, changed));
   // A difference at a path the editor does not describe (none today) is still listed, never dropped.
-  const unknown = sheet.changes.filter((change) => !describedFieldByPath.has(change.path));
+  const unknown = sheet.changes.filter((change) => !describedFieldByPath.has(change.path) && !isRequirementPath(change.path));
   if (unknown.length > 0) {
     rows.push({ cells: ['Other', '', '', ''], bold: true });
     for (const change of unknown) {
