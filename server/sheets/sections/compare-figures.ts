@@ -82,10 +82,10 @@ export const compareFiguresSection: CompareSheetSection = {
       writer.gap(4);
       writer.table(
         [
-          { header: 'Requirements', width: 0.34 },
-          { header: va, width: 0.2, align: 'right' },
-          { header: vb, width: 0.2, align: 'right' },
-          { header: 'Change', width: 0.26, font: 'semibold' },
+          { header: 'Requirements', width: 0.28 },
+          { header: va, width: 0.16, align: 'right' },
+          { header: vb, width: 0.16, align: 'right' },
+          { header: 'Change', width: 0.4, font: 'semibold' },
         ],
         [requirements],
       );
