@@ -1,15 +1,18 @@
 export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './components/line-plot';
 export {
   EFFICIENCY_MODEL_CAPTION,
+  FAILING_LABEL,
   PerformancePlots,
   RESOLVING_POWER_CAPTION,
   TWO_COLUMN_MIN_WIDTH,
   type PerformancePlotsProps,
   type PlotProps,
 } from './components/performance-plots';
+export { requirementShading, PLOT_REQUIREMENTS, type RequirementShade, type ShadedPlot } from './requirement-shading';
 export {
   countRuns,
   flaggedIntervals,
+  hatchPath,
   linePath,
   nearestIndex,
   valueExtent,

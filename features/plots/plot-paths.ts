@@ -83,3 +83,21 @@ export function nearestIndex(xs: readonly number[], x: number): number {
 function round(value: number): number {
   return Math.round(value * 10) / 10;
 }
+
+/**
+ * Diagonal hatching (45°, `spacingPx` apart) filling the band from x `a` to `b` between `top` and
+ * `bottom`: a pattern that still reads in print and grey, where a tint alone would not.
+ */
+export function hatchPath(a: number, b: number, top: number, bottom: number, spacingPx = 7): string {
+  const height = bottom - top;
+  if (!(b > a) || !(height > 0)) return '';
+  let d = '';
+  // Each line rises one pixel per pixel to the right; its foot is at x0 on the bottom edge.
+  for (let x0 = Math.floor((a - height) / spacingPx) * spacingPx; x0 <= b; x0 += spacingPx) {
+    const t0 = Math.max(0, a - x0);
+    const t1 = Math.min(height, b - x0);
+    if (t1 <= t0) continue;
+    d += `M${round(x0 + t0)},${round(bottom - t0)}L${round(x0 + t1)},${round(bottom - t1)}`;
+  }
+  return d;
+}

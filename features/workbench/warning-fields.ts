@@ -1,3 +1,4 @@
+import type { RequirementCheck } from '@/features/requirements';
 import type { WarningCode } from '@/features/solver';
 
 /** The field a designer most likely changes to clear each warning; tapping the warning focuses it. */
@@ -13,3 +14,12 @@ export const warningField: Record<WarningCode, string> = {
   'fast-optics': 'layout.collimatorFocalMm',
   'degenerate-mount': 'layout.deviationAngleDeg',
 };
+
+/**
+ * The field a failing requirement's "fix" link opens: the design field the check names (the exit
+ * slit for a bandpass), else the requirement's own field so its limit can be eased.
+ */
+export function requirementFixField(check: Pick<RequirementCheck, 'id' | 'fixPath'>): string {
+  if (check.fixPath) return check.fixPath === 'requirements.maxFootprintMm' ? `${check.fixPath}.widthMm` : check.fixPath;
+  return check.id === 'maxFootprintMm' ? 'requirements.maxFootprintMm.widthMm' : `requirements.${check.id}`;
+}

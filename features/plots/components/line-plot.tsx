@@ -18,6 +18,7 @@ import {
 } from '../axes';
 import {
   countRuns,
+  hatchPath,
   linePath,
   nearestIndex,
   valueExtent,
@@ -64,6 +65,12 @@ export type LinePlotProps = {
   shaded?: readonly Interval[];
   /** What the shading means, shown under the title when anything is shaded. */
   shadedLabel?: string;
+  /** Where the design fails a requirement this plot draws: hatched and outlined, so print and grey show it. */
+  failing?: readonly Interval[];
+  /** The key's words for the hatching. */
+  failingLabel?: string;
+  /** Where and what fails, read out with the plot ("bandpass over 0.5 nm between 820 and 900 nm"). */
+  failingSummary?: string;
   /** Shown in the plot area when the series has no values at all. */
   emptyMessage?: string;
   selectedNm?: number | null;
@@ -218,10 +225,21 @@ export function LinePlot(props: LinePlotProps) {
           </Text>
         </View>
       ) : null}
+      {props.failing && props.failing.length > 0 ? (
+        <View style={styles.keyRow} testID={`${testID}-failing-key`}>
+          <View style={styles.failSwatch} />
+          <Text variant="caption" tone="muted">
+            {props.failingLabel ?? 'Fails a requirement here'}
+          </Text>
+        </View>
+      ) : null}
       <View
         style={{ width, height }}
         role="img"
-        aria-label={describePlot(title, wavelengthsNm, series, secondSeries)}
+        aria-label={
+          describePlot(title, wavelengthsNm, series, secondSeries) +
+          (props.failingSummary ? `; fails its requirements: ${props.failingSummary}` : '')
+        }
       >
         <Svg width={width} height={height}>
           <PlotBody
@@ -230,6 +248,7 @@ export function LinePlot(props: LinePlotProps) {
             series={series}
             secondSeries={secondSeries}
             shaded={props.shaded}
+            failing={props.failing}
             emptyMessage={props.emptyMessage}
             frame={frame}
             width={width}
@@ -318,7 +337,7 @@ function readValue(series: PlotSeries, index: number): string {
 
 type BodyProps = Pick<
   LinePlotProps,
-  'testID' | 'wavelengthsNm' | 'series' | 'secondSeries' | 'shaded' | 'emptyMessage'
+  'testID' | 'wavelengthsNm' | 'series' | 'secondSeries' | 'shaded' | 'failing' | 'emptyMessage'
 > & {
   frame: Frame;
   width: number;
@@ -332,6 +351,7 @@ const PlotBody = memo(function PlotBody({
   series,
   secondSeries,
   shaded,
+  failing,
   emptyMessage,
   frame,
   width,
@@ -355,8 +375,17 @@ const PlotBody = memo(function PlotBody({
         return b > a ? `M${r(a)},${top}H${r(b)}V${bottom}H${r(a)}Z` : '';
       })
       .join('');
-    return { xTicks, xFormat, grid, tickMarks, d, d2, shade };
-  }, [x, y, y2, yTicks, y2Ticks, left, right, top, bottom, wavelengthsNm, series, secondSeries, shaded]);
+    let fail = '';
+    let failOutline = '';
+    for (const iv of failing ?? []) {
+      const a = Math.max(left, x(iv.startNm));
+      const b = Math.min(right, x(iv.endNm));
+      if (!(b > a)) continue;
+      fail += hatchPath(a, b, top, bottom);
+      failOutline += `M${r(a)},${top}H${r(b)}V${bottom}H${r(a)}Z`;
+    }
+    return { xTicks, xFormat, grid, tickMarks, d, d2, shade, fail, failOutline };
+  }, [x, y, y2, yTicks, y2Ticks, left, right, top, bottom, wavelengthsNm, series, secondSeries, shaded, failing]);
 
   const yTitle = axisTitleOf(series);
   const y2Title = secondSeries ? axisTitleOf(secondSeries) : '';
@@ -375,6 +404,13 @@ const PlotBody = memo(function PlotBody({
           testID={`${testID}-shaded`}
           data-intervals={String(shaded?.length ?? 0)}
         />
+      ) : null}
+      {parts.failOutline ? (
+        <G testID={`${testID}-failing`} data-intervals={String(failing?.length ?? 0)}>
+          <Path d={parts.failOutline} fill={colors.dangerSoft} />
+          <Path d={parts.fail} stroke={colors.danger} strokeOpacity={0.45} strokeWidth={1} fill="none" />
+          <Path d={parts.failOutline} stroke={colors.danger} strokeWidth={1} strokeDasharray="4 3" fill="none" />
+        </G>
       ) : null}
       <Path d={parts.grid} stroke={colors.line} strokeWidth={1} />
       <Path
@@ -515,6 +551,14 @@ const styles = StyleSheet.create({
     backgroundColor: colors.warningSoft,
     borderWidth: 1,
     borderColor: colors.line,
+  },
+  failSwatch: {
+    width: 14,
+    height: 10,
+    backgroundColor: colors.dangerSoft,
+    borderWidth: 1,
+    borderStyle: 'dashed',
+    borderColor: colors.danger,
   },
   overlay: { position: 'absolute', cursor: 'pointer' },
   caption: { paddingHorizontal: space.xs },

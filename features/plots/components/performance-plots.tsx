@@ -1,9 +1,11 @@
 import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
-import type { Evaluation } from '@/features/solver';
+import type { Evaluation, WavelengthPoint } from '@/features/solver';
+import type { Design } from '@/shared/design';
 import { formatNumber, formatPercent } from '@/shared/format';
 import { colors, space } from '@/features/ui';
 import { scalarBlazeCaution, type ScalarBlazeCaution } from '../captions';
+import { requirementShading, type RequirementShade } from '../requirement-shading';
 import { performanceSeries, type PerformanceSeries } from '../series';
 import { LinePlot, type PlotSeries } from './line-plot';
 
@@ -19,7 +21,18 @@ export type PlotProps = {
 export type PerformancePlotsProps = PlotProps & {
   /** 1 or 2; by default two when `width` leaves each plot at least 320 px. */
   columns?: 1 | 2;
+  /** The design whose requirements are shaded where they fail (the one `evaluation` is of); none when absent. */
+  design?: Design | null;
 };
+
+/** The key under a plot's title for its hatching. */
+export const FAILING_LABEL = 'Hatched: fails a requirement here';
+
+function failingProps(shade: RequirementShade | undefined) {
+  return shade && shade.intervals.length > 0
+    ? { failing: shade.intervals, failingLabel: FAILING_LABEL, failingSummary: shade.summary }
+    : {};
+}
 
 /** Widest layout at which one column is kept: two plots need about 320 px each. */
 export const TWO_COLUMN_MIN_WIDTH = 660;
@@ -37,7 +50,7 @@ function useSeries(evaluation: Evaluation): PerformanceSeries {
   return useMemo(() => performanceSeries(evaluation.points), [evaluation]);
 }
 
-type Ready = Omit<PlotProps, 'evaluation'> & { data: PerformanceSeries };
+type Ready = Omit<PlotProps, 'evaluation'> & { data: PerformanceSeries; shade?: RequirementShade };
 
 /** What the delivered resolving power assumes, under its plot (and in the CLI help). */
 export const RESOLVING_POWER_CAPTION =
@@ -47,7 +60,7 @@ export const RESOLVING_POWER_CAPTION =
 export const EFFICIENCY_MODEL_CAPTION =
   'Scalar blaze function sinc²(π(|m| − λ_B cos K/λ)), the small-angle form of the groove-facet model (Schroeder & Hilliard 1980): an estimate for small blaze angles and λ/d below about 0.2 (Palmer & Loewen, Diffraction Grating Handbook, ch. 9).';
 
-const Dispersion = memo(function Dispersion({ data, ...rest }: Ready) {
+const Dispersion = memo(function Dispersion({ data, shade, ...rest }: Ready) {
   const series: PlotSeries = useMemo(
     () => ({
       label: 'Reciprocal dispersion',
@@ -61,6 +74,7 @@ const Dispersion = memo(function Dispersion({ data, ...rest }: Ready) {
     <LinePlot
       {...rest}
       testID="plot-dispersion"
+      {...failingProps(shade)}
       title="Reciprocal dispersion"
       wavelengthsNm={data.wavelengthsNm}
       series={series}
@@ -69,7 +83,7 @@ const Dispersion = memo(function Dispersion({ data, ...rest }: Ready) {
   );
 });
 
-const Bandpass = memo(function Bandpass({ data, ...rest }: Ready) {
+const Bandpass = memo(function Bandpass({ data, shade, ...rest }: Ready) {
   const [series, second] = useMemo(
     (): [PlotSeries, PlotSeries] => [
       {
@@ -96,6 +110,7 @@ const Bandpass = memo(function Bandpass({ data, ...rest }: Ready) {
     <LinePlot
       {...rest}
       testID="plot-bandpass"
+      {...failingProps(shade)}
       title="Bandpass and resolving power"
       wavelengthsNm={data.wavelengthsNm}
       series={series}
@@ -109,6 +124,7 @@ const Bandpass = memo(function Bandpass({ data, ...rest }: Ready) {
 const Efficiency = memo(function Efficiency({
   data,
   caution,
+  shade,
   ...rest
 }: Ready & { caution: ScalarBlazeCaution | null }) {
   const series: PlotSeries = useMemo(
@@ -128,6 +144,7 @@ const Efficiency = memo(function Efficiency({
     <LinePlot
       {...rest}
       testID="plot-efficiency"
+      {...failingProps(shade)}
       title="Blaze efficiency"
       wavelengthsNm={data.wavelengthsNm}
       series={series}
@@ -164,20 +181,25 @@ const Rotation = memo(function Rotation({ data, ...rest }: Ready) {
 });
 
 /** The four performance plots against wavelength: one per row, or two columns when wide. */
-export function PerformancePlots({ evaluation, width, columns, ...rest }: PerformancePlotsProps) {
+export function PerformancePlots({ evaluation, width, columns, design = null, ...rest }: PerformancePlotsProps) {
   const data = useSeries(evaluation);
+  const shades = useMemo(() => requirementShading(ascending(evaluation.points), design), [evaluation, design]);
   const caution = useMemo(() => scalarBlazeCaution(evaluation), [evaluation]);
   const cols = columns ?? (width >= TWO_COLUMN_MIN_WIDTH ? 2 : 1);
   const plotWidth = Math.floor(cols === 2 ? (width - GAP) / 2 : width);
   const shared = { ...rest, data, width: plotWidth };
   return (
     <View style={[styles.grid, { width }]} testID="performance-plots">
-      <Dispersion {...shared} />
-      <Bandpass {...shared} />
-      <Efficiency {...shared} caution={caution} />
+      <Dispersion {...shared} shade={shades?.dispersion} />
+      <Bandpass {...shared} shade={shades?.bandpass} />
+      <Efficiency {...shared} caution={caution} shade={shades?.efficiency} />
       <Rotation {...shared} />
     </View>
   );
+}
+
+function ascending(points: readonly WavelengthPoint[]): readonly WavelengthPoint[] {
+  return [...points].sort((a, b) => a.wavelengthNm - b.wavelengthNm);
 }
 
 const styles = StyleSheet.create({

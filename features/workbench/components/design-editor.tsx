@@ -11,6 +11,8 @@ import { markEditStart } from '../perf-marks';
 import { EditorSection } from './editor-section';
 import { ChoiceRow } from './choice-row';
 import { FieldInput } from './field-input';
+import { RequirementsEditor } from './requirements-editor';
+import { blankRequirementsText } from '../requirement-fields';
 
 /** One line per folded section; numbers as typed, but with a true minus and units that never wrap. */
 function sectionSummary(id: SectionId, v: FormValues): string {
@@ -89,15 +91,17 @@ export const DesignEditor = memo(function DesignEditor({
   highlightedPath,
   readOnly = false,
 }: Props) {
-  const [open, setOpen] = useState<Record<SectionId, boolean>>({
+  const [open, setOpen] = useState<Record<SectionId | 'requirements', boolean>>({
     grating: true,
     layout: false,
     slits: true,
     range: true,
     source: false,
     detector: false,
+    requirements: false,
   });
-  const highlightedSection = highlightedPath?.split('.')[0] as SectionId | undefined;
+  const highlightedSection = highlightedPath?.split('.')[0] as SectionId | 'requirements' | undefined;
+  const requirementsOpen = open.requirements || highlightedSection === 'requirements';
   const oneMirror = values.layout.kind === 'ebert-fastie';
   return (
     <View style={styles.root} testID="design-editor">
@@ -138,6 +142,15 @@ export const DesignEditor = memo(function DesignEditor({
           </EditorSection>
         );
       })}
+      <RequirementsEditor
+        control={control}
+        values={values.requirements ?? blankRequirementsText()}
+        collapsible={collapsible}
+        open={requirementsOpen}
+        onToggle={() => setOpen((o) => ({ ...o, requirements: !requirementsOpen }))}
+        highlightedPath={highlightedPath}
+        readOnly={readOnly}
+      />
     </View>
   );
 });

@@ -3,6 +3,7 @@ import {
   useDeferredValue,
   useEffect,
   useLayoutEffect,
+  useMemo,
   useRef,
   useState,
   type ReactNode,
@@ -11,10 +12,12 @@ import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-nati
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 // The file, not the notebooks index: that index reaches back into this feature.
 import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
+import { CandidateSearchPanel } from '@/features/candidates';
 import { PerformancePlots } from '@/features/plots';
 import { CautionsCard } from '@/features/safety';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
 import { Card, colors, space, useLayout } from '@/features/ui';
+import type { Design } from '@/shared/design';
 import type { Draft } from '../draft';
 import { useFieldMarks } from '../field-marks';
 import type { FormResult, FormValues } from '../form-model';
@@ -25,6 +28,7 @@ import { BlockedNote } from './blocked-note';
 import { DesignEditor } from './design-editor';
 import { PresetPicker } from './preset-picker';
 import { RangeTable } from './range-table';
+import { RequirementsCard, type SolveOffer } from './requirements-card';
 import { ReadoutCard } from './readout-card';
 import { SummaryBar } from './summary-bar';
 import { WarningList } from './warning-list';
@@ -54,6 +58,8 @@ export type WorkbenchProps = {
   showPresets?: boolean;
   /** A pane beside the editor on tablet and wide layouts (the review panel); phones use a sheet instead. */
   aside?: ReactNode;
+  /** Saves a search candidate as a new version of the open notebook; absent where there is none. */
+  onSaveCandidate?: (design: Design, message: string) => Promise<void>;
 };
 
 /** Edit a design and see every figure, the sketch and the plots follow. */
@@ -65,6 +71,7 @@ export function Workbench({
   readOnly = false,
   showPresets = false,
   aside = null,
+  onSaveCandidate,
 }: WorkbenchProps) {
   const bench = useWorkbench(initial, onDraftChange);
   const layout = useLayout();
@@ -107,6 +114,20 @@ export function Workbench({
     const timer = setTimeout(() => showField(askedField.path), 0);
     return () => clearTimeout(timer);
   }, [askedField, showField]);
+
+  // One undo for the last solved value or opened candidate: the text they replaced.
+  const [valueUndo, setValueUndo] = useState<{ text: string; previous: FormValues } | null>(null);
+  const applyOffer = (offer: SolveOffer) => {
+    const previous = bench.applyChanges(offer.changes);
+    setValueUndo({ text: `Applied: ${offer.text}.`, previous });
+  };
+  const openCandidate = (design: Design) => {
+    const previous = bench.openDesign(design);
+    setValueUndo({ text: 'Opened a candidate design in the editor.', previous });
+  };
+  const undoValue = valueUndo
+    ? { text: valueUndo.text, onUndo: () => (bench.restore(valueUndo.previous), setValueUndo(null)) }
+    : null;
 
   const pickPreset = (preset: Preset) => {
     const previous = bench.applyPreset(preset);
@@ -175,6 +196,7 @@ export function Workbench({
             width={Math.max(240, graphicsWidth - 2 * space.lg - 2)}
             selectedNm={selectedNm}
             onSelectWavelength={onSelectWavelength}
+            design={bench.requirementsSet ? bench.design : null}
           />
         </View>
       </Card>
@@ -196,7 +218,40 @@ export function Workbench({
       dimmed={dimmed}
     />
   );
-  const warnings = <WarningList warnings={deferredEvaluation.warnings} onShowField={showField} />;
+  const deferredReport = useDeferredValue(bench.requirementsReport);
+  const failingRequirements = useMemo(
+    () => deferredReport.checks.filter((check) => check.status === 'fail'),
+    [deferredReport],
+  );
+  const warnings = (
+    <WarningList
+      warnings={deferredEvaluation.warnings}
+      failingRequirements={failingRequirements}
+      onShowField={showField}
+    />
+  );
+  const requirements = (
+    <RequirementsCard
+      report={deferredReport}
+      hasAny={bench.requirementsSet}
+      offers={bench.solveOffers}
+      onApplyOffer={applyOffer}
+      undo={undoValue}
+      onShowField={showField}
+      readOnly={readOnly}
+      dimmed={dimmed}
+    />
+  );
+  const search = bench.requirementsSet ? (
+    <Card title="Find designs that meet the requirements" testID="search-card">
+      <CandidateSearchPanel
+        design={bench.design}
+        onOpen={openCandidate}
+        {...(onSaveCandidate ? { onSave: onSaveCandidate } : {})}
+        readOnly={readOnly}
+      />
+    </Card>
+  ) : null;
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   // Last in every layout: what to take care of at the bench, for this design's range and source.
   const cautions = <CautionsCard design={bench.design} />;
@@ -211,6 +266,8 @@ export function Workbench({
           {editor}
           {blocked}
           {warnings}
+          {requirements}
+          {search}
           {readout}
           {graphics}
           {table}
@@ -240,6 +297,8 @@ export function Workbench({
           {blocked}
           {graphics}
           {warnings}
+          {requirements}
+          {search}
           {readout}
           {table}
           {cautions}
@@ -260,6 +319,8 @@ export function Workbench({
       </ScrollView>
       <ScrollView style={styles.resultsPane} contentContainerStyle={[styles.column, pad]}>
         {warnings}
+        {requirements}
+        {search}
         {readout}
         {table}
         {cautions}

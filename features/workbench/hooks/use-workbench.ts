@@ -8,6 +8,7 @@ import {
   type Evaluation,
   type WavelengthPoint,
 } from '@/features/solver';
+import { checkRequirements, hasRequirements, solveForValues, type DesignChange } from '@/features/requirements';
 import type { Design, LayoutKind } from '@/shared/design';
 import { formatMachineNumber } from '@/shared/format';
 import type { FieldErrors } from '@/shared/validation';
@@ -127,6 +128,14 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     // eslint-disable-next-line react-hooks/exhaustive-deps -- unitsReady changes how the same text reads
   }, [selectedText, shown, unitsReady]);
 
+  // Checked on the design on screen (the last valid one while the text is refused).
+  const requirementsSet = useMemo(() => hasRequirements(shown), [shown]);
+  const requirementsReport = useMemo(() => checkRequirements(shown), [shown]);
+  const solveOffers = useMemo(
+    () => (requirementsSet ? solveForValues(shown, requirementsReport) : []),
+    [shown, requirementsSet, requirementsReport],
+  );
+
   // The plots sample the range; the read-out's own wavelength joins their samples.
   const evaluation = useMemo(() => withReadoutPoint(sweep, selected.ok ? selected.point : null), [sweep, selected]);
 
@@ -162,6 +171,32 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     return previous;
   }
 
+  /** Loads a whole design into the editor (a search candidate); returns the text it replaced, for an undo. */
+  function openDesign(design: Design) {
+    const previous = form.getValues();
+    form.reset(designToForm(design));
+    deviationMemory.current = rememberDeviation(
+      deviationMemory.current,
+      design.layout.kind,
+      String(design.layout.deviationAngleDeg),
+    );
+    setPresetId(null);
+    setSelectedText(String((design.range.startNm + design.range.endNm) / 2));
+    return previous;
+  }
+
+  /** Sets fields to solved values, checked like typing; returns the text they replaced, for an undo. */
+  function applyChanges(changes: readonly DesignChange[]) {
+    const previous = form.getValues();
+    for (const change of changes) {
+      form.setValue(change.path as Parameters<typeof form.setValue>[0], formatMachineNumber(change.value), {
+        shouldValidate: true,
+        shouldDirty: true,
+      });
+    }
+    return previous;
+  }
+
   function restore(previous: FormValues) {
     form.reset(previous);
     setPresetId(null);
@@ -184,7 +219,12 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     switchMount,
     presetId,
     applyPreset,
+    openDesign,
+    applyChanges,
     restore,
+    requirementsSet,
+    requirementsReport,
+    solveOffers,
   };
 }
 
