@@ -8,3 +8,5 @@ export * from './check';
 export * from './footprint';
 export * from './design-change';
 export * from './solve-for';
+export * from './sensitivity';
+export * from './tolerance';
