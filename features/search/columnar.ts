@@ -319,7 +319,8 @@ export function evaluateCandidates(
       scratch.reciprocalDispersionNmPerMm[i] = reciprocalDispersionNmPerMm(order, spacingNm, cosB, focalMm);
       scratch.magnification[i] = anamorphicMagnification(cosA, cosB, focalMm, focalMm);
     }
-    const rangeMargin = underMax(plan.longestNeededNm, reachNm);
+    // How far the reach clears (or falls short of) the longest wavelength needed, as a share of it.
+    const rangeMargin = overMin(reachNm, plan.longestNeededNm);
     if (!reachable) {
       mark(columns, c, 'range', Math.min(-Number.EPSILON, rangeMargin));
       continue;

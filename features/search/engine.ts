@@ -225,7 +225,7 @@ function finishSearch(state: SearchState, done: number): SearchAnswer {
   };
 }
 
-/** The candidates whose worst margin is least negative, with each failed requirement's margin. */
+/** The candidates whose worst margin is least negative, with each failed requirement's margin (as the screen or the confirming check found it). */
 function nearestMisses(
   state: SearchState,
   done: number,
@@ -241,7 +241,10 @@ function nearestMisses(
     worst[i] = misses ? Math.min(...Object.values(misses)) : (smallestMargin(columns, i, keys) ?? Number.NEGATIVE_INFINITY);
     order.push(i);
   }
-  order.sort((a, b) => (worst[b] as number) - (worst[a] as number) || a - b);
+  // A candidate that cannot reach its range was judged on nothing else, so its one miss says
+  // little: those come after every candidate that was judged in full.
+  const unjudged = (i: number) => (failsOn(columns, i, 'range') ? 1 : 0);
+  order.sort((a, b) => unjudged(a) - unjudged(b) || (worst[b] as number) - (worst[a] as number) || a - b);
   return order.slice(0, NEAREST_COUNT).map((index) => {
     const screened: Record<string, number> = {};
     for (const key of keys) {

@@ -22,11 +22,12 @@ export function mostExcluding(excludedBy: Readonly<Record<string, number>>): { k
   return best;
 }
 
-/** "24 % short": a miss as a share of its limit. */
-export function missWords(margin: number): string {
+/** "24 % over" (a maximum) or "24 % short" (a minimum, the range's reach, a yes/no requirement): a miss as a share of its limit. */
+export function missWords(key: string, margin: number): string {
   const abs = Math.abs(margin);
   const digits = abs >= 0.1 ? 0 : abs >= 0.01 ? 1 : 2;
-  return `${formatPercent(abs, { maximumFractionDigits: digits })} ${margin < 0 ? 'short' : 'to spare'}`;
+  const way = margin >= 0 ? 'to spare' : key.startsWith('max') ? 'over' : 'short';
+  return `${formatPercent(abs, { maximumFractionDigits: digits })} ${way}`;
 }
 
 /**
@@ -45,7 +46,7 @@ export function explainAnswer(answer: SearchAnswer): string {
   const nearest = answer.nearest[0];
   const misses = nearest
     ? Object.entries(nearest.misses)
-        .map(([key, margin]) => `${exclusionLabel(key).toLowerCase()} ${missWords(margin)}`)
+        .map(([key, margin]) => `${exclusionLabel(key).toLowerCase()} ${missWords(key, margin)}`)
         .join(', ')
     : '';
   return `No candidate meets every requirement.${culprit}${misses ? ` The nearest misses: ${misses}.` : ''}`;
