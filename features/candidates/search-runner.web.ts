@@ -8,12 +8,25 @@ export type { SearchHandle, SearchRunner } from './main-thread-runner';
 
 type Started = { worker: Worker; remote: Remote<SearchService>; failed: Promise<void> };
 
+/** Metro's `require`, which can name a module's worker bundle (typed here: Expo ships no declaration). */
+type MetroRequire = { unstable_resolveWorker(path: string): string };
+
 /**
- * The search in a Web Worker (search.worker.ts), called through comlink. Metro rewrites
- * `new Worker(new URL('./search.worker', import.meta.url))` into a sealed chunk of its own (the
- * URL must stay a string literal for it to see it). When the worker cannot start or its script
- * fails, the search runs on the main thread in batches instead, which is slower to the eye but
- * gives the same answer.
+ * The URL of search.worker.ts's own bundle. Metro seals it as a chunk with everything it imports
+ * and runs it on load. Not `new Worker(new URL('./search.worker', import.meta.url))`: with the
+ * optimised graph the web export uses (EXPO_UNSTABLE_METRO_OPTIMIZE_GRAPH, scripts/web-build.ts)
+ * Expo 56 rewrites that form's `new Worker` in its first pass and no longer sees it in the second,
+ * so no chunk is written and the URL stays a bare './search.worker'. Metro rewrites this call in
+ * both passes. The argument must stay a string literal for Metro to see it.
+ */
+function workerUrl(): string {
+  return (require as unknown as MetroRequire).unstable_resolveWorker('./search.worker');
+}
+
+/**
+ * The search in a Web Worker (search.worker.ts), called through comlink. When the worker cannot
+ * start or its script fails, the search runs on the main thread in batches instead, which keeps
+ * the page a little less smooth but gives the same answer.
  */
 export function createSearchRunner(): SearchRunner {
   let started: Started | null = null;
@@ -23,7 +36,7 @@ export function createSearchRunner(): SearchRunner {
   function startWorker(): Started | null {
     if (started || broken) return started;
     try {
-      const worker = new Worker(new URL('./search.worker', import.meta.url));
+      const worker = new Worker(workerUrl());
       const failed = new Promise<void>((resolve) => worker.addEventListener('error', () => resolve(), { once: true }));
       started = { worker, remote: wrap<SearchService>(worker), failed };
     } catch {

@@ -1,6 +1,7 @@
 import { useLocalSearchParams, useRouter, type Href } from 'expo-router';
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode, type Ref } from 'react';
 import { Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
+import type { Design } from '@/shared/design';
 import { changedPaths } from '@/shared/design-diff';
 import { versionMessageSchema, type Notebook, type Version } from '@/shared/notebooks';
 import { pinLabel, pinnedResults, type Pin, type PinnedResult } from '@/shared/reviews';
@@ -225,6 +226,22 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
     }
   };
 
+  // A candidate from the search becomes the next version whole; the edits it came from are
+  // replaced by it (typed notes and message stay), so the new version opens as saved.
+  const saveCandidate = async (candidate: Design, candidateMessage: string) => {
+    try {
+      const saved = await save.mutateAsync({ baseVersion: latest.number, params: candidate, notes: '', message: candidateMessage });
+      const text = textRef.current;
+      if (text.notes === '' && text.message === '') clearEdits(key);
+      else saveEdits(key, { ...freshEdits(draftFromDesign(saved.version.params), saved.version.number), ...text });
+      if (version.number !== saved.version.number) router.replace(`/notebooks/${design.id}` as Href);
+    } catch (error) {
+      if (error instanceof VersionConflict) throw new Error(`v${error.latest.number} was saved meanwhile; open it and search again.`);
+      if (error instanceof ApiError) throw new Error(error.message);
+      throw new Error('the version could not be saved; try again.');
+    }
+  };
+
   const reapply =
     shownConflict && baseVersion.data && mine
       ? () => {
@@ -408,6 +425,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
         onResultChange={setResult}
         header={header}
         readOnly={!editable}
+        onSaveCandidate={editable ? saveCandidate : undefined}
         aside={sidePanel && open.has('review') ? <ReviewSidePanel {...reviewProps} /> : null}
       />
     </FieldMarksProvider>
