@@ -43,6 +43,8 @@ interface PointRule {
   words: (valueText: string) => string;
   unit: string;
   fixPath: string;
+  /** Why the design cannot be judged on this at all (no detector…), or null when it can. */
+  missing?: (design: Design, r: Requirements) => string | null;
 }
 
 const withUnit = (unit: string) => (unit ? `\u00A0${unit}` : '');
@@ -77,6 +79,10 @@ const POINT_RULES: readonly PointRule[] = [
     words: (v) => `blaze efficiency ${v}`,
     unit: '',
     fixPath: 'grating.blazeWavelengthNm',
+    missing: (design) =>
+      design.grating.blazeWavelengthNm === undefined
+        ? 'no blaze wavelength: give the grating’s blaze to check its efficiency'
+        : null,
   },
   {
     id: 'minPixelsPerBandpass',
@@ -87,6 +93,7 @@ const POINT_RULES: readonly PointRule[] = [
     words: (v) => `${v} pixels per bandpass`,
     unit: '',
     fixPath: 'detector.pixelPitchUm',
+    missing: (design) => (design.detector ? null : 'no detector: add one to check pixels per bandpass'),
   },
   {
     id: 'maxReciprocalDispersionNmPerMm',
@@ -110,6 +117,8 @@ const POINT_RULES: readonly PointRule[] = [
     words: (v) => `wavelength error ${v}`,
     unit: 'nm',
     fixPath: 'grating.grooveDensityPerMm',
+    missing: (_design, r) =>
+      r.driveStepArcsec === undefined ? 'no drive step: give driveStepArcsec to check the wavelength error' : null,
   },
 ];
 
@@ -161,7 +170,8 @@ function ruleFails(rule: PointRule, limit: number, point: WavelengthPoint, desig
 /**
  * The requirements `point` breaks, for shading a plot with its own sweep. Requirements limited to
  * `atWavelengthsNm` are judged only at those wavelengths; an unreachable point fails every
- * wavelength requirement that applies there; `orderOverlap: 'forbidden'` fails where another
+ * wavelength requirement that applies there (and that the design can be judged on: pixels per
+ * bandpass needs a detector, blaze efficiency a blaze wavelength); `orderOverlap: 'forbidden'` fails where another
  * order lands.
  */
 export function requirementFailsAt(
@@ -173,6 +183,7 @@ export function requirementFailsAt(
   for (const rule of POINT_RULES) {
     const limit = rule.limit(requirements);
     if (limit === undefined || !appliesAt(rule, requirements, point.wavelengthNm)) continue;
+    if (rule.missing?.(design, requirements)) continue;
     if (ruleFails(rule, limit, point, design, requirements)) failing.add(rule.id);
   }
   if (requirements.orderOverlap === 'forbidden' && point.overlapCount > 0) failing.add('orderOverlap');
@@ -265,21 +276,8 @@ function pointCheck(
   r: Requirements,
 ): RequirementCheck {
   const text = limitText(rule.words, rule.kind, limit, rule.unit);
-  if (rule.id === 'minPixelsPerBandpass' && !design.detector) {
-    return unknownCheck(rule.id, text, limit, 'no detector: add one to check pixels per bandpass', 'detector.pixelPitchUm');
-  }
-  if (rule.id === 'maxWavelengthErrorNm' && r.driveStepArcsec === undefined) {
-    return unknownCheck(rule.id, text, limit, 'no drive step: give driveStepArcsec to check the wavelength error', null);
-  }
-  if (rule.id === 'minBlazeEfficiency' && design.grating.blazeWavelengthNm === undefined) {
-    return unknownCheck(
-      rule.id,
-      text,
-      limit,
-      'no blaze wavelength: give the grating’s blaze to check its efficiency',
-      rule.fixPath,
-    );
-  }
+  const missing = rule.missing?.(design, r);
+  if (missing) return unknownCheck(rule.id, text, limit, missing, rule.fixPath);
   const spans = failingSpans(points, (p) => ruleFails(rule, limit, p, design, r));
   const unreachable = points.filter((p) => !p.reachable);
   let worst: number | null = null;

@@ -13,11 +13,14 @@ import {
   GRAZING_MARGIN_RAD,
   UM_PER_MM,
   evaluateDesign,
+  evaluatePoint,
   grooveSpacingNm,
   halfDeviationRad,
+  prepareDesign,
   solveGrating,
+  sweepWavelengthsNm,
 } from '../solver';
-import { checkRequirements } from './check';
+import { REQUIREMENT_POINTS, checkRequirements, requirementFailsAt } from './check';
 import { applyDesignChanges, type DesignChange } from './design-change';
 import type { RequirementsReport } from './types';
 
@@ -35,7 +38,8 @@ export interface SolvedValue {
 const MIN_SLIT_UM = 0.001;
 const MAX_SLIT_UM = 1_000_000;
 const MAX_PIXELS = 10_000_000;
-/** Bisection steps on the slit scale: 2⁻⁶⁰ of the bracket, far below any figure shown. */
+/** Bisection on the slit scale stops within this fraction: far below the three figures offered. */
+const SCALE_TOLERANCE = 1e-9;
 const BISECTION_STEPS = 60;
 /** A camera angle within this of the coma-free one is balanced already, degrees. */
 const COMA_TOLERANCE_DEG = 0.01;
@@ -93,7 +97,16 @@ function slitChanges(design: Design, scale: number, round: boolean): DesignChang
  * that fails. Both figures it serves (bandpass, resolving power) only worsen as the slits open.
  */
 function largestSlitScale(design: Design, requirement: RequirementId, requirements: Requirements): number | null {
-  const passes = (scale: number) => passesOnly(applyDesignChanges(design, slitChanges(design, scale, false)), requirement, requirements);
+  // The same per-point judge the check uses, without its summary and warnings: this runs ~80 times.
+  const wavelengthsNm =
+    requirements.atWavelengthsNm ?? sweepWavelengthsNm(design.range.startNm, design.range.endNm, REQUIREMENT_POINTS);
+  const passes = (scale: number) => {
+    const changed = applyDesignChanges(design, slitChanges(design, scale, false));
+    const plan = prepareDesign(changed);
+    return wavelengthsNm.every(
+      (nm) => !requirementFailsAt(requirements, evaluatePoint(plan, nm), changed).includes(requirement),
+    );
+  };
   const minScale = MIN_SLIT_UM / Math.min(design.slits.entranceWidthUm, design.slits.exitWidthUm);
   const maxScale = MAX_SLIT_UM / Math.max(design.slits.entranceWidthUm, design.slits.exitWidthUm);
   let low = 1;
@@ -111,7 +124,7 @@ function largestSlitScale(design: Design, requirement: RequirementId, requiremen
       low = Math.max(minScale, low / 2);
     }
   }
-  for (let i = 0; i < BISECTION_STEPS && high - low > 1e-12 * high; i++) {
+  for (let i = 0; i < BISECTION_STEPS && high - low > SCALE_TOLERANCE * high; i++) {
     const mid = (low + high) / 2;
     if (passes(mid)) low = mid;
     else high = mid;

@@ -236,6 +236,15 @@ describe('the report', () => {
     expect(requirementFailsAt(design.requirements!, points[0]!, design)).toEqual(['maxReciprocalDispersionNmPerMm']);
   });
 
+  it('requirementFailsAt leaves out what the design cannot be judged on, even where unreachable', () => {
+    const requirements: Requirements = { minPixelsPerBandpass: 2, maxBandpassNm: 10 };
+    const design = littrowDesign(requirements);
+    delete design.detector;
+    // 1700 nm is past the Littrow reach 2d/m = 1666.7 nm.
+    const [far] = evaluateDesign(design, { wavelengthsNm: [1700] }).points;
+    expect(requirementFailsAt(requirements, far!, design)).toEqual(['maxBandpassNm']);
+  });
+
   it('requirementFailsAt judges listed requirements only at the listed wavelengths', () => {
     const requirements: Requirements = { maxReciprocalDispersionNmPerMm: 1.6, atWavelengthsNm: [500] };
     const design = littrowDesign(requirements);
