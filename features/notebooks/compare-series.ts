@@ -1,3 +1,5 @@
+// The pure module, not the plots' index: that one brings the React components along.
+import { requirementShading, type RequirementShade, type ShadedPlot } from '@/features/plots/requirement-shading';
 import { evaluateDesign, sweepWavelengthsNm } from '@/features/solver';
 import type { Design } from '@/shared/design';
 
@@ -9,6 +11,11 @@ export type ComparedSeries = {
   reciprocalDispersionNmPerMm: ComparedMetric;
   resolvingPower: ComparedMetric;
   blazeEfficiency: ComparedMetric;
+  /**
+   * Where the after version (b) misses its own requirements on this axis, per plot (as the
+   * workbench hatches it); null when it states none.
+   */
+  failingB: Record<ShadedPlot, RequirementShade> | null;
 };
 
 function extent(...lists: Values[]): [number, number] | null {
@@ -42,8 +49,11 @@ export function compareSeries(a: Design, b: Design, points = 121): ComparedSerie
     const vb = evalB.map((p, i) => (inside(b, wavelengthsNm[i] as number) ? p[key] : null));
     return { a: va, b: vb, domain: extent(va, vb) };
   };
+  // Only b's own range is judged: outside it the design is not asked to meet anything.
+  const pointsB = evalB.filter((_, i) => inside(b, wavelengthsNm[i] as number));
   return {
     wavelengthsNm,
+    failingB: requirementShading(pointsB, b),
     bandpassNm: pick('bandpassNm'),
     reciprocalDispersionNmPerMm: pick('reciprocalDispersionNmPerMm'),
     resolvingPower: pick('resolvingPower'),

@@ -232,16 +232,19 @@ function series(
 
 function ComparePlots({ data, width }: { data: CompareResponse; width: number }) {
   const compared = useMemo(() => compareSeries(data.a.params, data.b.params), [data]);
+  const failing = compared.failingB;
   const plots = [
-    { id: 'bandpass', title: 'Bandpass', unit: 'nm', metric: compared.bandpassNm },
+    { id: 'bandpass', title: 'Bandpass', unit: 'nm', metric: compared.bandpassNm, shade: failing?.bandpass },
     {
       id: 'dispersion',
       title: 'Reciprocal dispersion',
       unit: 'nm/mm',
       metric: compared.reciprocalDispersionNmPerMm,
+      shade: failing?.dispersion,
     },
-    { id: 'power', title: 'Resolving power R', unit: '', metric: compared.resolvingPower },
-    { id: 'efficiency', title: 'Blaze efficiency', unit: '', metric: compared.blazeEfficiency },
+    // The bandpass plot's shading covers resolving power too (the two come from one slit width).
+    { id: 'power', title: 'Resolving power R', unit: '', metric: compared.resolvingPower, shade: failing?.bandpass },
+    { id: 'efficiency', title: 'Blaze efficiency', unit: '', metric: compared.blazeEfficiency, shade: failing?.efficiency },
   ];
   const columns = width >= 700 ? 2 : 1;
   const plotWidth = columns === 2 ? Math.floor((width - space.lg) / 2) : width;
@@ -263,6 +266,13 @@ function ComparePlots({ data, width }: { data: CompareResponse; width: number })
               axisTitle: plot.unit || plot.title,
             }}
             emptyMessage="Neither version reaches these wavelengths"
+            {...(plot.shade && plot.shade.intervals.length > 0
+              ? {
+                  failing: plot.shade.intervals,
+                  failingLabel: `Hatched: v${data.b.number} misses a requirement here`,
+                  failingSummary: `v${data.b.number}: ${plot.shade.summary}`,
+                }
+              : {})}
           />
         </View>
       ))}

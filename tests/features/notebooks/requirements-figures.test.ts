@@ -12,6 +12,7 @@ import {
   requirementsMetLabel,
   summaryFigures,
 } from '@/features/notebooks/format';
+import { compareSeries } from '@/features/notebooks/compare-series';
 
 /**
  * Requirements as the history row and the compare screen word them: "4 of 5 met", a label that
@@ -150,5 +151,27 @@ describe('requirements in the compare screen’s parameter table', () => {
     expect(formatStoredValue('requirements.minResolvingPower', 2000)).toBe('2000');
     expect(formatStoredValue('requirements.oneShotCoverage', true)).toBe('yes');
     expect(formatStoredValue('slits.exitWidthUm', 100)).toBe(`100${nbsp}µm`);
+  });
+});
+
+describe('the compare plots’ hatching', () => {
+  it('marks where the after version misses its bandpass limit, from the grating equation', () => {
+    // 1200 grooves/mm, 30° deviation, 300 mm focal lengths, 100 µm exit slit (Palmer & Loewen,
+    // ch. 2 and 8): bandpass = 0.1 mm × d cos β / f = 0.2778 nm × cos β, with β = φ − 15° and
+    // sin φ = λ / (2d cos 15°). It exceeds 0.27 nm while cos β > 0.972, |β| < 13.6°, φ < 28.6°:
+    // λ < 2 × 833.33 × 0.9659 × 0.4787 ≈ 771 nm. The entrance image (100 µm × cos α / cos β ≤ 100 µm
+    // there) never sets it. The sweep steps 5 nm and a band reaches half a step past its last
+    // failing sample, so the hatching ends within a step of 771 nm.
+    const after: Design = { ...structuredClone(exampleDesign), requirements: { maxBandpassNm: 0.27 } };
+    const compared = compareSeries(exampleDesign, after);
+    const intervals = compared.failingB!.bandpass.intervals;
+    expect(intervals).toHaveLength(1);
+    expect(intervals[0]!.startNm).toBeCloseTo(300, 6);
+    expect(intervals[0]!.endNm).toBeGreaterThan(766);
+    expect(intervals[0]!.endNm).toBeLessThan(776);
+    expect(compared.failingB!.bandpass.summary).toMatch(/^bandpass over 0.27 nm between 300 and 7\d\d nm$/);
+    expect(compared.failingB!.efficiency.intervals).toEqual([]);
+    // The before version's requirements are not the after version's: nothing to hatch.
+    expect(compareSeries(after, exampleDesign).failingB).toBeNull();
   });
 });

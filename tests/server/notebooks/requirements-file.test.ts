@@ -73,7 +73,7 @@ const newFile: NotebookFileInput = {
   versions: [oldFile.versions[0]!, { ...oldFile.versions[1]!, message: 'Requirements stated', params: withRequirements }],
 };
 
-async function importFile(file: unknown) {
+async function importFile(file: object) {
   const res = await fx.owner.agent.post(`/api/teams/${fx.teamId}/designs/import`).send(file).expect(201);
   return notebookWithVersionResponseSchema.parse(res.body).design;
 }
