@@ -16,6 +16,7 @@ import { createNotebooks } from './notebooks/index';
 import { createReviews } from './reviews/index';
 import { createSheets } from './sheets/index';
 import { openApiRoute } from './openapi';
+import { searchRoute } from './search/router';
 import { solveRoute } from './solve/router';
 import { createTeams } from './teams/index';
 
@@ -133,6 +134,7 @@ export function createApp(deps: AppDeps) {
           openapi: openApiRoute(deps.version),
           outbox: deps.nodeEnv === 'production' ? null : outboxRoute(createOutboxRepository(deps.database.db, deps.clock), { trustedOrigin: deps.trustedOrigin }),
         },
+        search: { run: searchRoute(deps.rateLimits) },
       },
       { signedIn },
     ),

@@ -18,6 +18,8 @@ export type RateLimits = {
   solveWindowMs: number;
   /** Design sheets (PDFs) per IP per `solveWindowMs`, all three routes together. */
   sheetsPerIp: number;
+  /** `POST /api/search` calls per IP per `solveWindowMs`. */
+  searchPerIp: number;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -37,6 +39,11 @@ export const defaultRateLimits: RateLimits = {
   // A sheet takes ~0.13 s of the thread (`npm run bench:sheet`, up to ~0.6 s for the first of a
   // process): 60 a minute holds it for well under half of each minute, and nobody reads one a second.
   sheetsPerIp: 60,
+  // The largest search the cap allows (about 40,000 candidates once blazes past 2d are left out,
+  // every requirement, footprint included) holds the thread for about 0.35 s (`npm run
+  // bench:search`; over a second the first time in a process): 20 a minute keeps one address to a
+  // small share of each minute, and a script refining requirements rarely searches more often.
+  searchPerIp: 20,
 };
 
 type KeyBy = 'ip' | 'email' | 'email-and-ip';
@@ -115,5 +122,16 @@ export function createSheetRateLimiter(limits: Pick<RateLimits, 'sheetsPerIp' | 
     'ip',
     false,
     'Too many design sheets from this address. Wait a minute and try again.',
+  );
+}
+
+/** `POST /api/search` per IP: its own counters, apart from solving and signing in. */
+export function createSearchRateLimiter(limits: Pick<RateLimits, 'searchPerIp' | 'solveWindowMs'>): RequestHandler {
+  return limiter(
+    limits.searchPerIp,
+    limits.solveWindowMs,
+    'ip',
+    false,
+    'Too many searches from this address. Wait a minute and try again.',
   );
 }

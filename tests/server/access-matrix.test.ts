@@ -104,6 +104,15 @@ const matrix: Record<string, Row> = {
   'platform.solve': { prepare: async () => ({ body: { design: exampleDesign, at: [500] } }) },
   'platform.outbox': {},
   'platform.openapi': {},
+  'search.run': {
+    prepare: async () => ({
+      body: {
+        range: { startNm: 500, endNm: 600 },
+        requirements: { maxBandpassNm: 1 },
+        search: { grooveDensitiesPerMm: [1200], blazeWavelengthsNm: [500], maxOrder: 1, deviationAnglesDeg: [20], focalLengthsMm: [300] },
+      },
+    }),
+  },
 
   'accounts.session': {},
   'accounts.signUp': {

@@ -1,0 +1,100 @@
+/**
+ * Search for candidate designs from the command line, for lab scripts:
+ *
+ *   npm run --silent search -- <input.json | ->
+ *
+ * The input is the body of POST /api/search (`range`, optional `source` and `detector`,
+ * `requirements`, optional `search` lists and weights). Prints the answer JSON on stdout; each
+ * candidate's `design` solves with `npm run --silent solve` unchanged. Exit 2 with one
+ * `path: message` line per bad field on stderr for bad flags, unreadable or invalid JSON, input
+ * the schema rejects, or a search that cannot run (too many candidates, a value that makes no
+ * design).
+ */
+
+import { readFileSync, realpathSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { runSearch, searchRequestIssues } from '../features/search/index';
+import { SEARCH_LIMITS, searchRequestSchema, type SearchAnswer } from '../shared/search';
+import { fieldErrors, formatFieldErrors } from '../shared/validation';
+import { runCommand } from './run-command';
+import { UsageError } from './solve';
+
+// The same limits as POST /api/search (one schema and one check for both).
+export const USAGE = `usage: npm run --silent search -- <input.json | ->
+The input is POST /api/search's body: range, optional source and detector, requirements, and
+optional search lists (grooveDensitiesPerMm, blazeWavelengthsNm, maxOrder, deviationAnglesDeg,
+focalLengthsMm, gratingSizeMm, top, weights). At most ${SEARCH_LIMITS.maxCandidates} candidates (the product of the
+lists' lengths), ${SEARCH_LIMITS.maxListLength} values a list, ${SEARCH_LIMITS.maxTop} returned.`;
+
+export interface SearchArgs {
+  /** A file path, or `-` for stdin. */
+  input: string;
+}
+
+const options = { help: { type: 'boolean', short: 'h' } } as const;
+
+/** Reads the command line (without `node` and the script); throws a `UsageError` naming what is wrong. */
+export function parseSearchArgs(argv: readonly string[]): SearchArgs {
+  const { values, positionals, tokens } = parseArgs({ args: [...argv], options, allowPositionals: true, strict: false, tokens: true });
+  if (values.help === true) throw new UsageError('');
+  for (const token of tokens) {
+    if (token.kind === 'option' && !Object.hasOwn(options, token.name)) throw new UsageError(`unknown option ${token.rawName}`);
+  }
+  const [input, extra] = positionals;
+  if (extra !== undefined) throw new UsageError(`unexpected argument ${extra}`);
+  if (input === undefined) throw new UsageError('missing the input file (or - for stdin)');
+  return { input };
+}
+
+export type SearchOutcome = { ok: true; answer: SearchAnswer } | { ok: false; message: string };
+
+/**
+ * Parses the input JSON read from `args.input`, checks it with the HTTP API's schema and the
+ * search's own limits, and searches. A refusal is the text printed before exiting 2.
+ */
+export function searchInput(text: string, args: SearchArgs): SearchOutcome {
+  const source = args.input === '-' ? 'stdin' : args.input;
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (error) {
+    return { ok: false, message: `${source} is not valid JSON: ${(error as Error).message}` };
+  }
+  const request = searchRequestSchema.safeParse(json);
+  if (!request.success) return { ok: false, message: formatFieldErrors(fieldErrors(request.error)) };
+  const issues = searchRequestIssues(request.data);
+  if (Object.keys(issues).length > 0) return { ok: false, message: formatFieldErrors(issues) };
+  return { ok: true, answer: runSearch(request.data) };
+}
+
+/** The command: 0 with the answer on stdout, 2 with the reason on stderr. */
+export async function main(argv: readonly string[] = process.argv.slice(2)): Promise<number> {
+  let args: SearchArgs;
+  try {
+    args = parseSearchArgs(argv);
+  } catch (error) {
+    if (!(error instanceof UsageError)) throw error;
+    process.stderr.write(`${error.message ? `${error.message}\n` : ''}${USAGE}\n`);
+    return 2;
+  }
+  let text: string;
+  try {
+    text = readFileSync(args.input === '-' ? 0 : args.input, 'utf8');
+  } catch (error) {
+    process.stderr.write(`cannot read ${args.input === '-' ? 'stdin' : args.input}: ${(error as Error).message}\n`);
+    return 2;
+  }
+  const outcome = searchInput(text, args);
+  if (!outcome.ok) {
+    process.stderr.write(`${outcome.message}\n`);
+    return 2;
+  }
+  process.stdout.write(`${JSON.stringify(outcome.answer, null, 2)}\n`);
+  return 0;
+}
+
+// Run only as the script, so tests can import the functions above.
+if (process.argv[1] !== undefined && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url))) {
+  runCommand(() => main());
+}
