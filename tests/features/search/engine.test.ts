@@ -133,6 +133,25 @@ describe('slit widths', () => {
     }
   });
 
+  it('solves the widest equal slits for the resolving power, the diffraction limit taken in quadrature', () => {
+    // Same mount and wavelength as above, R ≥ 2000 with N = 1200 × 50 = 60,000 grooves.
+    // R = λ / √(bp² + (λ/|m|N)²) (resolving-power.ts, common practice), so bp ≤ √((λ/R)² − (λ/N)²)
+    // = √(0.27305² − 0.0091017²) = 0.272898 nm, and w = 0.272898 / 2.74021 mm = 99.59 µm → 99.5 µm.
+    const answer = runSearch(
+      parse({
+        range: { startNm: 500, endNm: 600 },
+        requirements: { minResolvingPower: 2000, atWavelengthsNm: [546.1] },
+        search: { grooveDensitiesPerMm: [1200], blazeWavelengthsNm: [500], maxOrder: 1, deviationAnglesDeg: [20], focalLengthsMm: [300] },
+      }),
+    );
+    expect(answer.candidates).toHaveLength(2);
+    for (const { figures } of answer.candidates) {
+      expect(figures.slitWidthUm).toBeCloseTo(99.5, 9);
+      expect(figures.worstResolvingPower).toBeGreaterThanOrEqual(2000);
+      expect(figures.worstResolvingPower).toBeLessThan(2000 * 1.002);
+    }
+  });
+
   it('uses 50 µm without a bandpass or resolving-power requirement', () => {
     const answer = runSearch(
       parse({
