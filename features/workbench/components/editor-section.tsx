@@ -20,13 +20,16 @@ export function EditorSection({ title, summary, open, collapsible, onToggle, chi
       <Text role="heading" aria-level={3} style={styles.title}>
         {title}
       </Text>
-      {collapsible && !open && summary ? (
-        <Text style={styles.summary} numberOfLines={1}>
-          {summary}
-        </Text>
-      ) : null}
     </View>
   );
+  // Under the header, not inside its button: a button's name must hold all its visible text
+  // (WCAG 2.5.3), and "Light source not set: show fields" would read worse than the two apart.
+  const folded =
+    collapsible && !open && summary ? (
+      <Text style={styles.summary} numberOfLines={1}>
+        {summary}
+      </Text>
+    ) : null;
   return (
     <View style={styles.section} testID={testID}>
       {collapsible ? (
@@ -43,6 +46,7 @@ export function EditorSection({ title, summary, open, collapsible, onToggle, chi
       ) : (
         <View style={styles.header}>{header}</View>
       )}
+      {folded}
       {open || !collapsible ? <View style={styles.body}>{children}</View> : null}
     </View>
   );
@@ -66,7 +70,14 @@ const styles = StyleSheet.create({
   },
   headerText: { flex: 1, minWidth: 0 },
   title: { ...type.lead, fontFamily: fonts.semibold, color: colors.ink },
-  summary: { ...type.caption, fontFamily: fonts.mono, color: colors.inkMuted },
+  summary: {
+    ...type.caption,
+    fontFamily: fonts.mono,
+    color: colors.inkMuted,
+    paddingHorizontal: space.lg,
+    marginTop: -space.sm,
+    paddingBottom: space.sm,
+  },
   chevron: { ...type.lead, color: colors.inkMuted },
   body: { paddingHorizontal: space.lg, paddingBottom: space.lg, gap: space.md },
 });

@@ -29,6 +29,7 @@ import { DesignEditor } from './design-editor';
 import { PresetPicker } from './preset-picker';
 import { RangeTable } from './range-table';
 import { RequirementsCard, type SolveOffer } from './requirements-card';
+import { SensitivityCard } from './sensitivity-card';
 import { ReadoutCard } from './readout-card';
 import { SummaryBar } from './summary-bar';
 import { WarningList } from './warning-list';
@@ -252,6 +253,7 @@ export function Workbench({
       />
     </Card>
   ) : null;
+  const sensitivity = <SensitivityCard design={bench.design} collapsedAtFirst={layout === 'phone'} />;
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   // Last in every layout: what to take care of at the bench, for this design's range and source.
   const cautions = <CautionsCard design={bench.design} />;
@@ -268,6 +270,7 @@ export function Workbench({
           {warnings}
           {requirements}
           {search}
+          {sensitivity}
           {readout}
           {graphics}
           {table}
@@ -299,6 +302,7 @@ export function Workbench({
           {warnings}
           {requirements}
           {search}
+          {sensitivity}
           {readout}
           {table}
           {cautions}
@@ -321,6 +325,7 @@ export function Workbench({
         {warnings}
         {requirements}
         {search}
+        {sensitivity}
         {readout}
         {table}
         {cautions}
