@@ -3,7 +3,8 @@ import { loadUnitParser } from '../../../features/solver';
 import type { Design } from '../../../shared/design';
 import { exampleDesign } from '../../../shared/design';
 import { designToForm, formToDesign, formValuesSchema, type FormValues } from '../../../features/workbench/form-model';
-import { draftSchema } from '../../../features/workbench/draft';
+import { SCRATCH_KEY, draftSchema, loadDraft } from '../../../features/workbench/draft';
+import { withFakeLocalStorage } from '../../support/fake-local-storage';
 import { blankRequirementsText } from '../../../features/workbench/requirement-fields';
 import { fieldLabel } from '../../../features/workbench/fields';
 
@@ -115,7 +116,22 @@ describe('drafts saved before requirements existed', () => {
     if (!parsed.success) return;
     expect(parsed.data.requirements).toEqual(blankRequirementsText());
     expect(formToDesign(parsed.data)).toEqual({ ok: true, design: exampleDesign });
+    // A notebook's unsaved edits keep the same draft (features/notebooks/draft-store.ts uses draftSchema).
     const draft = draftSchema.safeParse({ values: old, selectedNm: '500', presetId: null });
     expect(draft.success).toBe(true);
+  });
+});
+
+describe('drafts in local storage from before requirements', () => {
+  const local = withFakeLocalStorage();
+
+  it('the scratch draft opens with its text and no requirements', () => {
+    const { requirements: _none, ...old } = designToForm(exampleDesign);
+    const stored = { values: old, selectedNm: '612.5', presetId: null };
+    local.items.set(SCRATCH_KEY, JSON.stringify({ version: 1, value: stored }));
+    const draft = loadDraft();
+    expect(draft.selectedNm).toBe('612.5');
+    expect(draft.values.requirements).toEqual(blankRequirementsText());
+    expect(formToDesign(draft.values)).toEqual({ ok: true, design: exampleDesign });
   });
 });
