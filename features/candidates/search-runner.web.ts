@@ -59,7 +59,7 @@ export function createSearchRunner(): SearchRunner {
       let cancelled = false;
       const fallBack = (): Promise<SearchOutcome> => {
         giveUpOnWorker();
-        if (cancelled) return Promise.resolve({ kind: 'cancelled', done: 0 });
+        if (cancelled) return Promise.resolve({ kind: 'cancelled', done: 0, total: 0 });
         fallback = mainThread.start(request, onProgress);
         return fallback.outcome;
       };

@@ -6,7 +6,7 @@ export type SteppedRun = { readonly total: number; step(count: number): number; 
 /** Done so far of the total; called after every batch. */
 export type OnProgress = (done: number, total: number) => void;
 
-export type SearchOutcome = { kind: 'done'; answer: SearchAnswer } | { kind: 'cancelled'; done: number };
+export type SearchOutcome = { kind: 'done'; answer: SearchAnswer } | { kind: 'cancelled'; done: number; total: number };
 
 /**
  * Candidates evaluated between yields: about 10 ms of work at the engine's rate (≤ 250 ms for
@@ -25,7 +25,7 @@ export async function stepToEnd(run: SteppedRun, onProgress: OnProgress, cancell
   let done = 0;
   onProgress(0, run.total);
   while (done < run.total) {
-    if (cancelled()) return { kind: 'cancelled', done };
+    if (cancelled()) return { kind: 'cancelled', done, total: run.total };
     const next = run.step(BATCH_SIZE);
     // A run that stops advancing would spin forever: finish with what it has.
     if (next <= done) break;
@@ -33,6 +33,6 @@ export async function stepToEnd(run: SteppedRun, onProgress: OnProgress, cancell
     onProgress(done, run.total);
     await yieldToEvents();
   }
-  if (cancelled()) return { kind: 'cancelled', done };
+  if (cancelled()) return { kind: 'cancelled', done, total: run.total };
   return { kind: 'done', answer: run.finish() };
 }

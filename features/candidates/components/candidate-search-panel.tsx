@@ -87,7 +87,8 @@ export function CandidateSearchPanel({ design, onOpen, onSave, readOnly = false 
         <Button label={state.status === 'idle' ? 'Find designs' : 'Find designs again'} onPress={find} testID="search-run" />
         {running ? <Button kind="secondary" label="Cancel" accessibilityLabel="Cancel the search" onPress={cancel} testID="search-cancel" /> : null}
       </View>
-      {running ? <SearchProgress done={state.done} total={state.total} /> : null}
+      {/* Left where it stopped after a cancel, so the count in the words can be seen on the bar. */}
+      {running || (state.status === 'cancelled' && state.total > 0) ? <SearchProgress done={state.done} total={state.total} /> : null}
       <Text
         role="status"
         aria-live="polite"

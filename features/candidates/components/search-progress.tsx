@@ -13,9 +13,10 @@ export function SearchProgress({ done, total }: Props) {
       <View
         role="progressbar"
         aria-label="Search progress"
+        // Indeterminate (no value) until the search has counted its candidates.
         aria-valuemin={0}
-        aria-valuemax={total ?? 0}
-        aria-valuenow={done}
+        aria-valuemax={total ?? undefined}
+        aria-valuenow={total === null ? undefined : done}
         aria-valuetext={words}
         style={styles.track}
         testID="search-progress"

@@ -5,7 +5,7 @@ import { createSearchRunner, type SearchHandle, type SearchRunner } from '../sea
 export type CandidateSearchState =
   | { status: 'idle' }
   | { status: 'running'; done: number; total: number | null }
-  | { status: 'cancelled'; done: number }
+  | { status: 'cancelled'; done: number; total: number }
   | { status: 'done'; answer: SearchAnswer; request: SearchRequest }
   | { status: 'failed'; message: string };
 
@@ -16,7 +16,7 @@ export type CandidateSearchState =
 export function useCandidateSearch() {
   const [state, setState] = useState<CandidateSearchState>({ status: 'idle' });
   const runner = useRef<SearchRunner | null>(null);
-  const current = useRef<{ handle: SearchHandle; done: number } | null>(null);
+  const current = useRef<{ handle: SearchHandle | null } | null>(null);
 
   useEffect(
     () => () => {
@@ -28,17 +28,16 @@ export function useCandidateSearch() {
   );
 
   const start = useCallback((request: SearchRequest) => {
-    current.current?.handle.cancel();
+    current.current?.handle?.cancel();
     runner.current ??= createSearchRunner();
     setState({ status: 'running', done: 0, total: null });
-    const run: { handle: SearchHandle | null; done: number } = { handle: null, done: 0 };
+    const run: { handle: SearchHandle | null } = { handle: null };
     const handle = runner.current.start(request, (done, total) => {
       if (current.current !== run) return;
-      run.done = done;
       setState({ status: 'running', done, total });
     });
     run.handle = handle;
-    current.current = run as { handle: SearchHandle; done: number };
+    current.current = run;
     handle.outcome.then(
       (outcome) => {
         if (current.current !== run) return;
@@ -46,7 +45,7 @@ export function useCandidateSearch() {
         setState(
           outcome.kind === 'done'
             ? { status: 'done', answer: outcome.answer, request }
-            : { status: 'cancelled', done: Math.max(outcome.done, run.done) },
+            : { status: 'cancelled', done: outcome.done, total: outcome.total },
         );
       },
       (error: unknown) => {
@@ -61,9 +60,7 @@ export function useCandidateSearch() {
   }, []);
 
   const cancel = useCallback(() => {
-    const run = current.current;
-    if (!run) return;
-    run.handle.cancel();
+    current.current?.handle?.cancel();
   }, []);
 
   return { state, start, cancel };

@@ -41,7 +41,7 @@ describe('stepping a search in batches', () => {
     const outcome = service.run({} as never, (done) => {
       if (done >= 750) service.cancel();
     });
-    await expect(outcome).resolves.toEqual({ kind: 'cancelled', done: 750 });
+    await expect(outcome).resolves.toEqual({ kind: 'cancelled', done: 750, total: 10_000 });
   });
 
   it('lets a new run replace the running one without the old cancel reaching it', async () => {
