@@ -1,7 +1,12 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { expectAccessible } from '../support/axe';
-import { liveServerAndBrowser, screenshot, viewports } from '../support/browser';
+import path from 'node:path';
+import { artifactsDir, liveServerAndBrowser, screenshot, viewports } from '../support/browser';
+
+/** One part of the screen, saved on its own: the phone's scroll view keeps most of the page out of a full shot. */
+const shootPart = (page: Page, testID: string, name: string) =>
+  page.getByTestId(testID).screenshot({ path: path.join(artifactsDir, `${name}.png`) });
 
 const label = (page: Page, testID: string) => page.getByTestId(testID).getAttribute('aria-label');
 
@@ -40,6 +45,8 @@ describe('requirements in the workbench, on a phone', () => {
     const plotLabel = await page.getByTestId('plot-bandpass').locator('[role="img"]').getAttribute('aria-label');
     expect(plotLabel).toMatch(/fails its requirements: bandpass over 0\.5 nm (between|at) 200/);
     await screenshot(page, 'requirements-fail-phone');
+    await shootPart(page, 'requirements-card', 'requirements-card-fail-phone');
+    await shootPart(page, 'plot-bandpass', 'requirements-plot-fail-phone');
     await expectAccessible(page, 'workbench with a failing requirement at phone');
 
     // The warning's fix link takes the designer to the exit slit.
@@ -53,7 +60,10 @@ describe('requirements in the workbench, on a phone', () => {
     await eventually(() => label(page, row)).toMatch(/^Pass: /);
     await eventually(() => page.getByTestId('plot-bandpass-failing').count()).toBe(0);
     expect(await page.getByTestId(`warning-${row}`).count()).toBe(0);
-    await screenshot(page, 'requirements-pass-phone');
+    await shootPart(page, 'requirements-card', 'requirements-card-pass-phone');
+    await page.getByTestId('sensitivity-toggle').click();
+    await page.getByTestId('tolerance-view').waitFor();
+    await shootPart(page, 'sensitivity-card', 'requirements-sensitivity-phone');
 
     // The same page, wider: the card sits near the warnings in each layout.
     for (const size of ['tablet', 'wide'] as const) {

@@ -99,10 +99,13 @@ export const RequirementsCard = memo(function RequirementsCard({
         <View style={styles.offers}>
           <Text style={styles.offersTitle}>Solve for a value</Text>
           {offers.map((offer) => (
-            <View key={offer.id} style={styles.actions}>
+            <View key={offer.id} style={styles.offer}>
+              <Text style={styles.offerText}>{offer.text}</Text>
               <Button
                 kind="secondary"
-                label={`Use: ${offer.text}`}
+                label="Use"
+                // The visible word first (WCAG 2.5.3), then what it sets.
+                accessibilityLabel={`Use: ${offer.text}`}
                 onPress={() => onApplyOffer(offer)}
                 testID={`solve-for-${offer.id}`}
               />
@@ -138,5 +141,7 @@ const styles = StyleSheet.create({
   offers: { gap: space.sm, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md },
   offersTitle: { ...type.small, fontFamily: fonts.semibold, color: colors.ink },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  offer: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  offerText: { ...type.small, fontFamily: fonts.regular, color: colors.ink, flex: 1, minWidth: 0 },
   undo: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', gap: space.sm },
 });

@@ -4,6 +4,11 @@ import { requirementSensitivities, toleranceView } from '@/features/requirements
 import { Button, Card, colors, fonts, space, type } from '@/features/ui';
 import type { Design } from '@/shared/design';
 
+/** "+10 µm exit slit → +0.017 nm bandpass" without its step, which the row already names. */
+function afterStep(text: string, stepText: string): string {
+  return text.startsWith(stepText) ? text.slice(stepText.length).replace(/^\s*→\s*/, '') : text;
+}
+
 /** The finite differences and tolerances, worked out only while the card is open (about 20 solver runs). */
 function Body({ design }: { design: Design }) {
   const rows = useMemo(() => requirementSensitivities(design), [design]);
@@ -20,12 +25,11 @@ function Body({ design }: { design: Design }) {
       <View role="list" style={styles.list} testID="sensitivity-rows">
         {rows.map((row) => (
           <View key={row.path} role="listitem" style={styles.row}>
-            <Text style={styles.step}>{row.stepText}</Text>
-            {row.effects.map((effect) => (
-              <Text key={effect.requirement} style={styles.effect}>
-                {effect.text}
-              </Text>
-            ))}
+            <Text style={styles.effect}>
+              <Text style={styles.step}>{row.stepText}</Text>
+              {' → '}
+              {row.effects.map((effect) => afterStep(effect.text, row.stepText)).join('; ')}
+            </Text>
           </View>
         ))}
       </View>
@@ -67,8 +71,8 @@ export const SensitivityCard = memo(function SensitivityCard({ design, collapsed
 
 const styles = StyleSheet.create({
   lead: { ...type.small, fontFamily: fonts.regular, color: colors.inkMuted },
-  list: { gap: space.sm },
-  row: { gap: space.xxs, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm },
+  list: { gap: space.xs },
+  row: { borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.xs },
   step: { ...type.small, fontFamily: fonts.semibold, color: colors.ink },
   effect: { ...type.small, fontFamily: fonts.regular, color: colors.ink },
   heading: { ...type.small, fontFamily: fonts.semibold, color: colors.ink, marginTop: space.sm },
