@@ -48,6 +48,7 @@ export function HistoryTab({ design, current, top }: { design: Notebook; current
 }
 
 const styles = StyleSheet.create({
-  page: { maxWidth: 1240 },
+  // Wide enough for the table's eleven columns to leave its message readable on a 1440 px screen.
+  page: { maxWidth: 1400 },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

@@ -16,7 +16,8 @@ type Props = {
   reviewStates?: ReadonlyMap<number, VersionReviewState>;
 };
 
-const columns = ['Version', 'Message', 'Review', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', 'Requirements', ''] as const;
+const REQUIREMENTS_COLUMN = 'Requirements';
+const columns = ['Version', 'Message', 'Review', 'Author', 'Saved', 'Range', 'Bandpass', 'R', 'f-number', REQUIREMENTS_COLUMN, ''] as const;
 const columnStyle: TextStyle[] = [
   { width: 72 },
   { flex: 2, minWidth: 0 },
@@ -71,15 +72,18 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
   // Eleven columns need a wide screen: on a tablet the message and author were squeezed to a letter
   // a line, so tablets get the phone's stacked rows.
   const wide = layout === 'wide';
+  // The column appears once a version states requirements: a notebook without any keeps its
+  // table as it was, and its message column the room it had.
+  const showRequirements = versions.some((version) => (version.summary.requirements?.total ?? 0) > 0);
   return (
     <View role="table" aria-label="Version history" testID="history-table">
       {wide ? (
         <View role="row" style={[styles.row, styles.headerRow]}>
-          {columns.map((title, i) => (
+          {columns.map((title, i) => (title === REQUIREMENTS_COLUMN && !showRequirements ? null : (
             <Text key={title || 'actions'} role="columnheader" variant="caption" tone="muted" weight="semibold" style={columnStyle[i]}>
               {title.toUpperCase()}
             </Text>
-          ))}
+          )))}
         </View>
       ) : null}
       {versions.map((version) => {
@@ -182,16 +186,18 @@ export function HistoryTable({ versions, current, baselineVersion, onOpen, onCom
             <Text role="cell" variant="number" style={[styles.figure, columnStyle[8]]}>
               {figures.fNumber}
             </Text>
-            <Text
-              role="cell"
-              variant="number"
-              tone={requirementsTone(version)}
-              aria-label={figures.requirementsLabel}
-              style={[styles.figure, columnStyle[9]]}
-              testID={`history-requirements-${version.number}`}
-            >
-              {figures.requirements}
-            </Text>
+            {showRequirements ? (
+              <Text
+                role="cell"
+                variant="number"
+                tone={requirementsTone(version)}
+                aria-label={figures.requirementsLabel}
+                style={[styles.figure, columnStyle[9]]}
+                testID={`history-requirements-${version.number}`}
+              >
+                {figures.requirements}
+              </Text>
+            ) : null}
             <View role="cell" style={columnStyle[10]}>
               {actions}
             </View>
