@@ -219,10 +219,10 @@ export function Workbench({
       dimmed={dimmed}
     />
   );
-  const deferredReport = useDeferredValue(bench.requirementsReport);
+  const report = bench.requirementsReport;
   const failingRequirements = useMemo(
-    () => deferredReport.checks.filter((check) => check.status === 'fail'),
-    [deferredReport],
+    () => report.checks.filter((check) => check.status === 'fail'),
+    [report],
   );
   const warnings = (
     <WarningList
@@ -233,7 +233,7 @@ export function Workbench({
   );
   const requirements = (
     <RequirementsCard
-      report={deferredReport}
+      report={report}
       hasAny={bench.requirementsSet}
       offers={bench.solveOffers}
       onApplyOffer={applyOffer}

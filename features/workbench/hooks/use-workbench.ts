@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch, type FieldErrors as FormErrors, type Resolver } from 'react-hook-form';
 import {
   evaluateDesign,
@@ -128,12 +128,14 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     // eslint-disable-next-line react-hooks/exhaustive-deps -- unitsReady changes how the same text reads
   }, [selectedText, shown, unitsReady]);
 
-  // Checked on the design on screen (the last valid one while the text is refused).
-  const requirementsSet = useMemo(() => hasRequirements(shown), [shown]);
-  const requirementsReport = useMemo(() => checkRequirements(shown), [shown]);
+  // Checked on the design on screen (the last valid one while the text is refused). Solving for
+  // values takes tens of ms (a search per offer), so the checks may trail typing by a frame.
+  const checked = useDeferredValue(shown);
+  const requirementsSet = useMemo(() => hasRequirements(checked), [checked]);
+  const requirementsReport = useMemo(() => checkRequirements(checked), [checked]);
   const solveOffers = useMemo(
-    () => (requirementsSet ? solveForValues(shown, requirementsReport) : []),
-    [shown, requirementsSet, requirementsReport],
+    () => (requirementsSet ? solveForValues(checked, requirementsReport) : []),
+    [checked, requirementsSet, requirementsReport],
   );
 
   // The plots sample the range; the read-out's own wavelength joins their samples.
