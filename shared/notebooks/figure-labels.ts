@@ -84,32 +84,43 @@ export function requirementsMetLabel(summary: RequirementsSummary | null | undef
 
 /**
  * How the requirements moved from one version to another, in words ("1 more met; bandpass no
- * longer fails"), and whether that is for the better. Names come from the failing lists, so a
+ * longer fails"), the count alone ("+1 met") and what it leaves out (`detail`: the names, or
+ * requirements added or removed; null when the count says it all), and whether that is for the better. Names come from the failing lists, so a
  * requirement that went from failing to not checked reads as no longer failing: the count beside
  * it still says it is not met.
  */
 export function requirementsChange(
   before: RequirementsSummary | null | undefined,
   after: RequirementsSummary | null | undefined,
-): { text: string; tone: 'ok' | 'danger' | 'muted' } {
+): { text: string; tone: 'ok' | 'danger' | 'muted'; delta: string; detail: string | null } {
   const a = before && before.total > 0 ? before : null;
   const b = after && after.total > 0 ? after : null;
-  if (!a && !b) return { text: NONE, tone: 'muted' };
-  if (!a) return { text: 'requirements added', tone: 'muted' };
-  if (!b) return { text: 'requirements removed', tone: 'muted' };
+  if (!a && !b) return { text: NONE, tone: 'muted', delta: NONE, detail: null };
+  if (!a) return { text: 'requirements added', tone: 'muted', delta: NONE, detail: 'requirements added' };
+  if (!b) return { text: 'requirements removed', tone: 'muted', delta: NONE, detail: 'requirements removed' };
   const nowFailing = b.failing.filter((id) => !a.failing.includes(id));
   const fixed = a.failing.filter((id) => !b.failing.includes(id));
   const delta = b.met - a.met;
-  const parts: string[] = [];
-  if (delta > 0) parts.push(`${formatInteger(delta)} more met`);
-  if (delta < 0) parts.push(`${formatInteger(-delta)} fewer met`);
-  if (nowFailing.length > 0) parts.push(`${namesText(nowFailing)} now ${nowFailing.length === 1 ? 'fails' : 'fail'}`);
-  if (fixed.length > 0) parts.push(`${namesText(fixed)} no longer ${fixed.length === 1 ? 'fails' : 'fail'}`);
+  const count: string[] = [];
+  if (delta > 0) count.push(`${formatInteger(delta)} more met`);
+  if (delta < 0) count.push(`${formatInteger(-delta)} fewer met`);
+  const names: string[] = [];
+  if (nowFailing.length > 0) names.push(`${namesText(nowFailing)} now ${nowFailing.length === 1 ? 'fails' : 'fail'}`);
+  if (fixed.length > 0) names.push(`${namesText(fixed)} no longer ${fixed.length === 1 ? 'fails' : 'fail'}`);
+  // "+1 met", "−2 met", "±0 met": the count alone, for a narrow column beside the figures.
+  const deltaText = `${delta > 0 ? '+' : delta < 0 ? '−' : '±'}${formatInteger(Math.abs(delta))} met`;
+  const parts = [...count, ...names];
   if (parts.length === 0) {
     const same = a.total === b.total && a.unknown === b.unknown;
-    return { text: same ? 'no change' : `${formatInteger(b.total)} checked, was ${formatInteger(a.total)}`, tone: 'muted' };
+    const checked = `${formatInteger(b.total)} checked, was ${formatInteger(a.total)}`;
+    return { text: same ? 'no change' : checked, tone: 'muted', delta: deltaText, detail: same ? null : checked };
   }
   const better = nowFailing.length === 0 && (fixed.length > 0 || delta > 0);
   const worse = fixed.length === 0 && (nowFailing.length > 0 || delta < 0);
-  return { text: parts.join('; '), tone: better ? 'ok' : worse ? 'danger' : 'muted' };
+  return {
+    text: parts.join('; '),
+    tone: better ? 'ok' : worse ? 'danger' : 'muted',
+    delta: deltaText,
+    detail: names.length > 0 ? names.join('; ') : null,
+  };
 }

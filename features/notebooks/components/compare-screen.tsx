@@ -88,28 +88,40 @@ function RequirementsRow({ data }: { data: CompareResponse }) {
   const after = data.b.summary.requirements;
   if (!before?.total && !after?.total) return null;
   const change = requirementsChange(before, after);
+  // The count sits beside the other changes; the names under it, across the table, where a
+  // phone's narrow column would break them mid-word.
+  const words = change.detail;
   return (
-    <View role="row" style={styles.row} testID="figure-requirements">
-      <Text role="cell" variant="small" style={styles.wideCell}>
-        {REQUIREMENTS_MET_LABEL}
-      </Text>
-      <Text role="cell" variant="number" aria-label={requirementsMetLabel(before)} style={[styles.cell, styles.num]}>
-        {formatRequirementsMet(before)}
-      </Text>
-      <Text role="cell" variant="number" aria-label={requirementsMetLabel(after)} style={[styles.cell, styles.num]}>
-        {formatRequirementsMet(after)}
-      </Text>
-      <Text
-        role="cell"
-        variant="small"
-        weight="semibold"
-        tone={change.tone}
-        style={[styles.cell, styles.num]}
-        testID="change-requirements"
-      >
-        {change.text}
-      </Text>
-    </View>
+    <>
+      <View role="row" style={[styles.row, words !== null && styles.rowOpen]} testID="figure-requirements">
+        <Text role="cell" variant="small" style={styles.wideCell}>
+          {REQUIREMENTS_MET_LABEL}
+        </Text>
+        <Text role="cell" variant="number" aria-label={requirementsMetLabel(before)} style={[styles.cell, styles.num]}>
+          {formatRequirementsMet(before)}
+        </Text>
+        <Text role="cell" variant="number" aria-label={requirementsMetLabel(after)} style={[styles.cell, styles.num]}>
+          {formatRequirementsMet(after)}
+        </Text>
+        <Text
+          role="cell"
+          variant="number"
+          weight="semibold"
+          tone={change.tone}
+          style={[styles.cell, styles.num]}
+          testID="change-requirements"
+        >
+          {change.delta}
+        </Text>
+      </View>
+      {words !== null ? (
+        <View role="row" style={styles.row}>
+          <Text role="cell" variant="small" tone={change.tone} style={styles.cell} testID="change-requirements-words">
+            {words.charAt(0).toUpperCase() + words.slice(1)}
+          </Text>
+        </View>
+      ) : null}
+    </>
   );
 }
 
@@ -402,6 +414,8 @@ const styles = StyleSheet.create({
     borderBottomColor: colors.line,
   },
   headerRow: { borderBottomWidth: 2 },
+  // A row whose words follow on the next line: no rule between them.
+  rowOpen: { borderBottomWidth: 0 },
   sectionRow: { paddingTop: space.sm, paddingBottom: space.xxs, paddingHorizontal: space.xs },
   changedRow: { backgroundColor: '#FFF2E6' },
   wideCell: { flex: 2, minWidth: 0 },

@@ -63,16 +63,18 @@ describe('the history row’s requirements figure', () => {
 
 describe('the change in requirements between two versions', () => {
   it.each([
-    { name: 'nothing on either side', before: null, after: null, text: '—', tone: 'muted' },
-    { name: 'added', before: null, after: fourOfFive, text: 'requirements added', tone: 'muted' },
-    { name: 'removed', before: fourOfFive, after: undefined, text: 'requirements removed', tone: 'muted' },
-    { name: 'the same', before: fourOfFive, after: fourOfFive, text: 'no change', tone: 'muted' },
+    { name: 'nothing on either side', before: null, after: null, text: '—', tone: 'muted', delta: '—', detail: null },
+    { name: 'added', before: null, after: fourOfFive, text: 'requirements added', tone: 'muted', delta: '—', detail: 'requirements added' },
+    { name: 'removed', before: fourOfFive, after: undefined, text: 'requirements removed', tone: 'muted', delta: '—', detail: 'requirements removed' },
+    { name: 'the same', before: fourOfFive, after: fourOfFive, text: 'no change', tone: 'muted', delta: '±0 met', detail: null },
     {
       name: 'a failing one fixed',
       before: fourOfFive,
       after: { met: 5, total: 5, unknown: 0, failing: [] },
       text: '1 more met; bandpass no longer fails',
       tone: 'ok',
+      delta: '+1 met',
+      detail: 'bandpass no longer fails',
     },
     {
       name: 'a new failure',
@@ -80,6 +82,8 @@ describe('the change in requirements between two versions', () => {
       after: { met: 3, total: 5, unknown: 0, failing: ['maxFNumber', 'orderOverlap'] },
       text: '2 fewer met; f-number, order overlap now fail',
       tone: 'danger',
+      delta: '−2 met',
+      detail: 'f-number, order overlap now fail',
     },
     {
       name: 'one fixed and another broken',
@@ -87,6 +91,8 @@ describe('the change in requirements between two versions', () => {
       after: { met: 4, total: 5, unknown: 0, failing: ['maxFNumber'] },
       text: 'f-number now fails; bandpass no longer fails',
       tone: 'muted',
+      delta: '±0 met',
+      detail: 'f-number now fails; bandpass no longer fails',
     },
     {
       name: 'one more requirement, still all met',
@@ -94,11 +100,21 @@ describe('the change in requirements between two versions', () => {
       after: { met: 3, total: 3, unknown: 0, failing: [] },
       text: '1 more met',
       tone: 'ok',
+      delta: '+1 met',
+      detail: null,
     },
-  ] satisfies { name: string; before: RequirementsSummary | null | undefined; after: RequirementsSummary | null | undefined; text: string; tone: string }[])(
+  ] satisfies {
+    name: string;
+    before: RequirementsSummary | null | undefined;
+    after: RequirementsSummary | null | undefined;
+    text: string;
+    tone: string;
+    delta: string;
+    detail: string | null;
+  }[])(
     'words $name',
-    ({ before, after, text, tone }) => {
-      expect(requirementsChange(before, after)).toEqual({ text, tone });
+    ({ before, after, text, tone, delta, detail }) => {
+      expect(requirementsChange(before, after)).toEqual({ text, tone, delta, detail });
     },
   );
 });
