@@ -1,6 +1,7 @@
+import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { liveServerAndBrowser } from '../support/browser';
+import { artifactsDir, liveServerAndBrowser, viewports } from '../support/browser';
 import { demo, eventually, expectNoProblems, person, shown, signInAs, type Person } from './journeys/journey';
 
 /** The requirements section's toggle, opened unless it is open already (phones collapse the sections). */
@@ -77,7 +78,20 @@ describe('candidate search on a phone, from a failing requirement to a version t
     const bandpassNm = Number(/Worst bandpass([\d.]+)/.exec(card ?? '')?.[1]);
     expect(bandpassNm).toBeGreaterThan(0);
     expect(bandpassNm).toBeLessThanOrEqual(0.2);
-    await who.shoot('results');
+    await who.shoot('results', ['phone']);
+    // From a tablet up the candidates are a table; the editor's pane scrolls, so the card is shot alone.
+    for (const size of ['tablet', 'wide'] as const) {
+      await page.setViewportSize(viewports[size]);
+      // The workbench lays the new size out as a new tree: wait for the kept answer to show in it.
+      await page.waitForTimeout(300);
+      await shown(page, 'candidate-row-1').waitFor();
+      const card = shown(page, 'search-card');
+      await card.scrollIntoViewIfNeeded();
+      expect(await page.getByRole('table', { name: 'Candidate designs, best first' }).count()).toBe(1);
+      await card.screenshot({ path: path.join(artifactsDir, `candidate-search-table-${size}.png`) });
+      await who.checkA11y(`results at ${size}`);
+    }
+    await page.setViewportSize(viewports.phone);
   });
 
   it('saves the top candidate as a new version, which meets every requirement', async () => {
@@ -85,8 +99,9 @@ describe('candidate search on a phone, from a failing requirement to a version t
     await shown(page, 'candidate-save-1').click();
     await eventually(() => shown(page, 'version-line').textContent(), 30_000).toContain(`v${demo.latest + 1} of ${demo.latest + 1}`);
     expect(await shown(page, 'version-line').textContent()).toMatch(/Candidate 1 from the search: \d+\/mm, order [+\u2212]\d, f = \d+ mm/);
-    await shown(page, 'requirements-card').scrollIntoViewIfNeeded();
     await eventually(() => requirementStatuses(page)).toEqual(['Pass', 'Pass']);
+    // The new version's screen settles (queries refetched) before it is scrolled to and shot.
+    await eventually(() => shown(page, 'requirements-card').scrollIntoViewIfNeeded({ timeout: 2_000 }).then(() => true)).toBe(true);
     await who.shoot('saved-version', ['phone']);
   });
 

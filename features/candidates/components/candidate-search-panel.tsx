@@ -28,9 +28,9 @@ export type CandidateSearchPanelProps = {
  */
 export function CandidateSearchPanel({ design, onOpen, onSave, readOnly = false }: CandidateSearchPanelProps) {
   const [controls, setControls] = useState<Controls>(DEFAULT_CONTROLS);
-  const { state, start, cancel } = useCandidateSearch();
   const [saves, setSaves] = useState<ReadonlyMap<number, SaveState>>(new Map());
   const request = useMemo(() => searchRequestFromDesign(design, controls), [design, controls]);
+  const { state, start, cancel } = useCandidateSearch(request);
   const requestKey = useMemo(() => JSON.stringify(request), [request]);
   const running = state.status === 'running';
 

@@ -10,11 +10,19 @@ export type CandidateSearchState =
   | { status: 'failed'; message: string };
 
 /**
+ * The last finished search. The workbench lays a phone, a tablet and a wide screen out as different
+ * trees, so turning a tablet remounts the panel; its answer comes back when the request is the same.
+ */
+let kept: { key: string; answer: SearchAnswer; request: SearchRequest } | null = null;
+
+/**
  * One search at a time, off the UI thread where the platform allows (search-runner.*). Starting
  * again replaces the running search; progress from a replaced or cancelled run is ignored.
  */
-export function useCandidateSearch() {
-  const [state, setState] = useState<CandidateSearchState>({ status: 'idle' });
+export function useCandidateSearch(request: SearchRequest | null) {
+  const [state, setState] = useState<CandidateSearchState>(() =>
+    kept && request && kept.key === JSON.stringify(request) ? { status: 'done', answer: kept.answer, request: kept.request } : { status: 'idle' },
+  );
   const runner = useRef<SearchRunner | null>(null);
   const current = useRef<{ handle: SearchHandle | null } | null>(null);
 
@@ -42,6 +50,7 @@ export function useCandidateSearch() {
       (outcome) => {
         if (current.current !== run) return;
         current.current = null;
+        if (outcome.kind === 'done') kept = { key: JSON.stringify(request), answer: outcome.answer, request };
         setState(
           outcome.kind === 'done'
             ? { status: 'done', answer: outcome.answer, request }
