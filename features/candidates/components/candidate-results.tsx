@@ -1,5 +1,6 @@
+import { useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
-import { Button, Text, colors, fonts, radius, space, type, useLayout } from '@/features/ui';
+import { Button, Text, colors, fonts, radius, space, type } from '@/features/ui';
 import type { Candidate } from '@/shared/search';
 import { FIGURE_COLUMNS } from '../format';
 
@@ -37,7 +38,7 @@ function Actions({ candidate, rank, onOpen, onSave, saves }: { candidate: Candid
         <Button
           kind="secondary"
           label="Open in the workbench"
-          accessibilityLabel={`Open candidate ${rank} in the workbench`}
+          accessibilityLabel={`Open in the workbench: candidate ${rank}`}
           onPress={() => onOpen(candidate)}
           testID={`candidate-open-${rank}`}
         />
@@ -46,7 +47,7 @@ function Actions({ candidate, rank, onOpen, onSave, saves }: { candidate: Candid
         <Button
           kind="quiet"
           label={save?.status === 'saved' ? 'Saved' : 'Save as a new version'}
-          accessibilityLabel={`Save candidate ${rank} as a new version`}
+          accessibilityLabel={`${save?.status === 'saved' ? 'Saved' : 'Save as a new version'}: candidate ${rank}`}
           onPress={() => onSave(candidate, rank)}
           disabled={busy || save?.status === 'saved'}
           testID={`candidate-save-${rank}`}
@@ -57,17 +58,40 @@ function Actions({ candidate, rank, onOpen, onSave, saves }: { candidate: Candid
   );
 }
 
-/** The candidates best first: cards on a phone, a table (scrolling sideways when narrow) from tablets up. */
+/**
+ * Twelve figures and the actions need this much width as a table (rank 32 + figures 12 × 96 +
+ * actions 260 = 1444 px); narrower, a table would hide most columns behind a sideways scroll.
+ */
+export const TABLE_MIN_WIDTH_PX = 1444;
+/** Cards side by side from this width of the panel. */
+const TWO_CARDS_MIN_WIDTH_PX = 640;
+
+/**
+ * The candidates best first: a table where the panel is wide enough for every figure, else cards
+ * (one column on a phone or in the workbench's results column, two where there is room). Decided
+ * by the panel's own width: the workbench puts it in a narrow column even on a wide screen.
+ */
 export function CandidateResults(props: Props) {
-  const phone = useLayout() === 'phone';
+  const [widthPx, setWidthPx] = useState(0);
   const { candidates } = props;
-  if (phone) {
+  const measure = (event: { nativeEvent: { layout: { width: number } } }) => setWidthPx(event.nativeEvent.layout.width);
+  if (widthPx < TABLE_MIN_WIDTH_PX) {
     return (
-      <View role="list" aria-label="Candidate designs, best first" style={styles.cards}>
+      <View
+        role="list"
+        aria-label="Candidate designs, best first"
+        style={[styles.cards, widthPx >= TWO_CARDS_MIN_WIDTH_PX && styles.cardGrid]}
+        onLayout={measure}
+      >
         {candidates.map((candidate, index) => {
           const rank = index + 1;
           return (
-            <View key={rank} role="listitem" style={styles.card} testID={`candidate-row-${rank}`}>
+            <View
+              key={rank}
+              role="listitem"
+              style={[styles.card, widthPx >= TWO_CARDS_MIN_WIDTH_PX && styles.gridCard]}
+              testID={`candidate-row-${rank}`}
+            >
               <Text weight="semibold">
                 {rank}. {FIGURE_COLUMNS[0]?.text(candidate.figures, candidate.score)}, order{' '}
                 {FIGURE_COLUMNS[1]?.text(candidate.figures, candidate.score)}
@@ -92,7 +116,7 @@ export function CandidateResults(props: Props) {
     );
   }
   return (
-    <ScrollView horizontal contentContainerStyle={styles.scroller}>
+    <ScrollView horizontal contentContainerStyle={styles.scroller} onLayout={measure}>
       <View role="table" aria-label="Candidate designs, best first">
         <View role="row" style={[styles.row, styles.headerRow]}>
           <Text role="columnheader" variant="caption" tone="muted" weight="semibold" style={styles.rank}>
@@ -132,6 +156,8 @@ export function CandidateResults(props: Props) {
 
 const styles = StyleSheet.create({
   cards: { gap: space.md },
+  cardGrid: { flexDirection: 'row', flexWrap: 'wrap' },
+  gridCard: { flexBasis: '45%', flexGrow: 1 },
   card: { gap: space.sm, borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, padding: space.md },
   pairs: { flexDirection: 'row', flexWrap: 'wrap', rowGap: space.xs, columnGap: space.lg },
   pair: { minWidth: 140, flexGrow: 1, flexBasis: 140 },
