@@ -28,7 +28,7 @@ export interface RequirementCheck {
   /** One line in plain words: "bandpass 0.62 nm at 900 nm, 24 % over" or why it is unknown. */
   message: string;
   /** Wavelength spans [from, to] (nm, inclusive) where a per-wavelength requirement fails. */
-  failingSpansNm: ReadonlyArray<readonly [number, number]>;
+  failingSpansNm: readonly (readonly [number, number])[];
   /** The design field a "fix" link opens (`slits.exitWidthUm`); null when none fits. */
   fixPath: string | null;
 }

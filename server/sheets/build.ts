@@ -20,7 +20,7 @@ export async function buildSheet(sheet: SheetContext, sections: readonly SheetSe
     author: sheet.version.author?.displayName,
     createdAt: sheet.generatedAt,
   });
-  for (const section of sections) section.draw(writer, sheet);
+  for (const section of sections) if (section.appliesTo?.(sheet) ?? true) section.draw(writer, sheet);
   writer.footers(generatedNote(sheet.generatedAt), sheet.link);
   return writer.finish();
 }

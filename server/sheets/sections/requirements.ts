@@ -4,7 +4,6 @@ import { formatInteger, formatNumber, formatPercent, formatQuantity } from '../.
 import { formatRequirementsMet, requirementNames } from '../../../shared/notebooks/figure-labels';
 import type { RequirementId } from '../../../shared/requirements';
 import { REQUIREMENT_POINTS, checkRequirements, hasRequirements, type RequirementCheck } from '../../../features/requirements/index';
-import type { SheetContext } from '../context';
 import type { SheetSection } from '../section';
 import { spanTable, spanTableHeight, type SpanTableRow } from '../sheet-text';
 import { margins, sheetColors, textSize, type TableColumn } from '../writer';
@@ -137,12 +136,11 @@ function scopeLine(params: Design): string {
  * Printed only for a design that states requirements: one without them has nothing to check, and
  * its sheet reads as it did before requirements existed.
  */
-export const requirementsSection: SheetSection & { appliesTo(sheet: SheetContext): boolean } = {
+export const requirementsSection: SheetSection & Required<Pick<SheetSection, 'appliesTo'>> = {
   id: 'requirements',
   title: 'Requirements',
   appliesTo: (sheet) => hasRequirements(sheet.params),
   draw(writer, sheet) {
-    if (!this.appliesTo(sheet)) return;
     const report = checkRequirements(sheet.params);
     const numeric = { align: 'right' as const };
     const columns: TableColumn[] = [

@@ -118,8 +118,8 @@ describe('printedNumber (the parser the checks below read figures with)', () => 
 });
 
 describe('design sheet PDF, read back with pdfjs-dist', () => {
-  it('prints every registered section’s heading, in the registry’s order', () => {
-    const positions = sheetSections.map((section) => ({ title: section.title, at: headingIndex(pdf, section.title) }));
+  it('prints every registered section’s heading that applies to the design, in the registry’s order', () => {
+    const positions = sheetSections.filter((section) => section.appliesTo?.(sheet) ?? true).map((section) => ({ title: section.title, at: headingIndex(pdf, section.title) }));
     expect(positions.filter((p) => p.at === -1).map((p) => p.title), 'sections without their heading').toEqual([]);
     const order = positions.map((p) => p.at);
     expect(order, 'headings in print order').toEqual([...order].sort((a, b) => a - b));
