@@ -100,7 +100,7 @@ let targets: Record<string, Target>;
 
 beforeAll(async () => {
   fx = await createNotebookFixture({
-    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9 },
+    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9 },
   });
   server = createServer(fx.ctx.app).listen(0, '127.0.0.1');
   for (const who of ['owner', 'reviewer'] as const) {
@@ -120,6 +120,17 @@ beforeAll(async () => {
   const remarkId: string = started.body.thread.remarks[0].id;
   targets = {
     'POST /api/solve': { as: 'anonymous', body: { design: exampleDesign, at: [400, 500] } },
+    // A one-candidate space, so a thousand bodies that pass stay quick.
+    'POST /api/search': {
+      as: 'anonymous',
+      body: {
+        range: exampleDesign.range,
+        source: exampleDesign.source,
+        detector: exampleDesign.detector,
+        requirements: { maxBandpassNm: 1, minBlazeEfficiency: 0.2 },
+        search: { grooveDensitiesPerMm: [600], blazeWavelengthsNm: [500], maxOrder: 1, deviationAnglesDeg: [20], focalLengthsMm: [300], top: 1 },
+      },
+    },
     'POST /api/auth/sign-up': { as: 'anonymous', body: { email: 'fuzz@example.com', displayName: 'Fuzz', password: 'a long enough password' } },
     'POST /api/auth/sign-in': { as: 'anonymous', body: { email: fx.viewer.user.email, password: fx.viewer.password } },
     'POST /api/auth/password-reset': { as: 'anonymous', body: { email: fx.viewer.user.email } },
@@ -184,6 +195,7 @@ describe('random and poisoned JSON bodies', () => {
 
 describe.each([
   'POST /api/solve',
+  'POST /api/search',
   'POST /api/auth/sign-up',
   'POST /api/auth/sign-in',
   'POST /api/auth/password-reset',
