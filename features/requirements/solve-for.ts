@@ -40,6 +40,11 @@ const MAX_SLIT_UM = 1_000_000;
 const MAX_PIXELS = 10_000_000;
 /** Bisection on the slit scale stops within this fraction: far below the three figures offered. */
 const SCALE_TOLERANCE = 1e-9;
+/**
+ * A passing design whose slits already open within this fraction of the widest that passes has
+ * nothing worth offering: "6 µm (was 5.9 µm)" is rounding, not a design change.
+ */
+const WORTHWHILE_OPENING = 0.05;
 const BISECTION_STEPS = 60;
 /** A camera angle within this of the coma-free one is balanced already, degrees. */
 const COMA_TOLERANCE_DEG = 0.01;
@@ -140,6 +145,7 @@ function solveSlits(
 ): SolvedValue | null {
   const scale = largestSlitScale(design, requirement, requirements);
   if (scale === null) return null;
+  if (scale >= 1 && scale < 1 + WORTHWHILE_OPENING) return null;
   const changes = verified(design, requirement, requirements, [
     slitChanges(design, scale, true),
     slitChanges(design, scale, false),

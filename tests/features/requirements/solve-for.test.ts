@@ -54,13 +54,20 @@ describe('solveForValues', () => {
   });
 
   it('slit widths for a resolving power: the bandpass left once the diffraction limit is taken out', () => {
-    // R = λ / √(bp² + (λ/mN)²) (common practice) ⇒ bp = √((500/3000)² − (500/60 000)²) = 0.166458 nm,
-    // w = 0.166458 / 1.58990 = 104.70 µm: the slits may open from 100 µm (offered cut to 104 µm).
-    const design = littrowDesign({ minResolvingPower: 3000, atWavelengthsNm: [500] });
+    // R = λ / √(bp² + (λ/mN)²) (common practice) ⇒ bp = √((500/2500)² − (500/60 000)²) = 0.199826 nm,
+    // w = 0.199826 / 1.58990 = 125.69 µm: the slits may open from 100 µm (offered cut to 125 µm).
+    const design = littrowDesign({ minResolvingPower: 2500, atWavelengthsNm: [500] });
     const value = valueFor(design, 'minResolvingPower');
     const exit = value.changes.find((c) => c.path === 'slits.exitWidthUm')?.value ?? 0;
-    expect(exit).toBe(104);
+    expect(exit).toBe(125);
     expect(statusAfter(design, value, 'minResolvingPower')).toBe('pass');
+  });
+
+  it('offers nothing where passing slits could open by less than 5 % (rounding, not a design change)', () => {
+    // As above with R = 3000: bp = √((500/3000)² − (500/60 000)²) = 0.166458 nm, w = 104.70 µm,
+    // only 4.7 % wider than the 100 µm slits that already pass.
+    const design = littrowDesign({ minResolvingPower: 3000, atWavelengthsNm: [500] });
+    expect(solveForValues(design).find((v) => v.requirement === 'minResolvingPower')).toBeUndefined();
   });
 
   it('offers no slit width for a resolving power beyond |m|N (no slit reaches it)', () => {
