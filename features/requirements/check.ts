@@ -268,6 +268,11 @@ function unknownCheck(
   };
 }
 
+/** An Ebert–Fastie's camera is its collimator mirror: its editor hides the camera fields, so a fix opens the one mirror's. */
+function fixPathIn(design: Design, path: string): string {
+  return design.layout.kind === 'ebert-fastie' && path === 'layout.cameraFocalMm' ? 'layout.collimatorFocalMm' : path;
+}
+
 function pointCheck(
   rule: PointRule,
   limit: number,
@@ -276,8 +281,9 @@ function pointCheck(
   r: Requirements,
 ): RequirementCheck {
   const text = limitText(rule.words, rule.kind, limit, rule.unit);
+  const fixPath = fixPathIn(design, rule.fixPath);
   const missing = rule.missing?.(design, r);
-  if (missing) return unknownCheck(rule.id, text, limit, missing, rule.fixPath);
+  if (missing) return unknownCheck(rule.id, text, limit, missing, fixPath);
   const spans = failingSpans(points, (p) => ruleFails(rule, limit, p, design, r));
   const unreachable = points.filter((p) => !p.reachable);
   let worst: number | null = null;
@@ -290,7 +296,7 @@ function pointCheck(
       worstNm = point.wavelengthNm;
     }
   }
-  const base = { id: rule.id, limitText: text, limit, failingSpansNm: spans, fixPath: rule.fixPath };
+  const base = { id: rule.id, limitText: text, limit, failingSpansNm: spans, fixPath };
   if (unreachable.length > 0) {
     const where = spansText(failingSpans(points, (p) => !p.reachable));
     const elsewhere =
@@ -307,7 +313,7 @@ function pointCheck(
     };
   }
   if (worst === null || worstNm === null) {
-    return unknownCheck(rule.id, text, limit, `${rule.words('').trim()}: no value to check`, rule.fixPath);
+    return unknownCheck(rule.id, text, limit, `${rule.words('').trim()}: no value to check`, fixPath);
   }
   const margin = requirementMargin(rule.kind, worst, limit);
   const passes = spans.length === 0;

@@ -128,6 +128,12 @@ describe('each requirement at its boundary (Littrow, 1200/mm, f = 500 mm, 100 µ
     expect(fail.fixPath).toBe('layout.cameraFocalMm');
   });
 
+  it('sends an Ebert–Fastie’s reciprocal-dispersion fix to its one mirror, the field its editor shows', () => {
+    const design = littrowDesign({ maxReciprocalDispersionNmPerMm: rld500 * (1 - JUST), atWavelengthsNm: [500] });
+    design.layout = { kind: 'ebert-fastie', deviationAngleDeg: 20, collimatorFocalMm: 500, cameraFocalMm: 500 };
+    expect(only(design.requirements!, design).fixPath).toBe('layout.collimatorFocalMm');
+  });
+
   it('reciprocal dispersion over the range is worst at the short end (cos β largest)', () => {
     // At 400 nm sin β = 0.24, RLD = 833.33 × √(1 − 0.0576) / 500 = 1.61804 nm/mm.
     const rld400 = (D_NM * Math.sqrt(1 - 0.24 ** 2)) / 500;
