@@ -11,12 +11,13 @@
  * design).
  */
 
-import { readFileSync, realpathSync } from 'node:fs';
+import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { runSearch, searchRequestIssues } from '../features/search/index';
 import { SEARCH_LIMITS, searchRequestSchema, type SearchAnswer } from '../shared/search';
 import { fieldErrors, formatFieldErrors } from '../shared/validation';
+import { parseInputJson, readInputText } from './json-input';
 import { runCommand } from './run-command';
 import { UsageError } from './solve';
 
@@ -54,14 +55,9 @@ export type SearchOutcome = { ok: true; answer: SearchAnswer } | { ok: false; me
  * search's own limits, and searches. A refusal is the text printed before exiting 2.
  */
 export function searchInput(text: string, args: SearchArgs): SearchOutcome {
-  const source = args.input === '-' ? 'stdin' : args.input;
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (error) {
-    return { ok: false, message: `${source} is not valid JSON: ${(error as Error).message}` };
-  }
-  const request = searchRequestSchema.safeParse(json);
+  const read = parseInputJson(text, args.input);
+  if (!read.ok) return read;
+  const request = searchRequestSchema.safeParse(read.json);
   if (!request.success) return { ok: false, message: formatFieldErrors(fieldErrors(request.error)) };
   const issues = searchRequestIssues(request.data);
   if (Object.keys(issues).length > 0) return { ok: false, message: formatFieldErrors(issues) };
@@ -78,14 +74,12 @@ export async function main(argv: readonly string[] = process.argv.slice(2)): Pro
     process.stderr.write(`${error.message ? `${error.message}\n` : ''}${USAGE}\n`);
     return 2;
   }
-  let text: string;
-  try {
-    text = readFileSync(args.input === '-' ? 0 : args.input, 'utf8');
-  } catch (error) {
-    process.stderr.write(`cannot read ${args.input === '-' ? 'stdin' : args.input}: ${(error as Error).message}\n`);
+  const input = readInputText(args.input);
+  if (!input.ok) {
+    process.stderr.write(`${input.message}\n`);
     return 2;
   }
-  const outcome = searchInput(text, args);
+  const outcome = searchInput(input.text, args);
   if (!outcome.ok) {
     process.stderr.write(`${outcome.message}\n`);
     return 2;

@@ -8,7 +8,7 @@
  * Limits (the HTTP API's, see USAGE): at most 1,000 wavelengths, 20 listed overlapping orders each.
  */
 
-import { readFileSync, realpathSync } from 'node:fs';
+import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { DEFAULT_POINTS, evaluateDesign } from '../features/solver/evaluate';
@@ -16,6 +16,7 @@ import { MAX_LISTED_OVERLAPS } from '../features/solver/orders';
 import { defaultRateLimits } from '../server/auth/rate-limit';
 import { designSchema, MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS, solveRequestSchema } from '../shared/design';
 import { fieldErrors, formatFieldErrors } from '../shared/validation';
+import { parseInputJson, readInputText } from './json-input';
 
 // The CLI keeps the HTTP API's limits (one schema for both), so a script that works here also
 // works against POST /api/solve.
@@ -109,15 +110,10 @@ export type SolveOutcome = { ok: true; evaluation: ReturnType<typeof evaluateDes
  * `path: reason` line per bad field, flags named as flags (`--at value 2 (-5): …`).
  */
 export function solveInput(text: string, args: SolveArgs): SolveOutcome {
-  const source = args.input === '-' ? 'stdin' : args.input;
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch (error) {
-    return { ok: false, message: `${source} is not valid JSON: ${(error as Error).message}` };
-  }
+  const read = parseInputJson(text, args.input);
+  if (!read.ok) return read;
 
-  const design = designSchema.safeParse(json);
+  const design = designSchema.safeParse(read.json);
   if (!design.success) return { ok: false, message: formatFieldErrors(fieldErrors(design.error)) };
 
   // Flag values go through the same rules as an HTTP solve request.
@@ -152,14 +148,10 @@ function main(): void {
     throw error;
   }
 
-  let text: string;
-  try {
-    text = readFileSync(args.input === '-' ? 0 : args.input, 'utf8');
-  } catch (error) {
-    fail(`cannot read ${args.input === '-' ? 'stdin' : args.input}: ${(error as Error).message}`);
-  }
+  const input = readInputText(args.input);
+  if (!input.ok) fail(input.message);
 
-  const outcome = solveInput(text, args);
+  const outcome = solveInput(input.text, args);
   if (!outcome.ok) fail(outcome.message);
   process.stdout.write(`${JSON.stringify(outcome.evaluation, null, 2)}\n`);
 }

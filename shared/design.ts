@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { formatNumber } from './format';
 import { requirementsSchema } from './requirements';
+import { number, section } from './schema-words';
 import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
 
 /**
@@ -11,13 +12,6 @@ import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
  * Bounds are deliberately generous (they admit echelles, far-IR and metre-class instruments) but
  * finite, so every derived number stays finite in double precision.
  */
-
-const MUST_BE_NUMBER = 'must be a number';
-
-/** A number, with "is required" for a missing field instead of zod's type jargon. */
-function number() {
-  return z.number({ error: (issue) => (issue.input === undefined ? 'is required' : MUST_BE_NUMBER) });
-}
 
 /** A positive quantity with a physically sensible upper and lower bound in the field's unit. */
 function positive(min: number, max: number, unitWords: string) {
@@ -31,19 +25,6 @@ function positive(min: number, max: number, unitWords: string) {
 function angleBelow(limitDeg: number) {
   const message = `must be at least 0° and less than ${limitDeg}°`;
   return number().min(0, { error: message }).lt(limitDeg, { error: message });
-}
-
-/** An object section: "is required" when missing, and unknown keys named so typos surface. */
-function section<T extends z.core.$ZodLooseShape>(shape: T) {
-  return z.strictObject(shape, {
-    error: (issue) => {
-      if (issue.code === 'unrecognized_keys') {
-        const keys = issue.keys.map((key) => `'${key}'`).join(', ');
-        return `has an unknown field ${keys} (check the spelling)`;
-      }
-      return issue.input === undefined ? 'is required' : 'must be an object';
-    },
-  });
 }
 
 /** A finite number above 0: what a field that passed its own check holds. */

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { number, section } from './schema-words';
 
 /**
  * What an instrument must do: the optional `requirements` block of a design. Field names carry
@@ -9,28 +10,10 @@ import { z } from 'zod';
  * design range unless `atWavelengthsNm` lists where they matter.
  */
 
-const MUST_BE_NUMBER = 'must be a number';
-
-function number() {
-  return z.number({ error: (issue) => (issue.input === undefined ? 'is required' : MUST_BE_NUMBER) });
-}
-
 function positive(max: number, unitWords: string) {
   return number()
     .gt(0, { error: 'must be greater than 0' })
     .max(max, { error: `must be at most ${max}${unitWords ? ` ${unitWords}` : ''}` });
-}
-
-function strict<T extends z.core.$ZodLooseShape>(shape: T) {
-  return z.strictObject(shape, {
-    error: (issue) => {
-      if (issue.code === 'unrecognized_keys') {
-        const keys = issue.keys.map((key) => `'${key}'`).join(', ');
-        return `has an unknown field ${keys} (check the spelling)`;
-      }
-      return issue.input === undefined ? 'is required' : 'must be an object';
-    },
-  });
 }
 
 export const ORDER_OVERLAP_POLICIES = ['forbidden', 'filtered', 'allowed'] as const;
@@ -39,14 +22,14 @@ export type OrderOverlapPolicy = (typeof ORDER_OVERLAP_POLICIES)[number];
 /** At most this many named wavelengths: they are checked one by one on every edit. */
 export const MAX_REQUIREMENT_WAVELENGTHS = 20;
 
-export const footprintSchema = strict({
+export const footprintSchema = section({
   /** Across the instrument, along the bisector's normal (the sketch's horizontal). */
   widthMm: positive(100_000, 'mm'),
   /** Along the bisector (the sketch's vertical). */
   depthMm: positive(100_000, 'mm'),
 });
 
-export const requirementsSchema = strict({
+export const requirementsSchema = section({
   /** Slit-limited FWHM bandpass, at most this, nm. */
   maxBandpassNm: positive(10_000_000, 'nm').optional(),
   /** λ/Δλ (slit and diffraction widths in quadrature), at least this. */

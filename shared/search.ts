@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { detectorSchema, rangeSchema, sourceSchema, storedDesignSchema } from './design';
 import { requirementsSchema } from './requirements';
+import { number } from './schema-words';
 
 /**
  * The candidate search's input and answer: `POST /api/search`, `npm run search -- input.json` and
@@ -17,9 +18,7 @@ export const SEARCH_LIMITS = {
   maxListLength: 40,
 } as const;
 
-const MUST_BE_NUMBER = 'must be a number';
-const num = () =>
-  z.number({ error: (issue) => (issue.input === undefined ? 'is required' : MUST_BE_NUMBER) });
+const num = number;
 
 function list(item: z.ZodNumber, words: string) {
   return z
