@@ -35,6 +35,13 @@ function focusNode(node: unknown) {
   (node as { focus?: () => void } | null)?.focus?.();
 }
 
+/** Whether the focused element is inside `node` (on the web, where a view is a DOM node; never on native). */
+function holdsFocus(node: unknown): boolean {
+  const active = typeof document === 'undefined' ? null : document.activeElement;
+  const within = (node as { contains?: (other: unknown) => boolean } | null)?.contains;
+  return active !== null && typeof within === 'function' && within.call(node, active);
+}
+
 /** The review of one version: the decision part, then its threads and those carried from earlier versions. */
 function ReviewContent({ design, version, userId, focus, onFocus, onShowPin, defaultWavelengthNm }: ReviewPanelProps) {
   const review = useVersionReviewQuery(design.id, version);
@@ -198,9 +205,14 @@ export function ReviewSidePanel(props: ReviewPanelProps) {
 export function ReviewSheet({ visible, ...props }: ReviewPanelProps & { visible: boolean }) {
   const insets = useSafeAreaInsets();
   const close = useRef<View>(null);
+  const sheet = useRef<View>(null);
   useEffect(() => {
     if (!visible) return;
-    const timer = setTimeout(() => focusNode(close.current), 80);
+    // Never take the focus back from a control inside the sheet: on a busy page the timer can
+    // fire after the person (or a screen reader) has already moved into it.
+    const timer = setTimeout(() => {
+      if (!holdsFocus(sheet.current)) focusNode(close.current);
+    }, 80);
     return () => clearTimeout(timer);
   }, [visible]);
   return (
@@ -212,7 +224,7 @@ export function ReviewSheet({ visible, ...props }: ReviewPanelProps & { visible:
       {...({ 'aria-label': `Review of v${props.version}` } as object)}
     >
       <View style={[styles.backdrop, { paddingTop: insets.top + space.xl }]}>
-        <View style={styles.sheet} testID="review-panel">
+        <View ref={sheet} style={styles.sheet} testID="review-panel">
           <View style={styles.titleRow}>
             <Heading level={2}>Review of v{props.version}</Heading>
             <CloseButton onPress={props.onClose} buttonRef={close} />
