@@ -160,21 +160,8 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     onDraftChange({ values, selectedNm: selectedText, presetId });
   }, [values, selectedText, presetId, onDraftChange]);
 
-  function applyPreset(preset: Preset) {
-    const previous = form.getValues();
-    form.reset(designToForm(preset.design));
-    deviationMemory.current = rememberDeviation(
-      deviationMemory.current,
-      preset.design.layout.kind,
-      String(preset.design.layout.deviationAngleDeg),
-    );
-    setPresetId(preset.id);
-    setSelectedText(String((preset.design.range.startNm + preset.design.range.endNm) / 2));
-    return previous;
-  }
-
-  /** Loads a whole design into the editor (a search candidate); returns the text it replaced, for an undo. */
-  function openDesign(design: Design) {
+  /** Loads a whole design into the editor (a preset, a search candidate); returns the text it replaced, for an undo. */
+  function openDesign(design: Design, fromPresetId: string | null = null) {
     const previous = form.getValues();
     form.reset(designToForm(design));
     deviationMemory.current = rememberDeviation(
@@ -182,9 +169,13 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
       design.layout.kind,
       String(design.layout.deviationAngleDeg),
     );
-    setPresetId(null);
+    setPresetId(fromPresetId);
     setSelectedText(String((design.range.startNm + design.range.endNm) / 2));
     return previous;
+  }
+
+  function applyPreset(preset: Preset) {
+    return openDesign(preset.design, preset.id);
   }
 
   /** Sets fields to solved values, checked like typing; returns the text they replaced, for an undo. */
