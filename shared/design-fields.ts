@@ -60,7 +60,7 @@ type FieldDescriptions<S> = {
  * The editor's sections: every part of a design but its requirements, which are limits on the
  * results rather than parameters (shared/requirements.ts describes them).
  */
-export type SectionId = Exclude<keyof Design, 'requirements'>;
+export type SectionId = Exclude<keyof Design, 'requirements' | 'filters'>;
 
 type DesignDescription = {
   [S in SectionId]-?: {

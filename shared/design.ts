@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { filtersSchema } from './filters';
 import { formatNumber } from './format';
 import { requirementsSchema } from './requirements';
 import { number, section } from './schema-words';
@@ -140,6 +141,8 @@ export const storedDesignSchema = section({
   detector: detectorSchema.optional(),
   /** What the instrument must do (shared/requirements.ts); checked, never used to compute. */
   requirements: requirementsSchema.optional(),
+  /** Order-sorting filters and where each is in the beam (shared/filters.ts). */
+  filters: filtersSchema.optional(),
 });
 
 /**

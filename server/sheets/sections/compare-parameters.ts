@@ -13,7 +13,7 @@ export const CHANGED = 'changed';
 /** The stored value at `section.key`, or undefined when the section or field is absent. */
 function valueAt(params: Design, path: string): unknown {
   const [section, key] = path.split('.') as [string, string];
-  const inner = (params as Record<string, Record<string, unknown> | undefined>)[section];
+  const inner = (params as unknown as Record<string, Record<string, unknown> | undefined>)[section];
   return inner?.[key];
 }
 
