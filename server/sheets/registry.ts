@@ -4,6 +4,7 @@ import { compareParametersSection } from './sections/compare-parameters';
 import { compareSketchSection } from './sections/compare-sketch';
 import { compareTitleSection } from './sections/compare-title';
 import { notesSection } from './sections/notes';
+import { orderSortingSection } from './sections/order-sorting';
 import { parametersSection } from './sections/parameters';
 import { performanceSection } from './sections/performance';
 import { plotsSection } from './sections/plots';
@@ -11,6 +12,7 @@ import { requirementsSection } from './sections/requirements';
 import { reviewSection } from './sections/review';
 import { sketchSection } from './sections/sketch';
 import { titleSection } from './sections/title';
+import { tradeStudySection } from './sections/trade-study';
 import { warningsSection } from './sections/warnings';
 import type { CompareSheetSection, SheetSection } from './section';
 
@@ -25,7 +27,9 @@ export const sheetSections: readonly SheetSection[] = [
   parametersSection,
   performanceSection,
   plotsSection,
+  orderSortingSection,
   requirementsSection,
+  tradeStudySection,
   warningsSection,
   notesSection,
   reviewSection,

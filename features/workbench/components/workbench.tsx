@@ -14,6 +14,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
 import { CandidateSearchPanel } from '@/features/candidates';
 import { PerformancePlots } from '@/features/plots';
+import { TradeStudyCard } from '@/features/selectors';
 import { CautionsCard } from '@/features/safety';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
 import { Card, colors, space, useLayout } from '@/features/ui';
@@ -254,6 +255,15 @@ export function Workbench({
     </Card>
   ) : null;
   const sensitivity = <SensitivityCard design={bench.design} collapsedAtFirst={layout === 'phone'} />;
+  // The grating against the simpler selectors, for this design's range and requirements.
+  const tradeStudy = (
+    <TradeStudyCard
+      design={bench.design}
+      evaluation={deferredEvaluation}
+      report={report}
+      collapsedAtFirst={layout === 'phone'}
+    />
+  );
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   // Last in every layout: what to take care of at the bench, for this design's range and source.
   const cautions = <CautionsCard design={bench.design} />;
@@ -271,6 +281,7 @@ export function Workbench({
           {requirements}
           {search}
           {sensitivity}
+          {tradeStudy}
           {readout}
           {graphics}
           {table}
@@ -303,6 +314,7 @@ export function Workbench({
           {requirements}
           {search}
           {sensitivity}
+          {tradeStudy}
           {readout}
           {table}
           {cautions}
@@ -326,6 +338,7 @@ export function Workbench({
         {requirements}
         {search}
         {sensitivity}
+        {tradeStudy}
         {readout}
         {table}
         {cautions}

@@ -1,0 +1,3 @@
+import { SelectorsScreen } from '@/features/selectors';
+
+export default SelectorsScreen;

@@ -1,0 +1,1 @@
+export { OrderSortingCard, type OrderSortingCardProps } from './components/order-sorting-card';
