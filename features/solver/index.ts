@@ -30,3 +30,8 @@ export * from './warnings';
 export * from './results';
 export * from './evaluate';
 export * from './units';
+export * from './fabry-perot';
+export * from './absorption';
+export * from './sellmeier';
+export * from './prism';
+export * from './selectors';

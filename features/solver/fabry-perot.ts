@@ -1,0 +1,213 @@
+/**
+ * Fabry–Pérot interference filter: a spacer of index n and thickness t between two mirrors of
+ * reflectance R transmits where the round trip is a whole number of wavelengths,
+ * `2 n t cos θ_t = k λ`. Sources: Hecht, Optics, §9.6; Born & Wolf, Principles of Optics, §7.6.
+ *
+ * Tilts are the angle of incidence in air; inside the spacer the ray runs at θ_t with
+ * `sin θ_t = sin θ / n` (Snell), which is where every `cos θ` below comes from. With
+ * `n_eff = n` the tilt-tuning formula and the thickness formula therefore agree exactly.
+ */
+
+import { formatNumber } from '../../shared/format';
+import {
+  SELECTOR_LIMITS,
+  type InterferenceFilterAnswer,
+  type InterferenceFilterInput,
+  type SelectorWarning,
+} from '../../shared/selectors';
+import { degToRad } from './math';
+import { freeSpectralRangeNm } from './resolving-power';
+
+/**
+ * A peak that lands on a range end within this relative distance counts as inside: `t` is
+ * computed from the target, so `2nt/m` comes back as the target only to rounding.
+ */
+const PEAK_EDGE_TOLERANCE = 1e-9;
+
+/** `cos θ_t` inside a layer of index n for an angle of incidence θ in air (0 past the critical angle). */
+function internalCos(tiltRad: number, index: number): number {
+  const s = Math.sin(tiltRad) / index;
+  return Math.sqrt(Math.max(0, 1 - s * s));
+}
+
+/**
+ * Physical spacer thickness `t = mλ / (2 n cos θ_t)`, nm, for peak order m at the target.
+ * Source: Hecht, Optics, §9.6. At normal incidence the optical thickness n·t is mλ/2.
+ */
+export function spacerThicknessNm(targetNm: number, order: number, spacerIndex: number, tiltRad = 0): number {
+  return (order * targetNm) / (2 * spacerIndex * internalCos(tiltRad, spacerIndex));
+}
+
+/**
+ * Every transmission peak `λ_k = 2nt/k` (k = 1, 2, …) inside `[startNm, endNm]` at normal
+ * incidence, ascending, at most `maxListed` of them (the shortest first); `peakCount` is the whole
+ * count, in closed form, so a wide range in a high order costs no more than a narrow one.
+ * Source: Hecht, Optics, §9.6.
+ */
+export function fabryPerotPeaksNm(
+  spacerThicknessNm: number,
+  spacerIndex: number,
+  startNm: number,
+  endNm: number,
+  maxListed: number = SELECTOR_LIMITS.maxListedPeaks,
+): { peaksNm: number[]; peakCount: number; truncated: boolean } {
+  const none = { peaksNm: [], peakCount: 0, truncated: false };
+  const roundTripNm = 2 * spacerIndex * spacerThicknessNm;
+  if (!(roundTripNm > 0) || !Number.isFinite(roundTripNm) || !(endNm >= startNm) || !(endNm > 0)) return none;
+  const lowNm = startNm * (1 - PEAK_EDGE_TOLERANCE);
+  const highNm = endNm * (1 + PEAK_EDGE_TOLERANCE);
+  // λ_k falls as k rises: the longest peak in range has the smallest k.
+  const kMin = Math.max(1, Math.ceil(roundTripNm / highNm));
+  const kMax = lowNm > 0 ? Math.floor(roundTripNm / lowNm) : Number.POSITIVE_INFINITY;
+  if (!Number.isFinite(kMax)) return none;
+  const peakCount = Math.max(0, kMax - kMin + 1);
+  const listed = Math.max(0, Math.min(peakCount, Math.floor(maxListed)));
+  const peaksNm: number[] = [];
+  for (let i = 0; i < listed; i++) peaksNm.push(roundTripNm / (kMax - i));
+  return { peaksNm, peakCount, truncated: listed < peakCount };
+}
+
+/**
+ * Reflecting finesse `π√R / (1 − R)`, the ratio of the free spectral range to the peak width for
+ * lossless, flat mirrors. Source: Hecht, Optics, §9.6. Infinite for R ≥ 1 (no light gets in).
+ */
+export function reflectingFinesse(reflectance: number): number {
+  const r = Math.max(0, reflectance);
+  if (!(r < 1)) return Number.POSITIVE_INFINITY;
+  return (Math.PI * Math.sqrt(r)) / (1 - r);
+}
+
+/** Peak FWHM ≈ FSR / finesse, nm (the high-finesse approximation). Source: Hecht, Optics, §9.6. */
+export function fabryPerotFwhmNm(freeSpectralRangeNm: number, finesse: number): number {
+  return freeSpectralRangeNm / finesse;
+}
+
+/**
+ * Peak of a tilted filter, `λ(θ) = λ₀ √(1 − (sin θ / n_eff)²)`: tilting always shortens the peak.
+ * n_eff folds the multilayer mirrors into one index (the spacer index for a bare cavity).
+ * Source: Hecht, Optics, §9.6 (the `cos θ_t` of the peak condition); common practice for n_eff.
+ */
+export function tiltedPeakNm(peakAtNormalNm: number, tiltRad: number, effectiveIndex: number): number {
+  return peakAtNormalNm * internalCos(tiltRad, effectiveIndex);
+}
+
+/**
+ * Lossless Airy transmission `1 / (1 + F sin²(δ/2))`, `F = 4R/(1 − R)²`,
+ * `δ = 4π n t cos θ_t / λ`. Source: Born & Wolf, §7.6; Hecht, §9.6. For plotting the curve;
+ * 0 where the phase cannot be formed (a wavelength that is not positive and finite).
+ */
+export function airyTransmission(
+  wavelengthNm: number,
+  spacerThicknessNm: number,
+  spacerIndex: number,
+  reflectance: number,
+  tiltRad = 0,
+): number {
+  const r = Math.min(Math.max(0, reflectance), 1);
+  // δ/2 = π × (order number); reducing the order number to its distance from the nearest whole
+  // order first keeps the sine exact at a peak even when the order number is in the millions.
+  const orderNumber = (2 * spacerIndex * spacerThicknessNm * internalCos(tiltRad, spacerIndex)) / wavelengthNm;
+  if (!Number.isFinite(orderNumber)) return 0;
+  const sinHalf = Math.sin(Math.PI * (orderNumber - Math.round(orderNumber)));
+  if (sinHalf === 0) return 1;
+  if (r >= 1) return 0;
+  const f = (4 * r) / ((1 - r) * (1 - r));
+  const t = 1 / (1 + f * sinHalf * sinHalf);
+  return Number.isFinite(t) ? t : 0;
+}
+
+/** The nearest shorter and longer peaks around order m: `λ m/(m+1)` and `λ m/(m−1)` (none for m = 1). */
+export function neighbourPeaksNm(targetNm: number, order: number): { shorterNm: number; longerNm: number | null } {
+  return {
+    shorterNm: (targetNm * order) / (order + 1),
+    longerNm: order > 1 ? (targetNm * order) / (order - 1) : null,
+  };
+}
+
+/**
+ * A Fabry–Pérot filter designed for `targetNm` in order m at normal incidence: spacer thickness,
+ * every peak in the range, finesse, FSR = λ/m, FWHM and tilt tuning, with a warning (and the
+ * blocking filter's numbers) when peaks other than the target fall in the range.
+ */
+export function designInterferenceFilter(input: InterferenceFilterInput): InterferenceFilterAnswer {
+  const { targetNm, order, spacerIndex, mirrorReflectance, rangeNm } = input;
+  const effectiveIndex = input.effectiveIndex ?? spacerIndex;
+  const thicknessNm = spacerThicknessNm(targetNm, order, spacerIndex);
+  const peaks = fabryPerotPeaksNm(thicknessNm, spacerIndex, rangeNm.startNm, rangeNm.endNm);
+  const finesse = reflectingFinesse(mirrorReflectance);
+  const fsrNm = freeSpectralRangeNm(targetNm, order);
+  const tilt = (input.tiltsDeg ?? []).map((tiltDeg) => ({
+    tiltDeg,
+    peakNm: tiltedPeakNm(targetNm, degToRad(tiltDeg), effectiveIndex),
+  }));
+  return {
+    kind: 'interference-filter',
+    spacerThicknessNm: thicknessNm,
+    peaksNm: peaks.peaksNm,
+    peakCount: peaks.peakCount,
+    peaksTruncated: peaks.truncated,
+    finesse,
+    freeSpectralRangeNm: fsrNm,
+    fwhmNm: fabryPerotFwhmNm(fsrNm, finesse),
+    tilt,
+    warnings: interferenceWarnings(input, peaks.peakCount),
+  };
+}
+
+function inRange(wavelengthNm: number, range: { startNm: number; endNm: number }): boolean {
+  return (
+    wavelengthNm >= range.startNm * (1 - PEAK_EDGE_TOLERANCE) && wavelengthNm <= range.endNm * (1 + PEAK_EDGE_TOLERANCE)
+  );
+}
+
+const nm = (value: number) => `${formatNumber(value, 5)} nm`;
+
+function interferenceWarnings(input: InterferenceFilterInput, peakCount: number): SelectorWarning[] {
+  const { targetNm, order, rangeNm } = input;
+  const warnings: SelectorWarning[] = [];
+  const targetInRange = inRange(targetNm, rangeNm);
+  if (!targetInRange) {
+    warnings.push({
+      code: 'target-outside-range',
+      message: `The target ${nm(targetNm)} lies outside the range ${nm(rangeNm.startNm)}–${nm(rangeNm.endNm)}; widen the range to see it among the peaks.`,
+    });
+  }
+  const others = peakCount - (targetInRange ? 1 : 0);
+  if (others <= 0) return warnings;
+
+  // Every other peak is an order k ≠ m of the same cavity: the shorter ones (k > m) all lie below
+  // λ m/(m+1), the longer ones (k < m) all above λ m/(m−1). One edge between the target and its
+  // nearest neighbour on each side therefore blocks a whole side.
+  const { shorterNm, longerNm } = neighbourPeaksNm(targetNm, order);
+  const roundTripNm = targetNm * order;
+  const shorterCount = Math.max(
+    0,
+    Math.floor(roundTripNm / (rangeNm.startNm * (1 - PEAK_EDGE_TOLERANCE))) -
+      Math.max(order + 1, Math.ceil(roundTripNm / (rangeNm.endNm * (1 + PEAK_EDGE_TOLERANCE)))) +
+      1,
+  );
+  const longerCount = Math.max(0, others - shorterCount);
+  const blocks: string[] = [];
+  if (shorterCount > 0) {
+    blocks.push(
+      `a long-pass whose edge lies between ${nm(shorterNm)} and ${nm(targetNm)} (cut-on near ${nm((shorterNm + targetNm) / 2)}) ` +
+        `blocks the ${shorterCount === 1 ? 'shorter peak' : `${shorterCount} shorter peaks`}`,
+    );
+  }
+  if (longerCount > 0 && longerNm !== null) {
+    blocks.push(
+      `a short-pass whose edge lies between ${nm(targetNm)} and ${nm(longerNm)} (cut-off near ${nm((targetNm + longerNm) / 2)}) ` +
+        `blocks the ${longerCount === 1 ? 'longer peak' : `${longerCount} longer peaks`}`,
+    );
+  }
+  const nearest = [shorterNm, longerNm].filter((v): v is number => v !== null && inRange(v, rangeNm));
+  warnings.push({
+    code: 'other-peaks',
+    message:
+      `${others === 1 ? 'One other transmission peak falls' : `${others} other transmission peaks fall`} in ` +
+      `${nm(rangeNm.startNm)}–${nm(rangeNm.endNm)}` +
+      (nearest.length > 0 ? ` (nearest to the target: ${nearest.map(nm).join(' and ')})` : '') +
+      `. Add a blocking filter: ${blocks.join('; ')}.`,
+  });
+  return warnings;
+}
