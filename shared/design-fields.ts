@@ -354,7 +354,8 @@ function objectShape(schema: z.ZodType): Record<string, z.ZodType> {
 
 /** Every section and field of the design in the schema's order, with its description. */
 export const describedSections: readonly DescribedSection[] = Object.entries(designSchema.shape)
-  .filter(([id]) => id !== 'requirements')
+  // Requirements and filters are lists and limits beside the parameters, described on their own.
+  .filter(([id]) => id !== 'requirements' && id !== 'filters')
   .map(([id, sectionSchema]) => {
     const section = designDescription[id as SectionId];
     const descriptions = section.fields as Record<
