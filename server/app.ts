@@ -17,6 +17,7 @@ import { createReviews } from './reviews/index';
 import { createSheets } from './sheets/index';
 import { openApiRoute } from './openapi';
 import { searchRoute } from './search/router';
+import { selectorsRoute, type SelectorRateLimits } from './selectors/router';
 import { solveRoute } from './solve/router';
 import { createTeams } from './teams/index';
 
@@ -38,8 +39,8 @@ export type AppDeps = {
   publicUrl?: () => string;
   /** PUBLIC_URL's origin, when configured: the only Origin state-changing requests may carry. */
   trustedOrigin?: string;
-  /** Sign-in, sign-up, reset and solve limits; tests inject small ones. */
-  rateLimits?: Partial<RateLimits>;
+  /** Sign-in, sign-up, reset, solve, search and selectors limits; tests inject small ones. */
+  rateLimits?: Partial<RateLimits & SelectorRateLimits>;
   /** argon2id for account passwords; left out, OWASP's minimum cost (server/index.ts leaves it out). */
   passwords?: PasswordHasher;
 };
@@ -135,6 +136,7 @@ export function createApp(deps: AppDeps) {
           outbox: deps.nodeEnv === 'production' ? null : outboxRoute(createOutboxRepository(deps.database.db, deps.clock), { trustedOrigin: deps.trustedOrigin }),
         },
         search: { run: searchRoute(deps.rateLimits) },
+        selectors: { run: selectorsRoute(deps.rateLimits) },
       },
       { signedIn },
     ),

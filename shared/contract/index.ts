@@ -4,6 +4,7 @@ import { notebooks } from './notebooks';
 import { platform } from './platform';
 import { reviews } from './reviews';
 import { search } from './search';
+import { selectors } from './selectors';
 import { sheets } from './sheets';
 import { describe, type Route } from './route';
 import { teams } from './teams';
@@ -15,7 +16,7 @@ export type { Access, Method, Route, RouteAnswer, RouteArgs, RouteInput, RouteMe
  * Every route of the HTTP API, described once. Group and route names are the OpenAPI
  * operation ids (`notebooks.saveVersion`) and the first two items of each TanStack Query key.
  */
-export const apiContract = { accounts, teams, notebooks, reviews, sheets, inbox, platform, search };
+export const apiContract = { accounts, teams, notebooks, reviews, sheets, inbox, platform, search, selectors };
 export type ApiContract = typeof apiContract;
 
 export type RouteEntry = { name: string; route: Route } & ReturnType<typeof describe>;
