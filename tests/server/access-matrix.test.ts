@@ -113,6 +113,7 @@ const matrix: Record<string, Row> = {
       },
     }),
   },
+  'selectors.run': { prepare: async () => ({ body: { kind: 'prism', material: 'fused-silica', apexDeg: 60, baseMm: 50, wavelengthsNm: [587.6] } }) },
 
   'accounts.session': {},
   'accounts.signUp': {

@@ -100,7 +100,7 @@ let targets: Record<string, Target>;
 
 beforeAll(async () => {
   fx = await createNotebookFixture({
-    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9 },
+    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9 },
   });
   server = createServer(fx.ctx.app).listen(0, '127.0.0.1');
   for (const who of ['owner', 'reviewer'] as const) {
@@ -129,6 +129,22 @@ beforeAll(async () => {
         detector: exampleDesign.detector,
         requirements: { maxBandpassNm: 1, minBlazeEfficiency: 0.2 },
         search: { grooveDensitiesPerMm: [600], blazeWavelengthsNm: [500], maxOrder: 1, deviationAnglesDeg: [20], focalLengthsMm: [300], top: 1 },
+      },
+    },
+    // A prism of a user-entered Sellmeier formula with the optional slits: the kind with the most
+    // arithmetic a poisoned number can reach (a pole at C, a negative n², a prism past total reflection).
+    'POST /api/selectors': {
+      as: 'anonymous',
+      body: {
+        kind: 'prism',
+        material: { sellmeier: { B: [0.6961663, 0.4079426, 0.8974794], C: [0.0684043, 0.1162414, 9.896161] } },
+        apexDeg: 60,
+        baseMm: 50,
+        wavelengthsNm: [250, 587.6, 2000],
+        collimatorFocalMm: 300,
+        cameraFocalMm: 300,
+        entranceWidthUm: 50,
+        exitWidthUm: 50,
       },
     },
     'POST /api/auth/sign-up': { as: 'anonymous', body: { email: 'fuzz@example.com', displayName: 'Fuzz', password: 'a long enough password' } },
@@ -196,6 +212,7 @@ describe('random and poisoned JSON bodies', () => {
 describe.each([
   'POST /api/solve',
   'POST /api/search',
+  'POST /api/selectors',
   'POST /api/auth/sign-up',
   'POST /api/auth/sign-in',
   'POST /api/auth/password-reset',
