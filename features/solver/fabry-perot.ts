@@ -20,9 +20,10 @@ import { freeSpectralRangeNm } from './resolving-power';
 
 /**
  * A peak that lands on a range end within this relative distance counts as inside: `t` is
- * computed from the target, so `2nt/m` comes back as the target only to rounding.
+ * computed from the target, so `2nt/m` comes back as the target only to rounding. Small enough
+ * that even at k ≈ 10⁹ it admits no whole order beyond the range.
  */
-const PEAK_EDGE_TOLERANCE = 1e-9;
+const PEAK_EDGE_TOLERANCE = 1e-12;
 
 /** `cos θ_t` inside a layer of index n for an angle of incidence θ in air (0 past the critical angle). */
 function internalCos(tiltRad: number, index: number): number {
@@ -39,6 +40,24 @@ export function spacerThicknessNm(targetNm: number, order: number, spacerIndex: 
 }
 
 /**
+ * The whole orders k whose peaks `λ_k = 2nt/k` lie in `[startNm, endNm]` (ends included to
+ * rounding): `kMin = ⌈2nt/end⌉` (at least 1) to `kMax = ⌊2nt/start⌋`; null when the round trip
+ * or the range cannot be used (a range reaching 0 nm holds infinitely many peaks).
+ */
+function peakOrderSpan(
+  roundTripNm: number,
+  startNm: number,
+  endNm: number,
+): { roundTripNm: number; kMin: number; kMax: number } | null {
+  if (!(roundTripNm > 0) || !Number.isFinite(roundTripNm) || !(endNm >= startNm) || !(startNm > 0)) return null;
+  // λ_k falls as k rises: the longest peak in range has the smallest k.
+  const kMin = Math.max(1, Math.ceil(roundTripNm / (endNm * (1 + PEAK_EDGE_TOLERANCE))));
+  const kMax = Math.floor(roundTripNm / (startNm * (1 - PEAK_EDGE_TOLERANCE)));
+  if (!Number.isFinite(kMax)) return null;
+  return { roundTripNm, kMin, kMax };
+}
+
+/**
  * Every transmission peak `λ_k = 2nt/k` (k = 1, 2, …) inside `[startNm, endNm]` at normal
  * incidence, ascending, at most `maxListed` of them (the shortest first); `peakCount` is the whole
  * count, in closed form, so a wide range in a high order costs no more than a narrow one.
@@ -51,15 +70,9 @@ export function fabryPerotPeaksNm(
   endNm: number,
   maxListed: number = SELECTOR_LIMITS.maxListedPeaks,
 ): { peaksNm: number[]; peakCount: number; truncated: boolean } {
-  const none = { peaksNm: [], peakCount: 0, truncated: false };
-  const roundTripNm = 2 * spacerIndex * spacerThicknessNm;
-  if (!(roundTripNm > 0) || !Number.isFinite(roundTripNm) || !(endNm >= startNm) || !(endNm > 0)) return none;
-  const lowNm = startNm * (1 - PEAK_EDGE_TOLERANCE);
-  const highNm = endNm * (1 + PEAK_EDGE_TOLERANCE);
-  // λ_k falls as k rises: the longest peak in range has the smallest k.
-  const kMin = Math.max(1, Math.ceil(roundTripNm / highNm));
-  const kMax = lowNm > 0 ? Math.floor(roundTripNm / lowNm) : Number.POSITIVE_INFINITY;
-  if (!Number.isFinite(kMax)) return none;
+  const span = peakOrderSpan(2 * spacerIndex * spacerThicknessNm, startNm, endNm);
+  if (span === null) return { peaksNm: [], peakCount: 0, truncated: false };
+  const { roundTripNm, kMin, kMax } = span;
   const peakCount = Math.max(0, kMax - kMin + 1);
   const listed = Math.max(0, Math.min(peakCount, Math.floor(maxListed)));
   const peaksNm: number[] = [];
@@ -179,13 +192,8 @@ function interferenceWarnings(input: InterferenceFilterInput, peakCount: number)
   // λ m/(m+1), the longer ones (k < m) all above λ m/(m−1). One edge between the target and its
   // nearest neighbour on each side therefore blocks a whole side.
   const { shorterNm, longerNm } = neighbourPeaksNm(targetNm, order);
-  const roundTripNm = targetNm * order;
-  const shorterCount = Math.max(
-    0,
-    Math.floor(roundTripNm / (rangeNm.startNm * (1 - PEAK_EDGE_TOLERANCE))) -
-      Math.max(order + 1, Math.ceil(roundTripNm / (rangeNm.endNm * (1 + PEAK_EDGE_TOLERANCE)))) +
-      1,
-  );
+  const span = peakOrderSpan(targetNm * order, rangeNm.startNm, rangeNm.endNm);
+  const shorterCount = span === null ? 0 : Math.max(0, span.kMax - Math.max(order + 1, span.kMin) + 1);
   const longerCount = Math.max(0, others - shorterCount);
   const blocks: string[] = [];
   if (shorterCount > 0) {

@@ -18,6 +18,13 @@ import { resolvePrismMaterial, sellmeierDnDlambdaPerNm, sellmeierIndex } from '.
 /** Wavelengths named in one warning before "and N more". */
 const LISTED_IN_WARNING = 5;
 
+/**
+ * `n sin(A/2)` at or above this counts as grazing: the ray then skims the faces (within about
+ * 1.4 µrad), carries no light, and `1/√(1 − n² sin²(A/2))` is rounding noise — n = 2 on a 60°
+ * prism gives 0.9999999999999999 in floating point, which is exactly grazing.
+ */
+const GRAZING_SINE = 1 - 1e-12;
+
 /** `n sin(A/2)`: the sine of the angle of incidence (and of exit) at minimum deviation. */
 function minDeviationSine(index: number, apexRad: number): number {
   return index * Math.sin(apexRad / 2);
@@ -30,7 +37,7 @@ function minDeviationSine(index: number, apexRad: number): number {
  */
 export function prismMinDeviationRad(index: number, apexRad: number): number | null {
   const s = minDeviationSine(index, apexRad);
-  if (!(s < 1) || !(s > -1) || !Number.isFinite(apexRad)) return null;
+  if (!(s < GRAZING_SINE) || !(s > -GRAZING_SINE) || !Number.isFinite(apexRad)) return null;
   return 2 * Math.asin(s) - apexRad;
 }
 
@@ -40,8 +47,8 @@ export function prismMinDeviationRad(index: number, apexRad: number): number | n
  */
 export function prismAngularDispersionRadPerNm(index: number, dnDlambdaPerNm: number, apexRad: number): number | null {
   const s = minDeviationSine(index, apexRad);
+  if (!(Math.abs(s) < GRAZING_SINE)) return null;
   const cosine2 = 1 - s * s;
-  if (!(cosine2 > 0)) return null;
   const value = ((2 * Math.sin(apexRad / 2)) / Math.sqrt(cosine2)) * Math.abs(dnDlambdaPerNm);
   return Number.isFinite(value) ? Math.abs(value) : null;
 }
