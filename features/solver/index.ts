@@ -35,3 +35,4 @@ export * from './absorption';
 export * from './sellmeier';
 export * from './prism';
 export * from './selectors';
+export * from './trade-study';
