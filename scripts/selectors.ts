@@ -78,8 +78,9 @@ kind "absorption-stack" (coloured-glass filters in series; Beer–Lambert)
                           upperEdgeNm (band-pass only), edgeWidthNm (10–90 %), peakInternalTransmission,
                           referenceThicknessMm, thicknessMm, refractiveIndex }
        wavelengthsNm      1 to ${SELECTOR_LIMITS.maxWavelengths} wavelengths, nm
-  out: points             [{ wavelengthNm, transmission }]: the product of each filter's
-                          T_ref^(t/t_ref) and its two surfaces' (1 − ((n−1)/(n+1))²)
+  out: points             [{ wavelengthNm, transmission }]: the product over the filters of the
+                          internal transmittance (a logistic edge below a plateau) scaled as
+                          T_ref^(t/t_ref), times (1 − ((n−1)/(n+1))²)² for the two surfaces
        peakTransmission   the highest transmission among the points
   e.g. ${example('absorption-stack')}
 
@@ -95,7 +96,8 @@ kind "prism" (at minimum deviation; Born & Wolf, Hecht)
   out: material           { id, label, source, validFromNm, validToNm }
        points             [{ wavelengthNm, index, dnDlambdaPerNm, minDeviationDeg,
                           angularDispersionDegPerNm, resolvingPower (b |dn/dλ|), bandpassNm, reason }];
-                          null figures with a reason where the prism passes no light
+                          null figures with a reason where the formula gives no real index
+                          or the prism passes no light (past total internal reflection)
   e.g. ${example('prism')}
 
 The same schema and limits as POST /api/selectors.`;
