@@ -9,7 +9,7 @@
  * these filters are chosen by.
  */
 
-import { formatNumber, formatPercent } from '../../shared/format';
+import { formatNumber } from '../../shared/format';
 import type {
   AbsorptionFilter,
   AbsorptionStackAnswer,
@@ -105,7 +105,7 @@ export function absorptionStack(input: AbsorptionStackInput): AbsorptionStackAns
     warnings.push({
       code: 'low-peak',
       message:
-        `The stack passes at most ${formatPercent(peak.transmission, { maximumFractionDigits: 1 })} ` +
+        `The stack passes at most ${formatNumber(100 * peak.transmission, 3)} % ` +
         `(at ${formatNumber(peak.wavelengthNm, 5)} nm) of the wavelengths given; ` +
         'use thinner filters or fewer of them, or check that the band you want lies between the edges.',
     });

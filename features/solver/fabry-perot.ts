@@ -8,7 +8,7 @@
  * `n_eff = n` the tilt-tuning formula and the thickness formula therefore agree exactly.
  */
 
-import { formatNumber } from '../../shared/format';
+import { formatInteger, formatNumber } from '../../shared/format';
 import {
   SELECTOR_LIMITS,
   type InterferenceFilterAnswer,
@@ -19,11 +19,14 @@ import { degToRad } from './math';
 import { freeSpectralRangeNm } from './resolving-power';
 
 /**
- * A peak that lands on a range end within this relative distance counts as inside: `t` is
- * computed from the target, so `2nt/m` comes back as the target only to rounding. Small enough
- * that even at k ≈ 10⁹ it admits no whole order beyond the range.
+ * How far a computed order number `2nt/λ` may sit from a whole number and still count as that
+ * order (a peak on a range end is inside; `t` is computed from the target, so `2nt/m` comes back
+ * as the target only to rounding): its own rounding (a few ulps, which grows with the order number), and never less than
+ * 1e-9 — far below the spacing of 1 between orders, so no order outside the range slips in.
  */
-const PEAK_EDGE_TOLERANCE = 1e-12;
+function orderRounding(orderNumber: number): number {
+  return Math.max(1e-9, 8 * Number.EPSILON * orderNumber);
+}
 
 /** `cos θ_t` inside a layer of index n for an angle of incidence θ in air (0 past the critical angle). */
 function internalCos(tiltRad: number, index: number): number {
@@ -51,17 +54,20 @@ function peakOrderSpan(
 ): { roundTripNm: number; kMin: number; kMax: number } | null {
   if (!(roundTripNm > 0) || !Number.isFinite(roundTripNm) || !(endNm >= startNm) || !(startNm > 0)) return null;
   // λ_k falls as k rises: the longest peak in range has the smallest k.
-  const kMin = Math.max(1, Math.ceil(roundTripNm / (endNm * (1 + PEAK_EDGE_TOLERANCE))));
-  const kMax = Math.floor(roundTripNm / (startNm * (1 - PEAK_EDGE_TOLERANCE)));
+  const lowestOrder = roundTripNm / endNm;
+  const highestOrder = roundTripNm / startNm;
+  const kMin = Math.max(1, Math.ceil(lowestOrder - orderRounding(lowestOrder)));
+  const kMax = Math.floor(highestOrder + orderRounding(highestOrder));
   if (!Number.isFinite(kMax)) return null;
   return { roundTripNm, kMin, kMax };
 }
 
 /**
  * Every transmission peak `λ_k = 2nt/k` (k = 1, 2, …) inside `[startNm, endNm]` at normal
- * incidence, ascending, at most `maxListed` of them (the shortest first); `peakCount` is the whole
- * count, in closed form, so a wide range in a high order costs no more than a narrow one.
- * Source: Hecht, Optics, §9.6.
+ * incidence, ascending; `peakCount` is the whole count, in closed form, so a wide range in a high
+ * order costs no more than a narrow one. When more than `maxListed` fall in the range, the listed
+ * ones are consecutive orders centred on the peak nearest `aroundNm` (the target), or the longest
+ * (lowest-order, widest-spaced) peaks without it. Source: Hecht, Optics, §9.6.
  */
 export function fabryPerotPeaksNm(
   spacerThicknessNm: number,
@@ -69,14 +75,19 @@ export function fabryPerotPeaksNm(
   startNm: number,
   endNm: number,
   maxListed: number = SELECTOR_LIMITS.maxListedPeaks,
+  aroundNm?: number,
 ): { peaksNm: number[]; peakCount: number; truncated: boolean } {
   const span = peakOrderSpan(2 * spacerIndex * spacerThicknessNm, startNm, endNm);
   if (span === null) return { peaksNm: [], peakCount: 0, truncated: false };
   const { roundTripNm, kMin, kMax } = span;
   const peakCount = Math.max(0, kMax - kMin + 1);
   const listed = Math.max(0, Math.min(peakCount, Math.floor(maxListed)));
+  const aroundK = aroundNm !== undefined && aroundNm > 0 ? Math.round(roundTripNm / aroundNm) : kMin;
+  const centreK = Number.isFinite(aroundK) ? Math.min(Math.max(aroundK, kMin), kMax) : kMin;
+  const lowK = Math.max(kMin, Math.min(centreK - Math.floor(listed / 2), kMax - listed + 1));
   const peaksNm: number[] = [];
-  for (let i = 0; i < listed; i++) peaksNm.push(roundTripNm / (kMax - i));
+  // Highest order first: the shortest wavelength first.
+  for (let k = lowK + listed - 1; k >= lowK; k--) peaksNm.push(roundTripNm / k);
   return { peaksNm, peakCount, truncated: listed < peakCount };
 }
 
@@ -146,7 +157,14 @@ export function designInterferenceFilter(input: InterferenceFilterInput): Interf
   const { targetNm, order, spacerIndex, mirrorReflectance, rangeNm } = input;
   const effectiveIndex = input.effectiveIndex ?? spacerIndex;
   const thicknessNm = spacerThicknessNm(targetNm, order, spacerIndex);
-  const peaks = fabryPerotPeaksNm(thicknessNm, spacerIndex, rangeNm.startNm, rangeNm.endNm);
+  const peaks = fabryPerotPeaksNm(
+    thicknessNm,
+    spacerIndex,
+    rangeNm.startNm,
+    rangeNm.endNm,
+    SELECTOR_LIMITS.maxListedPeaks,
+    targetNm,
+  );
   const finesse = reflectingFinesse(mirrorReflectance);
   const fsrNm = freeSpectralRangeNm(targetNm, order);
   const tilt = (input.tiltsDeg ?? []).map((tiltDeg) => ({
@@ -163,26 +181,46 @@ export function designInterferenceFilter(input: InterferenceFilterInput): Interf
     freeSpectralRangeNm: fsrNm,
     fwhmNm: fabryPerotFwhmNm(fsrNm, finesse),
     tilt,
-    warnings: interferenceWarnings(input, peaks.peakCount),
+    warnings: interferenceWarnings(
+      input,
+      peakOrderSpan(2 * spacerIndex * thicknessNm, rangeNm.startNm, rangeNm.endNm),
+      finesse,
+    ),
   };
 }
 
-function inRange(wavelengthNm: number, range: { startNm: number; endNm: number }): boolean {
-  return (
-    wavelengthNm >= range.startNm * (1 - PEAK_EDGE_TOLERANCE) && wavelengthNm <= range.endNm * (1 + PEAK_EDGE_TOLERANCE)
-  );
-}
+/**
+ * Below this finesse FSR/finesse is more than about 2 % off the Airy function's true half-height
+ * width (5 → 1.7 %, 2 → 15 %; Born & Wolf, §7.6, solved for T = ½), and the filter barely selects.
+ */
+export const LOW_FINESSE = 5;
 
 const nm = (value: number) => `${formatNumber(value, 5)} nm`;
 
-function interferenceWarnings(input: InterferenceFilterInput, peakCount: number): SelectorWarning[] {
+function interferenceWarnings(
+  input: InterferenceFilterInput,
+  span: ReturnType<typeof peakOrderSpan>,
+  finesse: number,
+): SelectorWarning[] {
   const { targetNm, order, rangeNm } = input;
   const warnings: SelectorWarning[] = [];
-  const targetInRange = inRange(targetNm, rangeNm);
+  // Judged by order number, exactly as the peak list is, so the target is never counted twice.
+  const orderInRange = (k: number) => span !== null && k >= span.kMin && k <= span.kMax;
+  const peakCount = span === null ? 0 : Math.max(0, span.kMax - span.kMin + 1);
+  const targetInRange = orderInRange(order);
   if (!targetInRange) {
     warnings.push({
       code: 'target-outside-range',
       message: `The target ${nm(targetNm)} lies outside the range ${nm(rangeNm.startNm)}–${nm(rangeNm.endNm)}; widen the range to see it among the peaks.`,
+    });
+  }
+  if (finesse < LOW_FINESSE) {
+    warnings.push({
+      code: 'low-finesse',
+      message:
+        `With R = ${formatNumber(input.mirrorReflectance, 4)} the finesse is only ${formatNumber(finesse, 3)}: the peaks are broad ` +
+        'and FWHM ≈ FSR/finesse understates their width (below R ≈ 0.17 the transmission never falls to half between ' +
+        'peaks). Use mirrors of higher reflectance for a narrow-band filter.',
     });
   }
   const others = peakCount - (targetInRange ? 1 : 0);
@@ -192,27 +230,29 @@ function interferenceWarnings(input: InterferenceFilterInput, peakCount: number)
   // λ m/(m+1), the longer ones (k < m) all above λ m/(m−1). One edge between the target and its
   // nearest neighbour on each side therefore blocks a whole side.
   const { shorterNm, longerNm } = neighbourPeaksNm(targetNm, order);
-  const span = peakOrderSpan(targetNm * order, rangeNm.startNm, rangeNm.endNm);
   const shorterCount = span === null ? 0 : Math.max(0, span.kMax - Math.max(order + 1, span.kMin) + 1);
   const longerCount = Math.max(0, others - shorterCount);
   const blocks: string[] = [];
   if (shorterCount > 0) {
     blocks.push(
       `a long-pass whose edge lies between ${nm(shorterNm)} and ${nm(targetNm)} (cut-on near ${nm((shorterNm + targetNm) / 2)}) ` +
-        `blocks the ${shorterCount === 1 ? 'shorter peak' : `${shorterCount} shorter peaks`}`,
+        `blocks the ${shorterCount === 1 ? 'shorter peak' : `${formatInteger(shorterCount)} shorter peaks`}`,
     );
   }
   if (longerCount > 0 && longerNm !== null) {
     blocks.push(
       `a short-pass whose edge lies between ${nm(targetNm)} and ${nm(longerNm)} (cut-off near ${nm((targetNm + longerNm) / 2)}) ` +
-        `blocks the ${longerCount === 1 ? 'longer peak' : `${longerCount} longer peaks`}`,
+        `blocks the ${longerCount === 1 ? 'longer peak' : `${formatInteger(longerCount)} longer peaks`}`,
     );
   }
-  const nearest = [shorterNm, longerNm].filter((v): v is number => v !== null && inRange(v, rangeNm));
+  const nearest = [
+    ...(longerNm !== null && orderInRange(order - 1) ? [longerNm] : []),
+    ...(orderInRange(order + 1) ? [shorterNm] : []),
+  ].sort((a, b) => a - b);
   warnings.push({
     code: 'other-peaks',
     message:
-      `${others === 1 ? 'One other transmission peak falls' : `${others} other transmission peaks fall`} in ` +
+      `${others === 1 ? 'One other transmission peak falls' : `${formatInteger(others)} other transmission peaks fall`} in ` +
       `${nm(rangeNm.startNm)}–${nm(rangeNm.endNm)}` +
       (nearest.length > 0 ? ` (nearest to the target: ${nearest.map(nm).join(' and ')})` : '') +
       `. Add a blocking filter: ${blocks.join('; ')}.`,

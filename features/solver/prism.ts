@@ -132,7 +132,7 @@ export function prismPoint(
       prismBandpassNm(dispersionRadPerNm, mono.cameraFocalMm, mono.collimatorFocalMm, mono.entranceWidthUm, mono.exitWidthUm),
     );
     if (bandpass === null) {
-      reason = `The prism does not disperse at ${formatNumber(wavelengthNm, 5)} nm (dn/dλ = 0), so the bandpass is unbounded.`;
+      reason = `The prism does not disperse at ${formatNumber(wavelengthNm, 5)} nm (zero angular dispersion), so the slit bandpass is unbounded.`;
     }
   }
   return {

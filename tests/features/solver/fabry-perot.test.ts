@@ -63,8 +63,32 @@ describe('Fabry–Pérot spacer and peaks', () => {
     expect(peaks.peakCount).toBe(1_000_000_000);
     expect(peaks.truncated).toBe(true);
     expect(peaks.peaksNm).toHaveLength(200);
-    expectClose(peaks.peaksNm[0], 0.001, 1e-12); // k = 10⁹
-    expect(peaks.peaksNm[1]!).toBeGreaterThan(peaks.peaksNm[0]!);
+    // Without a target the longest peaks are listed: k = 200 … 1, i.e. 5000 nm … 10⁶ nm, ascending.
+    expectClose(peaks.peaksNm[0], 5000, 1e-12);
+    expectClose(peaks.peaksNm[199], 1e6, 1e-12);
+  });
+
+  it('when truncated, lists the orders around the target', () => {
+    // 2nt = 10⁶ nm; around 1000 nm is k = 1000, so k = 1099 … 900 are listed (200 of them):
+    // 10⁶/1099 = 909.918 nm up to 10⁶/900 = 1111.111 nm, with 1000 nm among them.
+    const peaks = fabryPerotPeaksNm(500_000, 1, 0.001, 1e7, 200, 1000);
+    expect(peaks.peaksNm).toHaveLength(200);
+    expectClose(peaks.peaksNm[0], 909.918107, 1e-8);
+    expectClose(peaks.peaksNm[199], 1111.111111, 1e-8);
+    expect(peaks.peaksNm.some((p) => Math.abs(p - 1000) < 1e-9)).toBe(true);
+    // Near an end of the range the window stops at the end: around 10⁷ nm → k = 1 … 200 (longest).
+    expectClose(fabryPerotPeaksNm(500_000, 1, 0.001, 1e7, 200, 1e7).peaksNm[199], 1e6, 1e-12);
+    // A design in order 1000 over the widest range lists its own target among the peaks.
+    const answer = designInterferenceFilter(filter({ targetNm: 1000, order: 1000, spacerIndex: 1, rangeNm: { startNm: 0.001, endNm: 1e7 } }));
+    expect(answer.peaksTruncated).toBe(true);
+    expect(answer.peaksNm.some((p) => Math.abs(p - 1000) < 1e-9)).toBe(true);
+    for (let i = 1; i < answer.peaksNm.length; i++) expect(answer.peaksNm[i]!).toBeGreaterThan(answer.peaksNm[i - 1]!);
+  });
+
+  it('counts 10¹³ peaks exactly, with none beyond the range', () => {
+    // 2nt = 10¹⁰ nm (order 1000 at 10⁷ nm, n = 1): k from ⌈10¹⁰/10⁷⌉ = 1000 to ⌊10¹⁰/0.001⌋ = 10¹³,
+    // so 10¹³ − 999 peaks.
+    expect(fabryPerotPeaksNm(5e9, 1, 0.001, 1e7).peakCount).toBe(1e13 - 999);
   });
 
   it('gives no peaks for an empty or unusable range rather than throwing', () => {
@@ -161,6 +185,12 @@ describe('interference filter design warnings', () => {
     expect(answer.peaksNm).toHaveLength(1);
     expectClose(answer.peaksNm[0], 500, 1e-12);
     expect(answer.warnings).toEqual([]);
+  });
+
+  it('warns of low finesse, where FSR/finesse understates the width', () => {
+    // R = 0.5 → finesse 4.44 < 5: the Airy half-width is ~2 % wider than FSR/finesse (Born & Wolf, §7.6).
+    expect(designInterferenceFilter(filter({ mirrorReflectance: 0.5 })).warnings.map((w) => w.code)).toContain('low-finesse');
+    expect(designInterferenceFilter(filter({ mirrorReflectance: 0.7 })).warnings.map((w) => w.code)).not.toContain('low-finesse');
   });
 
   it('says so when the target is outside the range', () => {
