@@ -20,9 +20,9 @@ import { freeSpectralRangeNm } from './resolving-power';
 
 /**
  * How far a computed order number `2nt/λ` may sit from a whole number and still count as that
- * order (a peak on a range end is inside; `t` is computed from the target, so `2nt/m` comes back
- * as the target only to rounding): its own rounding (a few ulps, which grows with the order number), and never less than
- * 1e-9 — far below the spacing of 1 between orders, so no order outside the range slips in.
+ * order, so a peak on a range end is inside (`t` is computed from the target, so `2nt/m` comes
+ * back as the target only to rounding): a few ulps of the order number, and never less than 1e-9 —
+ * far below the spacing of 1 between orders, so no order outside the range slips in.
  */
 function orderRounding(orderNumber: number): number {
   return Math.max(1e-9, 8 * Number.EPSILON * orderNumber);
@@ -127,6 +127,7 @@ export function airyTransmission(
   reflectance: number,
   tiltRad = 0,
 ): number {
+  if (!(wavelengthNm > 0) || !Number.isFinite(wavelengthNm)) return 0;
   const r = Math.min(Math.max(0, reflectance), 1);
   // δ/2 = π × (order number); reducing the order number to its distance from the nearest whole
   // order first keeps the sine exact at a peak even when the order number is in the millions.
@@ -190,7 +191,7 @@ export function designInterferenceFilter(input: InterferenceFilterInput): Interf
 }
 
 /**
- * Below this finesse FSR/finesse is more than about 2 % off the Airy function's true half-height
+ * Below this finesse FSR/finesse is more than about 1.7 % off the Airy function's true half-height
  * width (5 → 1.7 %, 2 → 15 %; Born & Wolf, §7.6, solved for T = ½), and the filter barely selects.
  */
 export const LOW_FINESSE = 5;

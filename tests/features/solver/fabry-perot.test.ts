@@ -198,3 +198,29 @@ describe('interference filter design warnings', () => {
     expect(answer.warnings.map((w) => w.code)).toContain('target-outside-range');
   });
 });
+
+describe('Fabry–Pérot edge inputs', () => {
+  it('R = 0.999999 in order 1000 stays finite: finesse ≈ 3.1416e6, Airy 1 at the peak, tiny between', () => {
+    // π√R/(1 − R) = π·0.9999995/1e-6 = 3.141591e6 (Hecht, §9.6); F = 4R/(1 − R)² ≈ 4e12.
+    expectClose(reflectingFinesse(0.999999), 3.141591e6, 1e-6);
+    const t = spacerThicknessNm(500, 1000, 1.5); // 2nt = 5e5 nm
+    // The order-number reduction keeps the peak exact even in order 1000.
+    expectClose(airyTransmission(500, t, 1.5, 0.999999), 1, 1e-9);
+    // Half-way to the next order, 1/(1 + F) ≈ 2.5e-13.
+    expectClose(airyTransmission(5e5 / 1000.5, t, 1.5, 0.999999), 1 / (1 + 4 * 0.999999 / 1e-12), 1e-6);
+  });
+
+  it.each([0.001, 1e7, 0, -5, Number.NaN, Number.POSITIVE_INFINITY])('the Airy function at %s nm is a number in [0, 1]', (wavelengthNm) => {
+    const value = airyTransmission(wavelengthNm, 5e5, 1.5, 0.9);
+    expect(Number.isFinite(value)).toBe(true);
+    expect(value).toBeGreaterThanOrEqual(0);
+    expect(value).toBeLessThanOrEqual(1);
+    if (!(wavelengthNm > 0 && wavelengthNm < Number.POSITIVE_INFINITY)) expect(value).toBe(0); // no phase to form
+  });
+
+  it('tilting beyond what n_eff allows gives 0 nm, not NaN', () => {
+    // n_eff = 1 at 90°: √(1 − 1) = 0 (the formula's own limit).
+    expectClose(tiltedPeakNm(500, deg(90), 1), 0, 0, 1e-9);
+    expect(tiltedPeakNm(500, deg(90), 0.5)).toBe(0);
+  });
+});
