@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { designSchema, type Design, type LayoutKind } from './design';
+import type { OrderSortingFilter } from './filters';
 import { describeRequirementPath } from './requirements';
 
 /**
@@ -397,8 +398,56 @@ export const layoutKindOptions: readonly { value: LayoutKind; label: string; des
     return Object.entries(kind.options).map(([value, words]) => ({ value: value as LayoutKind, ...words }));
   })();
 
+/**
+ * Words for an order-sorting filter's fields (shared/filters.ts): the filter card's labels, the
+ * compare and conflict tables' names, and how a schema message says the field ("must be greater
+ * than the “in the beam from” setting"). Keyed by the filter's type, so a new field needs words.
+ */
+export const filterFieldWords: Readonly<
+  Record<keyof OrderSortingFilter, { label: string; short: string; unitLabel: string; spoken: string }>
+> = {
+  kind: { label: 'Kind', short: 'kind', unitLabel: '', spoken: 'the kind' },
+  cutOnNm: { label: 'Cut-on', short: 'cut-on', unitLabel: 'nm', spoken: 'the cut-on' },
+  inFromNm: { label: 'In the beam from', short: 'in the beam from', unitLabel: 'nm', spoken: 'the “in the beam from” setting' },
+  inToNm: { label: 'In the beam to', short: 'in the beam to', unitLabel: 'nm', spoken: 'the “in the beam to” setting' },
+  edgeWidthNm: { label: 'Edge width', short: 'edge width', unitLabel: 'nm', spoken: 'the edge width' },
+};
+
+const FILTER_PATH = /^filters(?:\.(\d+)(?:\.([A-Za-z]+))?)?$/;
+
+/** A `filters.…` path split into the filter's place (0-based) and field; null for other paths. */
+export function filterPathParts(path: string): { index: number | null; key: keyof OrderSortingFilter | null } | null {
+  const match = FILTER_PATH.exec(path);
+  if (!match) return null;
+  const key = match[2];
+  return {
+    index: match[1] === undefined ? null : Number(match[1]),
+    key: key !== undefined && key in filterFieldWords ? (key as keyof OrderSortingFilter) : null,
+  };
+}
+
+/**
+ * A filter path as the compare and conflict tables name it, counting filters from 1 as the card
+ * does: `filters.1.cutOnNm` → "Filter 2: cut-on (nm)", `filters.0` → "Filter 1", `filters` →
+ * "Filters"; null for other paths.
+ */
+export function describeFilterPath(path: string): string | null {
+  const parts = filterPathParts(path);
+  if (!parts) return null;
+  if (parts.index === null) return 'Filters';
+  const head = `Filter ${parts.index + 1}`;
+  if (parts.key === null) return head;
+  const words = filterFieldWords[parts.key];
+  return `${head}: ${words.short}${words.unitLabel ? ` (${words.unitLabel})` : ''}`;
+}
+
 /** The editor's label for a field path, for "fix <field>" notes; the path itself when unknown. */
 export function fieldLabel(path: string): string {
+  const filter = filterPathParts(path);
+  if (filter && filter.index !== null && filter.key !== null) {
+    return `Filter ${filter.index + 1} ${filterFieldWords[filter.key].short}`;
+  }
+  if (filter) return describeFilterPath(path) ?? path;
   return describedFieldByPath.get(path)?.label ?? path;
 }
 
@@ -419,7 +468,7 @@ export function fieldTableName(key: string): string {
 
 /** A path as compare and conflict tables name it: `slits.exitWidthUm` → "Slits: exit width (µm)"; a section → "Detector". */
 export function describeDesignPath(path: string): string {
-  const requirement = describeRequirementPath(path);
+  const requirement = describeRequirementPath(path) ?? describeFilterPath(path);
   if (requirement !== null) return requirement;
   const [sectionId, key] = path.split('.');
   const section = describedSections.find((s) => s.id === sectionId);

@@ -5,6 +5,7 @@ import { describedFieldByPath, describedFields, describedSections } from '@/shar
 import { formatMachineNumber } from '@/shared/format';
 import { fieldErrors, type FieldErrors } from '@/shared/validation';
 import { allFields, type FieldSpec } from './fields';
+import { filtersFromText, filtersTextSchema, filtersToText, spokenFilterKey, type FiltersText } from './filter-fields';
 import {
   requirementLabel,
   requirementsFromText,
@@ -21,10 +22,12 @@ type FieldText<V> = Exclude<V, undefined> extends number ? string : Exclude<V, u
  * Every section and field of the design, optional or not; numbers as text, a choice as its value.
  */
 export type FormValues = {
-  [S in Exclude<keyof Design, 'requirements'>]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
+  [S in Exclude<keyof Design, 'requirements' | 'filters'>]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
 } & {
   /** What the instrument must do, as typed (requirement-fields.ts); all blank for none. */
   requirements: RequirementsText;
+  /** The order-sorting filters, one row of text each (filter-fields.ts); null when the design has no list. */
+  filters: FiltersText;
 };
 
 const text = z.string().max(200);
@@ -45,6 +48,8 @@ export const formValuesSchema = z.object(
     ]),
     // Drafts saved before requirements existed lack the key and read as none.
     ['requirements', requirementsTextSchema],
+    // …and those saved before filters existed, as no list.
+    ['filters', filtersTextSchema],
   ]),
 ) as unknown as z.ZodType<FormValues>;
 
@@ -78,6 +83,8 @@ const FIELD_NAME = /\b(?:[a-z]+\.)?[a-z]+[A-Z]\w*\b/g;
 /** Field names inside schema messages, said the way the editor labels them ("the range start"). */
 function speak(message: string): string {
   return message.replace(FIELD_NAME, (name) => {
+    const filterWords = spokenFilterKey(name);
+    if (filterWords) return filterWords;
     const field = describedFieldByPath.get(name) ?? describedFields.find((f) => f.key === name);
     const label = field?.label ?? requirementLabel(name.startsWith('requirements.') ? name : `requirements.${name}`);
     return label ? `the ${label.charAt(0).toLowerCase()}${label.slice(1)}` : name;
@@ -117,6 +124,9 @@ export function formToDesign(values: FormValues): FormResult {
   const typedRequirements = requirementsFromText(values.requirements);
   Object.assign(errors, typedRequirements.errors);
   if (typedRequirements.requirements) candidate.requirements = typedRequirements.requirements;
+  const typedFilters = filtersFromText(values.filters);
+  Object.assign(errors, typedFilters.errors);
+  if (typedFilters.filters) (candidate as Record<string, unknown>).filters = typedFilters.filters;
   const checked = designSchema.safeParse(candidate);
   if (checked.success && Object.keys(errors).length === 0) return { ok: true, design: checked.data };
   if (!checked.success) {
@@ -172,7 +182,11 @@ export function designToForm(design: Design): FormValues {
       }),
     );
   }
-  return { ...form, requirements: requirementsToText(design.requirements) } as FormValues;
+  return {
+    ...form,
+    requirements: requirementsToText(design.requirements),
+    filters: filtersToText(design.filters),
+  } as FormValues;
 }
 
 /**

@@ -4,7 +4,7 @@ import { designSchema, exampleDesign } from '@/shared/design';
 import { sections } from '@/features/workbench/fields';
 import { designToForm, formToDesign, formValuesSchema } from '@/features/workbench/form-model';
 
-/** Every leaf path of the zod schema's parameter sections (requirements are described apart), read from the schema alone. */
+/** Every leaf path of the zod schema's parameter sections (requirements and filters are described apart), read from the schema alone. */
 function schemaPaths(): string[] {
   return parameterSections().flatMap(([section, schema]) => {
     const inner = schema instanceof z.ZodOptional ? schema.unwrap() : schema;
@@ -13,7 +13,7 @@ function schemaPaths(): string[] {
 }
 
 function parameterSections() {
-  return Object.entries(designSchema.shape).filter(([section]) => section !== 'requirements');
+  return Object.entries(designSchema.shape).filter(([section]) => section !== 'requirements' && section !== 'filters');
 }
 
 describe('the editor fields and form, derived from the described schema', () => {
@@ -34,8 +34,9 @@ describe('the editor fields and form, derived from the described schema', () => 
   it('holds every field as text in the editor form, and an absent one as empty text', () => {
     const { source: _source, ...withoutSource } = exampleDesign;
     const form = designToForm(withoutSource);
-    // The parameter sections, then the requirements' text (requirement-fields.test.ts covers it).
-    expect(Object.keys(form)).toEqual([...parameterSections().map(([section]) => section), 'requirements']);
+    // The parameter sections, then the requirements' text (requirement-fields.test.ts covers it)
+    // and the filters' rows (filter-fields.test.ts).
+    expect(Object.keys(form)).toEqual([...parameterSections().map(([section]) => section), 'requirements', 'filters']);
     expect(form.source).toEqual({ minNm: '', maxNm: '' });
     expect(form.layout.kind).toBe('czerny-turner');
     expect(form.grating.grooveDensityPerMm).toBe('1200');
