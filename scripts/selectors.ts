@@ -65,8 +65,8 @@ kind "interference-filter" (Fabry–Pérot; Hecht, Optics)
        tiltsDeg           optional list of tilts from the normal, 0 to 89°, at most ${SELECTOR_LIMITS.maxTilts}
        rangeNm            { startNm, endNm }: where to list every transmission peak
   out: spacerThicknessNm  t = mλ/(2n)
-       peaksNm            every peak 2nt/k in rangeNm, ascending (at most ${SELECTOR_LIMITS.maxListedPeaks} listed;
-                          peakCount counts them all, peaksTruncated says when the list was cut)
+       peaksNm            every peak 2nt/k in rangeNm, ascending; past ${SELECTOR_LIMITS.maxListedPeaks}, the ${SELECTOR_LIMITS.maxListedPeaks} around
+                          the target (peakCount counts them all, peaksTruncated says the list was cut)
        finesse            π√R/(1 − R)
        freeSpectralRangeNm  λ/m at the target
        fwhmNm             freeSpectralRangeNm / finesse

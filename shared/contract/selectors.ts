@@ -20,7 +20,7 @@ export const selectors = {
       'with C the resonance wavelengths in µm), `apexDeg`, `baseMm`, `wavelengthsNm`, optional focal lengths and slits → ' +
       '`points: [{ wavelengthNm, index, dnDlambdaPerNm, minDeviationDeg, angularDispersionDegPerNm, resolvingPower, bandpassNm, reason }]`.\n\n' +
       `At most ${SELECTOR_LIMITS.maxWavelengths} wavelengths, ${SELECTOR_LIMITS.maxTilts} tilts, ${SELECTOR_LIMITS.maxStackFilters} filters ` +
-      `and ${SELECTOR_LIMITS.maxSellmeierTerms} Sellmeier terms; at most ${SELECTOR_LIMITS.maxListedPeaks} peaks listed (\`peakCount\` counts them all). ` +
+      `and ${SELECTOR_LIMITS.maxSellmeierTerms} Sellmeier terms; at most ${SELECTOR_LIMITS.maxListedPeaks} peaks listed, those around the target (\`peakCount\` counts them all). ` +
       'A bad field is a 400 naming it (`filters.0.thicknessMm`). Each call is bounded by these limits and cheap, so ' +
       '60 calls a minute per address, then 429 `rate_limited`.',
     access: { kind: 'anyone' },
