@@ -6,7 +6,7 @@
  * 1,000 wavelengths is five times what the workbench plots (200 points; the range table uses
  * 11, a notebook comparison 121) and finer than a plot can show; with at most 20 overlapping
  * orders listed per wavelength (`MAX_LISTED_OVERLAPS`) it keeps
- * the largest answer under 2 MB of JSON.
+ * the largest answer under 2.5 MB of JSON.
  */
 export const MAX_SOLVE_WAVELENGTHS = 1000;
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { LAYOUT_KINDS } from './design';
+import { orderSortingFilterSchema } from './filters';
 
 /**
  * The answer of `POST /api/solve`, described for the API contract and its OpenAPI document. The
@@ -16,7 +17,7 @@ export const slitFunctionSchema = z.strictObject({
   topNm: z.number(),
 });
 
-export const overlapSchema = z.strictObject({ order: z.int(), wavelengthNm: z.number() });
+export const overlapSchema = z.strictObject({ order: z.int(), wavelengthNm: z.number(), blocked: z.boolean() });
 
 export const wavelengthPointSchema = z.strictObject({
   wavelengthNm: z.number(),
@@ -38,7 +39,9 @@ export const wavelengthPointSchema = z.strictObject({
   blazeEfficiency: nullableNumber,
   overlaps: z.array(overlapSchema).readonly(),
   overlapCount: z.int(),
+  unblockedOverlapCount: z.int(),
   overlapsTruncated: z.boolean(),
+  filterTransmission: z.number(),
   scanSensitivityNmPerArcsec: nullableNumber,
 });
 
@@ -97,6 +100,7 @@ export const warningCodes = [
   'below-diffraction-limit',
   'undersampled',
   'order-overlap',
+  'filter-attenuates',
   'low-efficiency',
   'beyond-scalar-blaze',
   'few-grooves',
@@ -110,8 +114,16 @@ export const designWarningSchema = z.strictObject({
   wavelengthNm: z.number().optional(),
 });
 
+export const orderSortingSummarySchema = z.strictObject({
+  proposedFilters: z.array(orderSortingFilterSchema),
+  unblockedOverlaps: z.int(),
+  proposedUnblockedOverlaps: z.int(),
+  filterChangesNm: z.array(z.number()),
+});
+
 export const solveResponseSchema = z.strictObject({
   points: z.array(wavelengthPointSchema),
   design: designSummarySchema,
+  orderSorting: orderSortingSummarySchema,
   warnings: z.array(designWarningSchema),
 });

@@ -187,6 +187,7 @@ export function requirementFailsAt(
     if (ruleFails(rule, limit, point, design, requirements)) failing.add(rule.id);
   }
   if (requirements.orderOverlap === 'forbidden' && point.overlapCount > 0) failing.add('orderOverlap');
+  if (requirements.orderOverlap === 'filtered' && point.unblockedOverlapCount > 0) failing.add('orderOverlap');
   return REQUIREMENT_IDS.filter((id) => failing.has(id));
 }
 
@@ -466,20 +467,35 @@ function overlapCheck(policy: NonNullable<Requirements['orderOverlap']>, points:
     limit: null,
     worstWavelengthNm: null,
     margin: null,
-    // No field fixes an overlap yet: an order-sorting filter will (a later issue).
+    // The fix is a filter plan (the order-sorting card), not one field.
     fixPath: null,
   };
   if (policy === 'allowed') {
     return { ...base, status: 'pass', message: 'other orders are allowed', failingSpansNm: [] };
   }
   if (policy === 'filtered') {
+    const spans = failingSpans(points, (p) => p.unblockedOverlapCount > 0);
+    if (spans.length === 0) {
+      return {
+        ...base,
+        status: 'pass',
+        message: points.some((p) => p.overlapCount > 0)
+          ? 'the order-sorting filters block every other order'
+          : 'no other order lands in the range',
+        failingSpansNm: [],
+      };
+    }
+    let worst = points[0]!;
+    for (const point of points) if (point.unblockedOverlapCount > worst.unblockedOverlapCount) worst = point;
     return {
       ...base,
-      status: 'unknown',
+      status: 'fail',
+      worst: worst.unblockedOverlapCount,
+      worstWavelengthNm: worst.wavelengthNm,
       message:
-        'order-sorting filters are not modelled yet, so an overlap cannot be shown blocked: ' +
-        'choose forbidden or allowed to check it',
-      failingSpansNm: [],
+        `no filter blocks the other orders landing on ${spansText(spans)} ` +
+        `(${worst.unblockedOverlapCount} at ${valueText(worst.wavelengthNm, 'nm')}): use the proposed order-sorting plan`,
+      failingSpansNm: spans,
     };
   }
   const spans = failingSpans(points, (p) => p.overlapCount > 0);

@@ -9,6 +9,7 @@ import { PHYSICAL_LIMITS } from '../../shared/design';
 import { SEARCH_LIMITS, type SearchRequest } from '../../shared/search';
 import type { FieldErrors } from '../../shared/validation';
 import { grooveSpacingNm } from '../solver/grating';
+import { proposeOrderSortingPlan } from '../solver/order-sorting';
 
 /**
  * Stock groove densities, grooves/mm: the ruled and holographic densities gratings are sold in
@@ -233,7 +234,7 @@ export function candidateDesign(
   slitWidthUm: number,
   cameraOffAxisDeg: number,
 ): Design {
-  return {
+  const design: Design = {
     grating: {
       grooveDensityPerMm: params.grooveDensityPerMm,
       order: params.order,
@@ -255,4 +256,10 @@ export function candidateDesign(
     ...(request.detector ? { detector: { ...request.detector } } : {}),
     requirements: structuredClone(request.requirements),
   };
+  // Overlaps are allowed where a filter blocks them: the candidate comes with its filter plan.
+  if (request.requirements.orderOverlap === 'filtered') {
+    const filters = proposeOrderSortingPlan(design);
+    if (filters.length > 0) design.filters = filters;
+  }
+  return design;
 }

@@ -24,7 +24,15 @@ import {
   halfDeviationRad,
   hasTwoMirrorPaths,
 } from './mount';
-import { NO_OVERLAPS, overlapCount, overlappingOrders } from './orders';
+import { NO_OVERLAPS, overlapCount, overlappingOrders, type Overlap } from './orders';
+import {
+  blockedUpToNm,
+  filterChangesNm,
+  filtersInBeam,
+  filtersTransmission,
+  proposeOrderSortingPlan,
+  unblockedOverlapCount,
+} from './order-sorting';
 import {
   diffractionLimitNm,
   freeSpectralRangeNm,
@@ -32,7 +40,14 @@ import {
   resolvingPower,
   theoreticalResolvingPower,
 } from './resolving-power';
-import type { AberrationSummary, DesignSummary, Evaluation, WavelengthPoint } from './results';
+import type { OrderSortingFilter } from '../../shared/filters';
+import type {
+  AberrationSummary,
+  DesignSummary,
+  Evaluation,
+  OrderSortingSummary,
+  WavelengthPoint,
+} from './results';
 import { scanSensitivityNmPerArcsec } from './scan';
 import { collectWarnings } from './warnings';
 
@@ -65,6 +80,8 @@ export interface PreparedDesign {
   readonly blazeWavelengthNm: number | null;
   readonly overlapMinNm: number;
   readonly overlapMaxNm: number;
+  /** The design's order-sorting filters (empty without any). */
+  readonly filters: readonly OrderSortingFilter[];
 }
 
 export function prepareDesign(design: Design): PreparedDesign {
@@ -85,6 +102,7 @@ export function prepareDesign(design: Design): PreparedDesign {
     // the instrument is meant to measure, and its other orders land on it.
     overlapMinNm: source?.minNm ?? range.startNm,
     overlapMaxNm: source?.maxNm ?? range.endNm,
+    filters: design.filters ?? [],
   };
 }
 
@@ -110,7 +128,9 @@ function unreachablePoint(plan: PreparedDesign, wavelengthNm: number, reason: st
     blazeEfficiency: null,
     overlaps: NO_OVERLAPS,
     overlapCount: 0,
+    unblockedOverlapCount: 0,
     overlapsTruncated: false,
+    filterTransmission: 1,
     scanSensitivityNmPerArcsec: null,
   };
 }
@@ -134,11 +154,16 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
   const bandpass = bandpassNm(rld, imageMm, exitWidthMm);
   const limitNm = diffractionLimitNm(wavelengthNm, order, plan.grooves);
   const overlapTotal = overlapCount(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
+  const inBeam = plan.filters.length === 0 ? plan.filters : filtersInBeam(plan.filters, wavelengthNm);
+  const blockedNm = blockedUpToNm(inBeam);
   // Most wavelengths have no overlapping order: skip building an empty list for them.
-  const overlaps =
+  const overlaps: readonly Overlap[] =
     overlapTotal === 0
       ? NO_OVERLAPS
-      : overlappingOrders(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
+      : overlappingOrders(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm).map((o) => ({
+          ...o,
+          blocked: o.wavelengthNm <= blockedNm,
+        }));
 
   return {
     wavelengthNm,
@@ -163,7 +188,12 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
         : blazeEfficiency(wavelengthNm, order, plan.blazeWavelengthNm, K),
     overlaps,
     overlapCount: overlapTotal,
+    unblockedOverlapCount:
+      overlapTotal === 0 || inBeam.length === 0
+        ? overlapTotal
+        : unblockedOverlapCount(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm, blockedNm),
     overlapsTruncated: overlapTotal > overlaps.length,
+    filterTransmission: inBeam.length === 0 ? 1 : filtersTransmission(inBeam, wavelengthNm),
     scanSensitivityNmPerArcsec: scanSensitivityNmPerArcsec(order, spacingNm, K, rotationRad),
   };
 }
@@ -289,5 +319,48 @@ export function evaluateDesign(design: Design, options: EvaluateOptions = {}): E
     points[i] = evaluatePoint(plan, wavelengths[i] as number);
   }
   const summary = summarizeDesign(design, plan);
-  return { points, design: summary, warnings: collectWarnings(points, summary, plan.order) };
+  const orderSorting = orderSortingSummary(design, plan, points);
+  return {
+    points,
+    design: summary,
+    orderSorting,
+    warnings: collectWarnings(points, summary, plan.order, orderSorting),
+  };
+}
+
+/** Overlaps left unblocked at these points: (point × order) pairs, listed or not. */
+function unblockedTotal(points: readonly WavelengthPoint[]): number {
+  let total = 0;
+  for (const p of points) total += p.unblockedOverlapCount;
+  return total;
+}
+
+/**
+ * The design's filters against the proposed plan over the same points. The plan is counted with
+ * the closed forms alone (no second evaluation): only which orders get through changes.
+ */
+function orderSortingSummary(
+  design: Design,
+  plan: PreparedDesign,
+  points: readonly WavelengthPoint[],
+): OrderSortingSummary {
+  const proposedFilters = proposeOrderSortingPlan(design);
+  let proposedUnblocked = 0;
+  for (const p of points) {
+    if (p.overlapCount === 0) continue;
+    const inBeam = filtersInBeam(proposedFilters, p.wavelengthNm);
+    proposedUnblocked += unblockedOverlapCount(
+      plan.order,
+      p.wavelengthNm,
+      plan.overlapMinNm,
+      plan.overlapMaxNm,
+      blockedUpToNm(inBeam),
+    );
+  }
+  return {
+    proposedFilters,
+    unblockedOverlaps: unblockedTotal(points),
+    proposedUnblockedOverlaps: proposedUnblocked,
+    filterChangesNm: filterChangesNm(plan.filters, design.range.startNm, design.range.endNm),
+  };
 }

@@ -23,6 +23,7 @@ export * from './bandpass';
 export * from './resolving-power';
 export * from './blaze';
 export * from './orders';
+export * from './order-sorting';
 export * from './scan';
 export * from './detector';
 export * from './aberrations';

@@ -11,6 +11,8 @@ export interface Overlap {
   order: number;
   /** Its wavelength that leaves at the same angle, `mλ / n`, nm. */
   wavelengthNm: number;
+  /** True when an order-sorting filter in the beam at this setting removes it (order-sorting.ts). */
+  blocked: boolean;
 }
 
 /**
@@ -87,8 +89,8 @@ export function overlappingOrders(
   const sign = order < 0 ? -1 : 1;
   const list: Overlap[] = [];
   for (let n = belowTop - fromBelow + 1; n <= belowTop; n++)
-    list.push({ order: sign * n, wavelengthNm: product / n });
+    list.push({ order: sign * n, wavelengthNm: product / n, blocked: false });
   for (let n = aboveBottom; n < aboveBottom + fromAbove; n++)
-    list.push({ order: sign * n, wavelengthNm: product / n });
+    list.push({ order: sign * n, wavelengthNm: product / n, blocked: false });
   return list;
 }

@@ -5,6 +5,7 @@
  */
 
 import type { LayoutKind } from '../../shared/design';
+import type { OrderSortingFilter } from '../../shared/filters';
 import type { SlitFunction } from './bandpass';
 import type { DetectorCoverage } from './detector';
 import type { Overlap } from './orders';
@@ -46,8 +47,12 @@ export interface WavelengthPoint {
   overlaps: readonly Overlap[];
   /** Every overlapping order, listed or not. */
   overlapCount: number;
+  /** The overlapping orders the filters in the beam at this setting do not block (all without filters). */
+  unblockedOverlapCount: number;
   /** True when `overlaps` lists fewer than `overlapCount` (the list was cut, never silently). */
   overlapsTruncated: boolean;
+  /** What the filters in the beam at this setting pass of the working wavelength itself (1 without). */
+  filterTransmission: number;
   scanSensitivityNmPerArcsec: number | null;
 }
 
@@ -99,6 +104,7 @@ export type WarningCode =
   | 'below-diffraction-limit'
   | 'undersampled'
   | 'order-overlap'
+  | 'filter-attenuates'
   | 'low-efficiency'
   | 'beyond-scalar-blaze'
   | 'few-grooves'
@@ -112,8 +118,21 @@ export interface Warning {
   wavelengthNm?: number;
 }
 
+/** The design's order-sorting filters and a proposed plan (features/solver/order-sorting.ts). */
+export interface OrderSortingSummary {
+  /** A long-pass plan that blocks every shorter overlapping order across the range; empty when none overlaps. */
+  proposedFilters: OrderSortingFilter[];
+  /** (Point × overlapping order) pairs the design's own filters leave unblocked over the evaluated points. */
+  unblockedOverlaps: number;
+  /** The same count with the proposed plan in place of the design's filters. */
+  proposedUnblockedOverlaps: number;
+  /** Settings inside the range where the design's filters in the beam change, ascending. */
+  filterChangesNm: number[];
+}
+
 export interface Evaluation {
   points: WavelengthPoint[];
   design: DesignSummary;
+  orderSorting: OrderSortingSummary;
   warnings: Warning[];
 }

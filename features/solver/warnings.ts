@@ -5,7 +5,8 @@
  */
 
 import { formatNumber } from '../../shared/format';
-import type { DesignSummary, Warning, WavelengthPoint } from './results';
+import { ORDER_SORTING_RULES } from './order-sorting';
+import type { DesignSummary, OrderSortingSummary, Warning, WavelengthPoint } from './results';
 
 /** Beyond this angle from the grating normal, efficiency and imaging degrade fast (common practice). */
 export const NEAR_GRAZING_DEG = 80;
@@ -75,11 +76,14 @@ export function collectWarnings(
   points: readonly WavelengthPoint[],
   summary: DesignSummary,
   order: number,
+  orderSorting: OrderSortingSummary | null = null,
 ): Warning[] {
   const unreachable = tally();
   const grazing = tally();
   const belowLimit = tally();
   const overlap = tally();
+  const attenuated = tally();
+  let lowestFilterTransmission = 1;
   const lowEfficiency = tally();
   const beyondScalar = tally();
   let largestLambdaOverD = 0;
@@ -93,7 +97,11 @@ export function collectWarnings(
       add(grazing, p);
     }
     if (p.bandpassNm !== null && p.bandpassNm < p.diffractionLimitNm) add(belowLimit, p);
-    if (p.overlaps.length > 0) add(overlap, p);
+    if (p.unblockedOverlapCount > 0) add(overlap, p);
+    if (p.filterTransmission < ORDER_SORTING_RULES.attenuationWarning) {
+      add(attenuated, p);
+      lowestFilterTransmission = Math.min(lowestFilterTransmission, p.filterTransmission);
+    }
     if (p.blazeEfficiency !== null && p.blazeEfficiency < LOW_EFFICIENCY) add(lowEfficiency, p);
     const lambdaOverD = p.wavelengthNm / summary.grooveSpacingNm;
     if (p.blazeEfficiency !== null && lambdaOverD > SCALAR_LIMIT_LAMBDA_OVER_D) {
@@ -147,18 +155,38 @@ export function collectWarnings(
   }
   if (overlap.first) {
     const p = overlap.first;
-    const example = p.overlaps[0];
+    const example = p.overlaps.find((o) => !o.blocked) ?? p.overlaps[0];
+    const filtered = (orderSorting?.filterChangesNm.length ?? 0) > 0 || p.filterTransmission < 1;
+    const plan = orderSorting?.proposedFilters ?? [];
+    const planBlocksAll = plan.length > 0 && orderSorting?.proposedUnblockedOverlaps === 0;
+    const fix = planBlocksAll
+      ? ` Use the proposed order-sorting plan (${plan.length} long-pass filter${plan.length === 1 ? '' : 's'}), or narrow the source range.`
+      : Math.abs(order) > 1
+        ? ' Long-pass filters block only the shorter orders: block the lower ones with a short-pass or band-pass filter or a cross-disperser, or narrow the source range.'
+        : ' Add an order-sorting filter or narrow the source range.';
     warnings.push({
       code: 'order-overlap',
       wavelengthNm: p.wavelengthNm,
       message:
         `${where(overlap, total)} light the source emits in other orders leaves the grating at ` +
         'the same angle' +
+        (filtered ? ' and no filter in the beam blocks it' : '') +
         (example
           ? ` (for example ${ordinal(example.order)} order ${formatNumber(example.wavelengthNm)} nm lands on ` +
             `${formatNumber(p.wavelengthNm)} nm in order ${order})`
           : '') +
-        '. Add an order-sorting filter or narrow the source range.',
+        '.' +
+        fix,
+    });
+  }
+  if (attenuated.first) {
+    warnings.push({
+      code: 'filter-attenuates',
+      wavelengthNm: attenuated.first.wavelengthNm,
+      message:
+        `${where(attenuated, total)} an order-sorting filter in the beam cuts into the working wavelength ` +
+        `(down to ${formatNumber(lowestFilterTransmission * 100, 3)} % passed). ` +
+        'Switch it in at a longer wavelength or choose a shorter cut-on.',
     });
   }
   if (lowEfficiency.first) {

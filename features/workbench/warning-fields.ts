@@ -8,6 +8,8 @@ export const warningField: Record<WarningCode, string> = {
   'below-diffraction-limit': 'slits.entranceWidthUm',
   undersampled: 'detector.pixelPitchUm',
   'order-overlap': 'source.minNm',
+  // The first filter's switch-in point: the usual fix for a filter cutting into the signal.
+  'filter-attenuates': 'filters.0.inFromNm',
   'low-efficiency': 'grating.blazeWavelengthNm',
   'beyond-scalar-blaze': 'grating.grooveDensityPerMm',
   'few-grooves': 'grating.ruledWidthMm',

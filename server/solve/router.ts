@@ -12,7 +12,7 @@ import type { Implementation } from '../http/contract';
  *   naming the field (`at: must list at most 1000 wavelengths`), before each item is checked.
  * - each wavelength lists at most 20 overlapping orders (`MAX_LISTED_OVERLAPS`, the ones nearest
  *   the working order), with `overlapCount` the full number and `overlapsTruncated: true` when cut.
- * - so the largest answer is under 2 MB of JSON (1.82 MB for order −1000, 1,000 wavelengths and a
+ * - so the largest answer is under 2.5 MB of JSON (2.05 MB for order −1000, 1,000 wavelengths and a
  *   0.001 nm–10 mm source; about 0.35 MB gzipped for clients that accept it) and under 0.1 s of
  *   the thread (`npm run bench:solver` prints it).
  * - 120 calls per minute per IP (`solvePerIp`, `solveWindowMs`); the next is a 429 `rate_limited`.

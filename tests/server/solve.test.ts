@@ -21,7 +21,8 @@ function wavelengthsNm(count: number, fromNm: number, toNm: number): number[] {
   return Array.from({ length: count }, (_, i) => fromNm + ((toNm - fromNm) * (i + 0.1)) / count);
 }
 
-const TWO_MB = 2 * 1024 * 1024;
+// 2.5 MB: each listed overlap says whether a filter blocks it (issue 16) — about 2.05 MB measured.
+const LIMIT_BYTES = 2.5 * 1024 * 1024;
 
 // Solving reads and writes no data: one database for the file, and a new app (so new rate limits)
 // where a case needs one. Each copy of the database takes seconds to open.
@@ -122,13 +123,13 @@ describe('POST /api/solve', () => {
     expect(errorBodySchema.parse(res.body).error.fields).toEqual({ points: 'must be a whole number from 2 to 1000' });
   });
 
-  it('answers a request at the caps with the widest source in under 2 MB, every cut list marked', async () => {
+  it('answers a request at the caps with the widest source in under 2.5 MB, every cut list marked', async () => {
     const res = await request(ctx.app)
       .post('/api/solve')
       .set('accept-encoding', 'identity')
       .send({ design: hostileDesign, at: wavelengthsNm(MAX_SOLVE_WAVELENGTHS, 0.001, 1.5) })
       .expect(200);
-    expect(Number(res.headers['content-length'])).toBeLessThan(TWO_MB);
+    expect(Number(res.headers['content-length'])).toBeLessThan(LIMIT_BYTES);
     const points = res.body.points as {
       wavelengthNm: number;
       reachable: boolean;

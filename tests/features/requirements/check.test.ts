@@ -6,7 +6,7 @@ import {
   requirementFailsAt,
   type RequirementCheck,
 } from '@/features/requirements';
-import { evaluateDesign } from '@/features/solver';
+import { evaluateDesign, proposeOrderSortingPlan } from '@/features/solver';
 import type { Requirements } from '@/shared/requirements';
 import { expectClose } from '../solver/close-to';
 import { makeDesign } from '../solver/fixtures';
@@ -194,15 +194,26 @@ describe('each requirement at its boundary (Littrow, 1200/mm, f = 500 mm, 100 µ
     expect(only({ orderOverlap: 'forbidden' }, clear).status).toBe('pass');
   });
 
-  it('order overlap: allowed passes, filtered is unknown until filters are modelled', () => {
+  it('order overlap: allowed passes; filtered fails where no filter blocks an order and passes with the proposed plan', () => {
     const design = littrowDesign();
+    // 250–1100 nm source on a 400–600 nm range: λ/2 ≥ 250 nm from λ = 500 nm on (Palmer & Loewen,
+    // Diffraction Grating Handbook, ch. 2: order 2 puts λ/2 on λ's angle).
     design.source = { minNm: 250, maxNm: 1100 };
     expect(only({ orderOverlap: 'allowed' }, { ...design, requirements: { orderOverlap: 'allowed' } }).status).toBe(
       'pass',
     );
-    const filtered = only({ orderOverlap: 'filtered' }, { ...design, requirements: { orderOverlap: 'filtered' } });
-    expect(filtered.status).toBe('unknown');
-    expect(filtered.message).toMatch(/not modelled yet/);
+    const unfiltered = only({ orderOverlap: 'filtered' }, { ...design, requirements: { orderOverlap: 'filtered' } });
+    expect(unfiltered.status).toBe('fail');
+    expect(unfiltered.failingSpansNm[0]?.[0]).toBeGreaterThanOrEqual(500);
+    expect(unfiltered.message).toMatch(/proposed order-sorting plan/);
+    const filters = proposeOrderSortingPlan(design);
+    expect(filters.length).toBeGreaterThan(0);
+    const filtered = only(
+      { orderOverlap: 'filtered' },
+      { ...design, filters, requirements: { orderOverlap: 'filtered' } },
+    );
+    expect(filtered.status).toBe('pass');
+    expect(filtered.message).toMatch(/filters block every other order/);
   });
 });
 

@@ -20,19 +20,19 @@ function allOverlapsByTrial(
 ) {
   const absOrder = Math.abs(order);
   const sign = Math.sign(order);
-  const found: { order: number; wavelengthNm: number }[] = [];
+  const found: { order: number; wavelengthNm: number; blocked: boolean }[] = [];
   for (let n = 1; n <= upToOrder; n++) {
     const other = (absOrder * wavelengthNm) / n;
     if (n !== absOrder && other >= minNm && other <= maxNm)
-      found.push({ order: sign * n, wavelengthNm: other });
+      found.push({ order: sign * n, wavelengthNm: other, blocked: false });
   }
   return found;
 }
 
 /** `{ order, wavelengthNm }` for the orders from `from` to `to` (skipping `skip`), `mλ/n` each. */
 function run(sign: number, product: number, from: number, to: number, skip?: number) {
-  const list: { order: number; wavelengthNm: number }[] = [];
-  for (let n = from; n <= to; n++) if (n !== skip) list.push({ order: sign * n, wavelengthNm: product / n });
+  const list: { order: number; wavelengthNm: number; blocked: boolean }[] = [];
+  for (let n = from; n <= to; n++) if (n !== skip) list.push({ order: sign * n, wavelengthNm: product / n, blocked: false });
   return list;
 }
 
@@ -40,18 +40,18 @@ describe('order overlap', () => {
   it('lists every other order n with mλ/n inside the source range', () => {
     // Palmer & Loewen, ch. 2: orders overlap where nλ' = mλ. 600 nm, first order, source 200–1100 nm.
     expect(overlappingOrders(1, 600, 200, 1100)).toEqual([
-      { order: 2, wavelengthNm: 300 },
-      { order: 3, wavelengthNm: 200 },
+      { order: 2, wavelengthNm: 300, blocked: false },
+      { order: 3, wavelengthNm: 200, blocked: false },
     ]);
   });
 
   it('includes longer wavelengths from lower orders when working in a high order', () => {
     // Order 2 at 400 nm shares its angle with 800 nm in first order.
-    expect(overlappingOrders(2, 400, 350, 900)).toEqual([{ order: 1, wavelengthNm: 800 }]);
+    expect(overlappingOrders(2, 400, 350, 900)).toEqual([{ order: 1, wavelengthNm: 800, blocked: false }]);
   });
 
   it('keeps the sign of a negative working order', () => {
-    expect(overlappingOrders(-1, 600, 250, 700)).toEqual([{ order: -2, wavelengthNm: 300 }]);
+    expect(overlappingOrders(-1, 600, 250, 700)).toEqual([{ order: -2, wavelengthNm: 300, blocked: false }]);
   });
 
   it('finds nothing when the range stays within one octave of the source (common practice: < 2×)', () => {
@@ -61,14 +61,14 @@ describe('order overlap', () => {
   it('warns with the fix when the source feeds other orders into the range', () => {
     const evaluation = evaluateDesign(makeDesign(), { points: 11 });
     const warning = evaluation.warnings.find((w) => w.code === 'order-overlap');
-    expect(warning?.message).toMatch(/order-sorting filter/);
+    expect(warning?.message).toMatch(/proposed order-sorting plan/);
     expect(warning?.message).toMatch(/2nd order \d+ nm lands on/);
   });
 
   it('uses the design range as the light when no source is given', () => {
     const design = makeDesign({ source: undefined, range: { startNm: 300, endNm: 900 } });
     const p = evaluateDesign(design, { wavelengthsNm: [800] }).points[0]!;
-    expect(p.overlaps).toEqual([{ order: 2, wavelengthNm: 400 }]);
+    expect(p.overlaps).toEqual([{ order: 2, wavelengthNm: 400, blocked: false }]);
   });
 });
 

@@ -263,7 +263,7 @@ describe('performance section', () => {
 describe('overlapping orders in a cell', () => {
   it('names the orders nearest the working one (the hardest to filter out) and counts the rest', () => {
     // Order 4 at 600 nm: order n puts 4 × 600 / n nm on the same angle (mλ = nλ').
-    const overlaps = [1, 2, 3, 5, 6, 7, 8].map((n) => ({ order: n, wavelengthNm: 2400 / n }));
+    const overlaps = [1, 2, 3, 5, 6, 7, 8].map((n) => ({ order: n, wavelengthNm: 2400 / n, blocked: false }));
     const text = plain(overlapsText({ overlaps, overlapCount: 9 }, 4));
     expect(text).toBe('m=2: 1200 nm, m=3: 800 nm, m=5: 480 nm, m=6: 400 nm, +5 more');
     expect(overlapsText({ overlaps: [], overlapCount: 0 }, 1)).toBe('none');
