@@ -25,6 +25,10 @@ export const USAGE = `usage: npm run --silent solve -- <design.json | -> [--at 4
   --points  evenly spaced wavelengths over the design range, ${MIN_SOLVE_POINTS} to ${MAX_SOLVE_WAVELENGTHS} (default ${DEFAULT_POINTS})
 Each wavelength lists at most ${MAX_LISTED_OVERLAPS} overlapping orders (those nearest the working order);
 overlapCount is the full number and overlapsTruncated is true when the list was cut.
+Order sorting: the design's optional "filters" list ({ "kind": "long-pass", "cutOnNm", "inFromNm", "inToNm",
+"edgeWidthNm" }, in the beam while set from inFromNm to inToNm) marks each listed overlap "blocked";
+unblockedOverlapCount and filterTransmission are per wavelength, and "orderSorting" gives a
+proposed plan (proposedFilters) and the unblockedOverlaps the design's filters leave.
 The same limits as POST /api/solve, which also allows ${defaultRateLimits.solvePerIp} calls per ${defaultRateLimits.solveWindowMs / 1000} s per address.
 What some figures assume:
   resolvingPower   λ / √(bandpassNm² + diffractionLimitNm²): slit and diffraction widths added in
