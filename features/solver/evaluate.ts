@@ -157,13 +157,12 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
   const inBeam = plan.filters.length === 0 ? plan.filters : filtersInBeam(plan.filters, wavelengthNm);
   const blockedNm = blockedUpToNm(inBeam);
   // Most wavelengths have no overlapping order: skip building an empty list for them.
-  const overlaps: readonly Overlap[] =
-    overlapTotal === 0
-      ? NO_OVERLAPS
-      : overlappingOrders(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm).map((o) => ({
-          ...o,
-          blocked: o.wavelengthNm <= blockedNm,
-        }));
+  let overlaps: readonly Overlap[] = NO_OVERLAPS;
+  if (overlapTotal > 0) {
+    overlaps = overlappingOrders(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
+    // The list comes unblocked; mark it only where a filter is in the beam.
+    if (inBeam.length > 0) for (const o of overlaps as Overlap[]) o.blocked = o.wavelengthNm <= blockedNm;
+  }
 
   return {
     wavelengthNm,

@@ -112,18 +112,21 @@ export function proposeOrderSortingPlan(design: Design): OrderSortingFilter[] {
   let fromNm = Math.max(range.startNm, firstOverlapNm);
   const plan: OrderSortingFilter[] = [];
   while (fromNm < range.endNm && plan.length < ORDER_SORTING_RULES.maxFilters) {
-    const edgeWidthNm = tidy(Math.max(0.01, floorTo(fromNm * ORDER_SORTING_RULES.edgeFraction, 0.01)));
+    // Tidied only downwards: a switch-in a hair after the range start would leave it unfiltered.
+    const inFromNm = tidy(fromNm) <= fromNm ? tidy(fromNm) : fromNm;
+    const edgeWidthNm = tidy(Math.max(0.01, floorTo(inFromNm * ORDER_SORTING_RULES.edgeFraction, 0.01)));
     // Full transmission from the switch-in point on: cut-on + edge/2 ≤ from.
-    const cutOnNm = tidy(floorTo(fromNm - edgeWidthNm / 2, ORDER_SORTING_RULES.cutOnStepNm(fromNm)));
+    const step = ORDER_SORTING_RULES.cutOnStepNm(inFromNm);
+    let cutOnNm = tidy(floorTo(inFromNm - edgeWidthNm / 2, step));
+    // floorTo's nudge can round up by a hair; the filter must pass its own first setting in full.
+    if (cutOnNm + edgeWidthNm / 2 > inFromNm) cutOnNm = tidy(cutOnNm - step);
     const blockedNm = cutOnNm - edgeWidthNm / 2;
     if (!(blockedNm > 0)) break;
     // Blocks order |m|+1 (and so every higher one) until |m|λ/(|m|+1) reaches its ramp foot; once
     // the foot is above the whole source, nothing shorter gets through at any setting.
     const reachNm = blockedNm >= sourceMaxNm ? Number.POSITIVE_INFINITY : blockedNm * ratio;
     const toNm = reachNm >= range.endNm ? range.endNm : tidy(floorTo(reachNm, reachNm > 100 ? 1 : 0.01));
-    if (!(toNm > fromNm)) break;
-    // Tidied only downwards: a switch-in a hair after the range start would leave it unfiltered.
-    const inFromNm = tidy(fromNm) <= fromNm ? tidy(fromNm) : fromNm;
+    if (!(toNm > inFromNm)) break;
     plan.push({ kind: 'long-pass', cutOnNm, inFromNm, inToNm: toNm, edgeWidthNm });
     fromNm = toNm;
   }
