@@ -34,6 +34,7 @@ const outAndIn: readonly Audience[] = ['signed out', 'owner'];
 const screens = [
   { name: 'landing', path: () => '/', ready: ['landing-heading'], audiences: outAndIn },
   { name: 'workbench', path: () => '/workbench', ready: ['readout-bandpass', 'ray-sketch'], audiences: outAndIn },
+  { name: 'selectors', path: () => '/selectors?tool=prism', ready: ['prism-bandpass', 'prism-source'], audiences: ['signed out'] },
   { name: 'sign-in', path: () => '/sign-in', ready: ['sign-in-submit'], audiences: ['signed out'] },
   { name: 'sign-up', path: () => '/sign-up', ready: ['sign-up-submit'], audiences: ['signed out'] },
   { name: 'forgot-password', path: () => '/forgot-password', ready: ['reset-submit'], audiences: ['signed out'] },

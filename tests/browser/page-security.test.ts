@@ -37,6 +37,7 @@ describe('pages under the Content-Security-Policy', () => {
   it.each([
     { path: '/', ready: (page: Page) => page.getByRole('heading', { level: 1 }).waitFor() },
     { path: '/workbench', ready: (page: Page) => page.getByText('Bandpass', { exact: false }).first().waitFor() },
+    { path: '/selectors', ready: (page: Page) => page.getByTestId('thin-film-airy').waitFor() },
     { path: '/sign-in', ready: (page: Page) => page.getByTestId('sign-in-submit').waitFor() },
     { path: '/notebooks', ready: (page: Page) => page.getByTestId('sign-in-submit').waitFor() },
   ])('$path loads with no CSP violation and no console error or warning', async ({ path, ready }) => {

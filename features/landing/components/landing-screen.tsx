@@ -66,6 +66,12 @@ export function LandingScreen() {
         <View style={styles.actions}>
           <Button label="Open the workbench" onPress={() => router.push('/workbench')} testID="open-workbench" />
           <Button kind="secondary" label="Team notebooks" onPress={() => router.push('/notebooks' as Href)} testID="open-notebooks" />
+          <Button
+            kind="secondary"
+            label="Filters and prisms"
+            onPress={() => router.push('/selectors' as Href)}
+            testID="open-selectors"
+          />
         </View>
         {session.data?.user ? null : (
           <View style={styles.signUp}>
