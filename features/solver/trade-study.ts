@@ -188,6 +188,8 @@ export interface SelectorStudy {
   hasOverlappingOrders: boolean;
   overlappingOrders: string;
   size: string;
+  /** A few words each for a table cell: peak transmission, tuning, overlapping orders and size. */
+  brief: { peak: string; tuning: string; overlaps: string; size: string };
   notes: string[];
 }
 
@@ -300,6 +302,11 @@ function runsText(wavelengthsNm: readonly number[], flagged: (i: number) => bool
   if (open) runs.push(open);
   const shown = runs.slice(0, 3).map(([a, b]) => (a === b ? nm(a) : `${formatNumber(a)}–${nm(b)}`));
   return runs.length > 3 ? `${shown.join(', ')} and ${runs.length - 3} more` : shown.join(', ');
+}
+
+/** "≈ 73 %": an estimate, marked as one; "—" without. */
+function estimateText(value: number | null): string {
+  return value === null || !Number.isFinite(value) ? '—' : `≈\u00A0${formatPercent(value)}`;
 }
 
 /** The grating's point may carry the order-sorting count (issue 16); older points have only overlapCount. */
@@ -474,6 +481,12 @@ function gratingStudy(ctx: Context, summary: ReturnType<typeof evaluateDesign>['
     hasOverlappingOrders: anyOverlap,
     overlappingOrders: overlapping,
     size,
+    brief: {
+      peak: estimateText(peak),
+      tuning: reachable ? 'turn the grating' : 'turn the grating; part unreachable',
+      overlaps: anyOverlap ? (unblockedTotal === 0 ? 'yes, all blocked' : 'yes: needs filters') : 'none',
+      size: `f ${formatNumber(layout.collimatorFocalMm)}/${mm(layout.cameraFocalMm)}; ${formatNumber(grating.ruledWidthMm)} × ${mm(grating.ruledHeightMm)} grating`,
+    },
     notes,
   };
 }
@@ -552,6 +565,12 @@ function prismStudy(ctx: Context): SelectorStudy {
     unitsToCover: passes ? 1 : null,
     hasOverlappingOrders: false,
     overlappingOrders: 'None: a prism has a single order.',
+    brief: {
+      peak: estimateText(peak),
+      tuning: passes ? 'turn the prism' : 'turn the prism; no light in part',
+      overlaps: 'none',
+      size: `f ${formatNumber(design.layout.collimatorFocalMm)}/${mm(design.layout.cameraFocalMm)}; ${mm(prism.baseMm)} base`,
+    },
     size:
       `Same focal lengths as the design; prism faces ${mm(faceMm)}, base ${mm(prism.baseMm)}, ` +
       `${mm(design.grating.ruledHeightMm)} tall` + (beamMm === null ? '.' : `; beam ${mm(beamMm)} wide at the range centre.`),
@@ -591,6 +610,12 @@ function interferenceStudy(ctx: Context): SelectorStudy {
     tunability: coverWords,
     unitsToCover: filtersToCover,
     hasOverlappingOrders: any,
+    brief: {
+      peak: `${estimateText(peak)} (lossless)`,
+      tuning: filtersToCover === null ? 'none (no tilt)' : `tilt ≤ ${formatNumber(fp.maxTiltDeg)}°: ${formatInteger(filtersToCover)} filter${filtersToCover === 1 ? '' : 's'}`,
+      overlaps: any ? 'yes: needs blocking' : 'none',
+      size: `${mm(fp.diameterMm)} each`,
+    },
     overlappingOrders: any
       ? `Other cavity peaks (the next at ${next}) fall in the range for filters tuned to ${runsText(wavelengthsNm, (i) => withPeaks[i]!)}: ` +
         'those need a blocking filter.'
@@ -644,6 +669,12 @@ function glassStudy(ctx: Context): SelectorStudy {
     unitsToCover: glassesToCover,
     hasOverlappingOrders: false,
     overlappingOrders: 'None: absorption has no orders.',
+    brief: {
+      peak: estimateText(peak),
+      tuning: `fixed: ${formatInteger(glassesToCover)} glass${glassesToCover === 1 ? '' : 'es'}`,
+      overlaps: 'none',
+      size: `${mm(glass.diameterMm)} × ${mm(glass.thicknessMm)} each`,
+    },
     size: `${mm(glass.diameterMm)} glasses, ${mm(glass.thicknessMm)} thick (stock sizes, from memory), ${formatInteger(glassesToCover)} of them.`,
     notes,
   };
