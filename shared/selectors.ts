@@ -32,7 +32,8 @@ const positive = (max: number, unitWords: string) =>
     .gt(0, { error: 'must be greater than 0' })
     .max(max, { error: `must be at most ${max}${unitWords ? ` ${unitWords}` : ''}` });
 
-const wavelengthNm = () => positive(10_000_000, 'nm');
+/** The design's own bounds (0.001 nm to 10 mm): a range from 1e-320 nm would hold every order at once. */
+const wavelengthNm = () => positive(10_000_000, 'nm').min(0.001, { error: 'must be at least 0.001 nm' });
 
 const fraction = (words: string) =>
   number()

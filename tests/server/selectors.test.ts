@@ -131,6 +131,8 @@ describe('POST /api/selectors', () => {
     ],
     ['a perfect mirror', { ...EXAMPLES['interference-filter'], mirrorReflectance: 1 }, 'mirrorReflectance', /less than 1/],
     ['a reversed range', { ...EXAMPLES['interference-filter'], rangeNm: { startNm: 700, endNm: 400 } }, 'rangeNm.endNm', /greater than startNm/],
+    // A range starting next to 0 nm would hold nearly every order: the design's 0.001 nm floor.
+    ['a range from 1e-320 nm', { ...EXAMPLES['interference-filter'], rangeNm: { startNm: 1e-320, endNm: 1000 } }, 'rangeNm.startNm', /at least 0.001 nm/],
     ['a misspelt field', { ...EXAMPLES['interference-filter'], targetnm: 500 }, '(body)', /unknown field 'targetnm'/],
   ] satisfies [string, unknown, string, RegExp][])('refuses %s with a 400 naming the field', async (_name, body, field, message) => {
     const res = await post(body).expect(400);
