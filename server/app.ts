@@ -17,7 +17,7 @@ import { createReviews } from './reviews/index';
 import { createSheets } from './sheets/index';
 import { openApiRoute } from './openapi';
 import { searchRoute } from './search/router';
-import { selectorsRoute, type SelectorRateLimits } from './selectors/router';
+import { selectorsRoute } from './selectors/router';
 import { solveRoute } from './solve/router';
 import { createTeams } from './teams/index';
 
@@ -40,7 +40,7 @@ export type AppDeps = {
   /** PUBLIC_URL's origin, when configured: the only Origin state-changing requests may carry. */
   trustedOrigin?: string;
   /** Sign-in, sign-up, reset, solve, search and selectors limits; tests inject small ones. */
-  rateLimits?: Partial<RateLimits & SelectorRateLimits>;
+  rateLimits?: Partial<RateLimits>;
   /** argon2id for account passwords; left out, OWASP's minimum cost (server/index.ts leaves it out). */
   passwords?: PasswordHasher;
 };

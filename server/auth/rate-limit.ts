@@ -20,6 +20,8 @@ export type RateLimits = {
   sheetsPerIp: number;
   /** `POST /api/search` calls per IP per `solveWindowMs`. */
   searchPerIp: number;
+  /** `POST /api/selectors` calls per IP per `solveWindowMs`. */
+  selectorsPerIp: number;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -44,6 +46,9 @@ export const defaultRateLimits: RateLimits = {
   // bench:search`; over a second the first time in a process): 20 a minute keeps one address to a
   // small share of each minute, and a script refining requirements rarely searches more often.
   searchPerIp: 20,
+  // One selector call evaluates at most 1,000 wavelengths through closed forms (SELECTOR_LIMITS), a
+  // small fraction of the thread, so 60 a minute (a script sweeping parameters once a second) is safe.
+  selectorsPerIp: 60,
 };
 
 type KeyBy = 'ip' | 'email' | 'email-and-ip';
@@ -133,5 +138,16 @@ export function createSearchRateLimiter(limits: Pick<RateLimits, 'searchPerIp' |
     'ip',
     false,
     'Too many searches from this address. Wait a minute and try again.',
+  );
+}
+
+/** `POST /api/selectors` per IP: its own counters, apart from solving and searching. */
+export function createSelectorsRateLimiter(limits: Pick<RateLimits, 'selectorsPerIp' | 'solveWindowMs'>): RequestHandler {
+  return limiter(
+    limits.selectorsPerIp,
+    limits.solveWindowMs,
+    'ip',
+    false,
+    'Too many selector calculations from this address. Wait a minute and try again.',
   );
 }

@@ -14,7 +14,7 @@ import {
   selectorAnswerSchema,
 } from '../../shared/selector-answers';
 import { SELECTOR_LIMITS } from '../../shared/selectors';
-import { defaultSelectorsPerIp } from '../../server/selectors/router';
+import { defaultRateLimits } from '../../server/auth/rate-limit';
 import type { DatabaseHandle } from '../../db/client';
 import { createTestApp } from '../support/test-app';
 import { openTestDatabase } from '../support/test-db';
@@ -226,7 +226,7 @@ describe('POST /api/selectors', () => {
       expect(op?.operationId).toBe('selectors.run');
       expect(op?.security).toBeUndefined();
       // The contract (in shared/, which cannot import the server) states the server's default limit.
-      expect(op?.description).toContain(`${defaultSelectorsPerIp} calls a minute per address`);
+      expect(op?.description).toContain(`${defaultRateLimits.selectorsPerIp} calls a minute per address`);
     });
 
     it('documents the input of each kind: the examples pass the documented body schema, a bad body fails it', () => {
