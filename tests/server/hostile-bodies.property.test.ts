@@ -16,6 +16,11 @@ import { createNotebookFixture, type NotebookFixture } from './notebooks/fixture
  */
 
 const runsPerRoute = 1000;
+/** The example design with an order-sorting filter, so the fuzzer reaches the filter list's fields too. */
+const filteredDesign = {
+  ...exampleDesign,
+  filters: [{ kind: 'long-pass', cutOnNm: 395, inFromNm: 400, inToNm: 780, edgeWidthNm: 10 }],
+};
 
 /** Every string PostgreSQL could choke on shows up: NUL, lone surrogates, any UTF-16 code unit. */
 const anyCodeUnits = fc.array(fc.integer({ min: 0, max: 0xffff }), { maxLength: 24 }).map((units) => String.fromCharCode(...units));
@@ -119,7 +124,7 @@ beforeAll(async () => {
   const threadId: string = started.body.thread.id;
   const remarkId: string = started.body.thread.remarks[0].id;
   targets = {
-    'POST /api/solve': { as: 'anonymous', body: { design: exampleDesign, at: [400, 500] } },
+    'POST /api/solve': { as: 'anonymous', body: { design: filteredDesign, at: [400, 500] } },
     // A one-candidate space, so a thousand bodies that pass stay quick.
     'POST /api/search': {
       as: 'anonymous',
@@ -170,7 +175,7 @@ beforeAll(async () => {
       },
     },
     'PATCH /api/designs/:id': { as: 'owner', params: design, body: { title: 'Fuzzed', tags: ['a'], archived: false } },
-    'POST /api/designs/:id/versions': { as: 'owner', params: design, body: { baseVersion: 1, params: exampleDesign, notes: 'n', message: 'm' } },
+    'POST /api/designs/:id/versions': { as: 'owner', params: design, body: { baseVersion: 1, params: filteredDesign, notes: 'n', message: 'm' } },
     'POST /api/designs/:id/clone': { as: 'owner', params: design, body: { version: 1, title: 'Clone' } },
     'PUT /api/designs/:id/baseline': { as: 'owner', params: design, body: { version: 1 } },
     'POST /api/designs/:id/share-links': { as: 'owner', params: design, body: { version: 1, expiresAt: '2027-01-01T00:00:00Z' } },
