@@ -231,3 +231,29 @@ describe('planSearch', () => {
     expect(issues['requirements.minPixelsPerBandpass']).toMatch(/needs a detector/);
   });
 });
+
+describe('a search that allows filtered overlaps', () => {
+  // 300–900 nm from a 200–1100 nm source: order 2 brings λ/2 in from 400 nm (Palmer & Loewen,
+  // Diffraction Grating Handbook, ch. 2), so only a candidate with order-sorting filters can pass.
+  const filtered = parse({
+    range: { startNm: 300, endNm: 900 },
+    source: { minNm: 200, maxNm: 1100 },
+    requirements: { maxBandpassNm: 1, orderOverlap: 'filtered' },
+    search: { grooveDensitiesPerMm: [300, 600, 1200], blazeWavelengthsNm: [500], maxOrder: 1, deviationAnglesDeg: [30], focalLengthsMm: [300] },
+  });
+
+  it('gives each candidate its order-sorting plan, and the ordinary check passes it', () => {
+    const answer = runSearch(filtered);
+    expect(answer.candidates.length).toBeGreaterThan(0);
+    for (const candidate of answer.candidates) {
+      const design = designSchema.parse(candidate.design);
+      expect(design.filters?.length).toBeGreaterThan(0);
+      const overlap = checkRequirements(design).checks.find((c) => c.id === 'orderOverlap');
+      expect(overlap?.status).toBe('pass');
+      // Without the plan the same candidate fails: the filters are what make it pass.
+      const bare = { ...design };
+      delete bare.filters;
+      expect(checkRequirements(bare).checks.find((c) => c.id === 'orderOverlap')?.status).toBe('fail');
+    }
+  });
+});
