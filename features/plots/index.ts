@@ -2,6 +2,7 @@ export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './co
 export {
   EFFICIENCY_MODEL_CAPTION,
   FAILING_LABEL,
+  OVERLAP_SHADE_LABEL,
   PerformancePlots,
   RESOLVING_POWER_CAPTION,
   TWO_COLUMN_MIN_WIDTH,
@@ -21,3 +22,4 @@ export {
 export { performanceSeries, type PerformanceSeries } from './series';
 export { axisMarginPx, labelWidthPx, sharesAxis, valueScale, valueTicks } from './axes';
 export { scalarBlazeCaution, type ScalarBlazeCaution } from './captions';
+export { filterChangeMarks, marksSummary, overlapSummary, type PlotMark } from './filter-marks';

@@ -10,8 +10,13 @@ export interface PerformanceSeries {
   resolvingPower: Values;
   blazeEfficiency: Values;
   gratingRotationDeg: Values;
-  /** Where another order lands on the same angle (from the source's span). */
+  /**
+   * Where another order of the source lands on the same angle and no order-sorting filter in the
+   * beam blocks it (the solver's `unblockedOverlapCount`): accepting a filter plan shrinks it.
+   */
   overlapIntervals: Interval[];
+  /** Whether any other order lands on the range at all, blocked or not. */
+  anyOverlap: boolean;
 }
 
 /** One pass over the points, ordered by wavelength (the plots' x must ascend). */
@@ -24,6 +29,7 @@ export function performanceSeries(points: readonly WavelengthPoint[]): Performan
   const power = new Array<number | null>(n);
   const efficiency = new Array<number | null>(n);
   const rotation = new Array<number | null>(n);
+  let anyOverlap = false;
   for (let i = 0; i < n; i++) {
     const p = sorted[i] as WavelengthPoint;
     wavelengthsNm[i] = p.wavelengthNm;
@@ -32,6 +38,7 @@ export function performanceSeries(points: readonly WavelengthPoint[]): Performan
     power[i] = p.resolvingPower;
     efficiency[i] = p.blazeEfficiency;
     rotation[i] = p.gratingRotationDeg;
+    if (p.overlapCount > 0) anyOverlap = true;
   }
   return {
     wavelengthsNm,
@@ -42,8 +49,9 @@ export function performanceSeries(points: readonly WavelengthPoint[]): Performan
     gratingRotationDeg: rotation,
     overlapIntervals: flaggedIntervals(
       wavelengthsNm,
-      (i) => (sorted[i] as WavelengthPoint).overlaps.length > 0,
+      (i) => (sorted[i] as WavelengthPoint).unblockedOverlapCount > 0,
     ),
+    anyOverlap,
   };
 }
 

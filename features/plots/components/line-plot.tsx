@@ -25,6 +25,7 @@ import {
   type Interval,
   type Values,
 } from '../plot-paths';
+import type { PlotMark } from '../filter-marks';
 
 export interface PlotSeries extends AxisSeries {
   /** Short name for the read-out and the axis ("Bandpass", "R"). */
@@ -65,6 +66,12 @@ export type LinePlotProps = {
   shaded?: readonly Interval[];
   /** What the shading means, shown under the title when anything is shaded. */
   shadedLabel?: string;
+  /** Where the shading is, in words, read out with the plot (it may also say that nothing is shaded). */
+  shadedSummary?: string;
+  /** Labelled vertical lines at settings where something changes (filters going in), dashed and named, never colour alone. */
+  marks?: readonly PlotMark[];
+  /** The marks in words, read out with the plot. */
+  marksSummary?: string;
   /** Where the design fails a requirement this plot draws: hatched and outlined, so print and grey show it. */
   failing?: readonly Interval[];
   /** The key's words for the hatching. */
@@ -238,6 +245,8 @@ export function LinePlot(props: LinePlotProps) {
         role="img"
         aria-label={
           describePlot(title, wavelengthsNm, series, secondSeries) +
+          (props.shadedSummary ? `; ${props.shadedSummary}` : '') +
+          (props.marksSummary ? `; ${props.marksSummary}` : '') +
           (props.failingSummary ? `; fails its requirements: ${props.failingSummary}` : '')
         }
       >
@@ -249,6 +258,7 @@ export function LinePlot(props: LinePlotProps) {
             secondSeries={secondSeries}
             shaded={props.shaded}
             failing={props.failing}
+            marks={props.marks}
             emptyMessage={props.emptyMessage}
             frame={frame}
             width={width}
@@ -337,7 +347,7 @@ function readValue(series: PlotSeries, index: number): string {
 
 type BodyProps = Pick<
   LinePlotProps,
-  'testID' | 'wavelengthsNm' | 'series' | 'secondSeries' | 'shaded' | 'failing' | 'emptyMessage'
+  'testID' | 'wavelengthsNm' | 'series' | 'secondSeries' | 'shaded' | 'failing' | 'marks' | 'emptyMessage'
 > & {
   frame: Frame;
   width: number;
@@ -352,6 +362,7 @@ const PlotBody = memo(function PlotBody({
   secondSeries,
   shaded,
   failing,
+  marks,
   emptyMessage,
   frame,
   width,
@@ -519,6 +530,41 @@ const PlotBody = memo(function PlotBody({
         >
           {y2Title}
         </SvgText>
+      ) : null}
+      {marks && marks.length > 0 ? (
+        <G testID={`${testID}-marks`} data-marks={String(marks.length)}>
+          {marks.map((mark, i) => {
+            const at = x(mark.nm);
+            if (!(at >= left && at <= right)) return null;
+            // Near the right edge a label ends at its line; neighbours alternate rows so they do not collide.
+            const flip = at > right - 70;
+            return (
+              <G key={`${mark.nm}-${i}`}>
+                <Line
+                  x1={at}
+                  x2={at}
+                  y1={top}
+                  y2={bottom}
+                  stroke={colors.ink}
+                  strokeWidth={1}
+                  strokeDasharray="2 2"
+                  testID={`${testID}-mark`}
+                  data-nm={String(mark.nm)}
+                />
+                <SvgText
+                  x={flip ? at - 3 : at + 3}
+                  y={top + 10 + (i % 2) * 12}
+                  fontSize={TICK_PX}
+                  fontFamily={fonts.regular}
+                  fill={colors.ink}
+                  textAnchor={flip ? 'end' : 'start'}
+                >
+                  {mark.label}
+                </SvgText>
+              </G>
+            );
+          })}
+        </G>
       ) : null}
       {!parts.d && emptyMessage ? (
         <SvgText

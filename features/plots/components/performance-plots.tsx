@@ -2,9 +2,11 @@ import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Evaluation, WavelengthPoint } from '@/features/solver';
 import type { Design } from '@/shared/design';
+import type { OrderSortingFilter } from '@/shared/filters';
 import { formatNumber, formatPercent } from '@/shared/format';
 import { colors, space } from '@/features/ui';
 import { scalarBlazeCaution, type ScalarBlazeCaution } from '../captions';
+import { filterChangeMarks, marksSummary, overlapSummary, type PlotMark } from '../filter-marks';
 import { requirementShading, type RequirementShade } from '../requirement-shading';
 import { performanceSeries, type PerformanceSeries } from '../series';
 import { LinePlot, type PlotSeries } from './line-plot';
@@ -23,7 +25,12 @@ export type PerformancePlotsProps = PlotProps & {
   columns?: 1 | 2;
   /** The design whose requirements are shaded where they fail (the one `evaluation` is of); none when absent. */
   design?: Design | null;
+  /** The design's order-sorting filters: where they change is marked on the scan curve. */
+  filters?: readonly OrderSortingFilter[] | null;
 };
+
+/** The key under the efficiency plot for its shading. */
+export const OVERLAP_SHADE_LABEL = 'Shaded: other orders land here and no filter blocks them';
 
 /** The key under a plot's title for its hatching. */
 export const FAILING_LABEL = 'Hatched: fails a requirement here';
@@ -149,7 +156,8 @@ const Efficiency = memo(function Efficiency({
       wavelengthsNm={data.wavelengthsNm}
       series={series}
       shaded={data.overlapIntervals}
-      shadedLabel="Other orders land here too (overlapping orders)"
+      shadedLabel={OVERLAP_SHADE_LABEL}
+      shadedSummary={overlapSummary(data.overlapIntervals, data.anyOverlap)}
       emptyMessage="Give a blaze wavelength to see the efficiency"
       caution={caution?.text ?? null}
       caption={EFFICIENCY_MODEL_CAPTION}
@@ -157,7 +165,7 @@ const Efficiency = memo(function Efficiency({
   );
 });
 
-const Rotation = memo(function Rotation({ data, ...rest }: Ready) {
+const Rotation = memo(function Rotation({ data, marks, ...rest }: Ready & { marks: readonly PlotMark[] }) {
   const series: PlotSeries = useMemo(
     () => ({
       label: 'Rotation',
@@ -175,16 +183,21 @@ const Rotation = memo(function Rotation({ data, ...rest }: Ready) {
       title="Grating rotation (scan curve)"
       wavelengthsNm={data.wavelengthsNm}
       series={series}
+      {...(marks.length > 0 ? { marks, marksSummary: `order-sorting filters change: ${marksSummary(marks)}` } : {})}
       emptyMessage="No wavelength in the range is reachable"
     />
   );
 });
 
 /** The four performance plots against wavelength: one per row, or two columns when wide. */
-export function PerformancePlots({ evaluation, width, columns, design = null, ...rest }: PerformancePlotsProps) {
+export function PerformancePlots({ evaluation, width, columns, design = null, filters = null, ...rest }: PerformancePlotsProps) {
   const data = useSeries(evaluation);
   const shades = useMemo(() => requirementShading(ascending(evaluation.points), design), [evaluation, design]);
   const caution = useMemo(() => scalarBlazeCaution(evaluation), [evaluation]);
+  const marks = useMemo(
+    () => (filters && filters.length > 0 ? filterChangeMarks(evaluation.orderSorting.filterChangesNm, filters) : []),
+    [evaluation, filters],
+  );
   const cols = columns ?? (width >= TWO_COLUMN_MIN_WIDTH ? 2 : 1);
   const plotWidth = Math.floor(cols === 2 ? (width - GAP) / 2 : width);
   const shared = { ...rest, data, width: plotWidth };
@@ -193,7 +206,7 @@ export function PerformancePlots({ evaluation, width, columns, design = null, ..
       <Dispersion {...shared} shade={shades?.dispersion} />
       <Bandpass {...shared} shade={shades?.bandpass} />
       <Efficiency {...shared} caution={caution} shade={shades?.efficiency} />
-      <Rotation {...shared} />
+      <Rotation {...shared} marks={marks} />
     </View>
   );
 }

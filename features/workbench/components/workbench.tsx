@@ -13,19 +13,23 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 // The file, not the notebooks index: that index reaches back into this feature.
 import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
 import { CandidateSearchPanel } from '@/features/candidates';
+import { OrderSortingCard } from '@/features/order-sorting';
 import { PerformancePlots } from '@/features/plots';
 import { TradeStudyCard } from '@/features/selectors';
 import { CautionsCard } from '@/features/safety';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
 import { Card, colors, space, useLayout } from '@/features/ui';
 import type { Design } from '@/shared/design';
+import type { OrderSortingFilter } from '@/shared/filters';
 import type { Draft } from '../draft';
 import { useFieldMarks } from '../field-marks';
 import type { FormResult, FormValues } from '../form-model';
 import { useWorkbench } from '../hooks/use-workbench';
 import { measureEditEnd } from '../perf-marks';
 import type { Preset } from '../presets';
+import { filterToText } from '../filter-fields';
 import { BlockedNote } from './blocked-note';
+import { FilterRowFields } from './filter-row-fields';
 import { DesignEditor } from './design-editor';
 import { PresetPicker } from './preset-picker';
 import { RangeTable } from './range-table';
@@ -117,19 +121,51 @@ export function Workbench({
     return () => clearTimeout(timer);
   }, [askedField, showField]);
 
-  // One undo for the last solved value or opened candidate: the text they replaced.
-  const [valueUndo, setValueUndo] = useState<{ text: string; previous: FormValues } | null>(null);
+  // One undo for the last solved value, opened candidate or filter plan: the text they replaced.
+  // `from` says which card offers it, beside the button that made the change.
+  const [valueUndo, setValueUndo] = useState<{
+    text: string;
+    previous: FormValues;
+    from: 'requirements' | 'filters';
+  } | null>(null);
   const applyOffer = (offer: SolveOffer) => {
     const previous = bench.applyChanges(offer.changes);
-    setValueUndo({ text: `Applied: ${offer.text}.`, previous });
+    setValueUndo({ text: `Applied: ${offer.text}.`, previous, from: 'requirements' });
   };
   const openCandidate = (design: Design) => {
     const previous = bench.openDesign(design);
-    setValueUndo({ text: 'Opened a candidate design in the editor.', previous });
+    setValueUndo({ text: 'Opened a candidate design in the editor.', previous, from: 'requirements' });
   };
-  const undoValue = valueUndo
-    ? { text: valueUndo.text, onUndo: () => (bench.restore(valueUndo.previous), setValueUndo(null)) }
-    : null;
+  const undoFor = (from: 'requirements' | 'filters') =>
+    valueUndo?.from === from
+      ? { text: valueUndo.text, onUndo: () => (bench.restore(valueUndo.previous), setValueUndo(null)) }
+      : null;
+  const undoValue = undoFor('requirements');
+  const applyFilters = (filters: OrderSortingFilter[] | undefined, text: string) => {
+    const previous = bench.applyFilters(filters);
+    setValueUndo({ text, previous, from: 'filters' });
+  };
+  const filterRows = bench.values.filters ?? [];
+  const addFilter = () => {
+    // The next filter of the proposed plan when there is one, else a row whose cut-on is to be typed.
+    const proposed = bench.evaluation.orderSorting.proposedFilters[filterRows.length];
+    const { startNm, endNm } = bench.design.range;
+    const row = proposed
+      ? filterToText(proposed)
+      : { kind: 'long-pass' as const, cutOnNm: '', inFromNm: String(startNm), inToNm: String(endNm), edgeWidthNm: '10' };
+    bench.setFilterRows([...filterRows, row]);
+  };
+  const removeFilter = (index: number) => {
+    const next = filterRows.filter((_, i) => i !== index);
+    // Removing the last filter leaves the design without a list, as before any was added.
+    const previous = bench.setFilterRows(next.length > 0 ? next : null);
+    setValueUndo({ text: `Removed filter ${index + 1}.`, previous, from: 'filters' });
+  };
+  const { control } = bench.form;
+  const filterFields = useCallback(
+    (index: number) => <FilterRowFields control={control} index={index} highlightedPath={highlightedPath} />,
+    [control, highlightedPath],
+  );
 
   const pickPreset = (preset: Preset) => {
     const previous = bench.applyPreset(preset);
@@ -199,6 +235,7 @@ export function Workbench({
             selectedNm={selectedNm}
             onSelectWavelength={onSelectWavelength}
             design={bench.requirementsSet ? bench.design : null}
+            filters={bench.design.filters ?? null}
           />
         </View>
       </Card>
@@ -244,6 +281,20 @@ export function Workbench({
       dimmed={dimmed}
     />
   );
+  // The filter plan beside the warnings it clears: the order-overlap warning's fix is here.
+  const orderSorting = (
+    <OrderSortingCard
+      design={bench.design}
+      evaluation={deferredEvaluation}
+      onApplyFilters={applyFilters}
+      readOnly={readOnly}
+      dimmed={dimmed}
+      rows={{ count: filterRows.length, fields: filterFields }}
+      onAddFilter={addFilter}
+      onRemoveFilter={removeFilter}
+      undo={undoFor('filters')}
+    />
+  );
   const search = bench.requirementsSet ? (
     <Card title="Find designs that meet the requirements" testID="search-card">
       <CandidateSearchPanel
@@ -278,6 +329,7 @@ export function Workbench({
           {editor}
           {blocked}
           {warnings}
+          {orderSorting}
           {requirements}
           {search}
           {sensitivity}
@@ -311,6 +363,7 @@ export function Workbench({
           {blocked}
           {graphics}
           {warnings}
+          {orderSorting}
           {requirements}
           {search}
           {sensitivity}
@@ -335,6 +388,7 @@ export function Workbench({
       </ScrollView>
       <ScrollView style={styles.resultsPane} contentContainerStyle={[styles.column, pad]}>
         {warnings}
+        {orderSorting}
         {requirements}
         {search}
         {sensitivity}

@@ -10,9 +10,11 @@ import {
 } from '@/features/solver';
 import { checkRequirements, hasRequirements, solveForValues, type DesignChange } from '@/features/requirements';
 import type { Design, LayoutKind } from '@/shared/design';
+import type { OrderSortingFilter } from '@/shared/filters';
 import { formatMachineNumber } from '@/shared/format';
 import type { FieldErrors } from '@/shared/validation';
 import type { Draft } from '../draft';
+import { filtersToText, type FiltersText } from '../filter-fields';
 import { designToForm, formToDesign, readForm, type FormResult, type FormValues } from '../form-model';
 import { rememberDeviation, switchDeviation, type DeviationMemory } from '../mount-switch';
 import { defaultPreset, type Preset } from '../presets';
@@ -190,6 +192,18 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     return previous;
   }
 
+  /** Replaces the filter rows, checked like typing; returns the text they replaced, for an undo. */
+  function setFilterRows(rows: FiltersText) {
+    const previous = form.getValues();
+    form.setValue('filters', rows, { shouldValidate: true, shouldDirty: true });
+    return previous;
+  }
+
+  /** Replaces the design's filters (a proposed plan; undefined for none); returns the replaced text, for an undo. */
+  function applyFilters(filters: readonly OrderSortingFilter[] | undefined) {
+    return setFilterRows(filtersToText(filters));
+  }
+
   function restore(previous: FormValues) {
     form.reset(previous);
     setPresetId(null);
@@ -214,6 +228,8 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     applyPreset,
     openDesign,
     applyChanges,
+    applyFilters,
+    setFilterRows,
     restore,
     requirementsSet,
     requirementsReport,
