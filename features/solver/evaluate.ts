@@ -26,11 +26,10 @@ import {
 } from './mount';
 import { NO_OVERLAPS, overlapCount, overlappingOrders, type Overlap } from './orders';
 import {
-  blockedUpToNm,
+  blockedUpToAtSettingNm,
   filterChangesNm,
-  filtersInBeam,
-  filtersTransmission,
   proposeOrderSortingPlan,
+  transmissionAtSetting,
   unblockedOverlapCount,
 } from './order-sorting';
 import {
@@ -154,14 +153,14 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
   const bandpass = bandpassNm(rld, imageMm, exitWidthMm);
   const limitNm = diffractionLimitNm(wavelengthNm, order, plan.grooves);
   const overlapTotal = overlapCount(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
-  const inBeam = plan.filters.length === 0 ? plan.filters : filtersInBeam(plan.filters, wavelengthNm);
-  const blockedNm = blockedUpToNm(inBeam);
+  const blockedNm = blockedUpToAtSettingNm(plan.filters, wavelengthNm);
+  const filtered = blockedNm > Number.NEGATIVE_INFINITY;
   // Most wavelengths have no overlapping order: skip building an empty list for them.
   let overlaps: readonly Overlap[] = NO_OVERLAPS;
   if (overlapTotal > 0) {
     overlaps = overlappingOrders(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm);
     // The list comes unblocked; mark it only where a filter is in the beam.
-    if (inBeam.length > 0) for (const o of overlaps as Overlap[]) o.blocked = o.wavelengthNm <= blockedNm;
+    if (filtered) for (const o of overlaps as Overlap[]) o.blocked = o.wavelengthNm <= blockedNm;
   }
 
   return {
@@ -188,11 +187,11 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
     overlaps,
     overlapCount: overlapTotal,
     unblockedOverlapCount:
-      overlapTotal === 0 || inBeam.length === 0
+      overlapTotal === 0 || !filtered
         ? overlapTotal
         : unblockedOverlapCount(order, wavelengthNm, plan.overlapMinNm, plan.overlapMaxNm, blockedNm),
     overlapsTruncated: overlapTotal > overlaps.length,
-    filterTransmission: inBeam.length === 0 ? 1 : filtersTransmission(inBeam, wavelengthNm),
+    filterTransmission: filtered ? transmissionAtSetting(plan.filters, wavelengthNm) : 1,
     scanSensitivityNmPerArcsec: scanSensitivityNmPerArcsec(order, spacingNm, K, rotationRad),
   };
 }
@@ -347,13 +346,12 @@ function orderSortingSummary(
   let proposedUnblocked = 0;
   for (const p of points) {
     if (p.overlapCount === 0) continue;
-    const inBeam = filtersInBeam(proposedFilters, p.wavelengthNm);
     proposedUnblocked += unblockedOverlapCount(
       plan.order,
       p.wavelengthNm,
       plan.overlapMinNm,
       plan.overlapMaxNm,
-      blockedUpToNm(inBeam),
+      blockedUpToAtSettingNm(proposedFilters, p.wavelengthNm),
     );
   }
   return {

@@ -63,6 +63,28 @@ export function blockedUpToNm(filters: readonly OrderSortingFilter[]): number {
 }
 
 /**
+ * The highest ramp foot among the filters in the beam at `settingNm` (−∞ for none): the same as
+ * `blockedUpToNm(filtersInBeam(filters, settingNm))` without building the list, as the solver asks
+ * it at every wavelength.
+ */
+export function blockedUpToAtSettingNm(filters: readonly OrderSortingFilter[], settingNm: number): number {
+  let edge = Number.NEGATIVE_INFINITY;
+  for (const f of filters) {
+    if (f.inFromNm <= settingNm && settingNm <= f.inToNm) edge = Math.max(edge, f.cutOnNm - f.edgeWidthNm / 2);
+  }
+  return edge;
+}
+
+/** What the filters in the beam at `settingNm` pass of the working wavelength itself (1 for none). */
+export function transmissionAtSetting(filters: readonly OrderSortingFilter[], settingNm: number): number {
+  let t = 1;
+  for (const f of filters) {
+    if (f.inFromNm <= settingNm && settingNm <= f.inToNm) t *= longPassTransmission(f, settingNm);
+  }
+  return t;
+}
+
+/**
  * How many orders `n ≠ |m|` put a source wavelength `|m|λ/n` on λ that the filters do not block:
  * `λ' ∈ [sourceMin, sourceMax]` and `λ' > blockedUpTo`. Closed form, like `overlapCount`.
  */

@@ -1,7 +1,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  blockedUpToAtSettingNm,
   blockedUpToNm,
+  filtersTransmission,
+  transmissionAtSetting,
   evaluateDesign,
   filterChangesNm,
   filtersInBeam,
@@ -67,6 +70,10 @@ describe('a long-pass filter', () => {
     expect(blockedUpToNm(filters)).toBe(765);
     expect(blockedUpToNm([])).toBe(Number.NEGATIVE_INFINITY);
     expect(filterChangesNm(filters, 300, 900)).toEqual([400, 780]);
+    for (const nm of [350, 400, 500, 780, 800, 900, 950]) {
+      expect(blockedUpToAtSettingNm(filters, nm)).toBe(blockedUpToNm(filtersInBeam(filters, nm)));
+      expect(transmissionAtSetting(filters, nm)).toBe(filtersTransmission(filtersInBeam(filters, nm), nm));
+    }
   });
 });
 
