@@ -142,12 +142,16 @@ export const OrderSortingCard = memo(function OrderSortingCard({
             {orderSorting.unblockedOverlaps > 0 && span
               ? `Other orders reach the exit slit unblocked between ${formatNumber(span.fromNm)} and ${formatQuantity(span.toNm, 'nm')} ` +
                 `(wavelength × order pairs over the ${formatNumber(evaluation.points.length)} plotted wavelengths).`
-              : count > 0
+              : possible && count > 0
                 ? 'The filters block every overlapping order across the range.'
                 : 'No order overlaps inside the range.'}
           </Text>
         </View>
-        {!possible ? <Text style={styles.muted}>{noFilterNeededText(design)}</Text> : null}
+        {!possible ? (
+          <Text style={styles.line} testID="order-sorting-none-needed">
+            {noFilterNeededText(design)}
+          </Text>
+        ) : null}
         {count > 0 ? (
           <View role="list" style={styles.list} aria-label="The design's filters">
             {Array.from({ length: count }, (_, index) => (
