@@ -1,6 +1,6 @@
 /** The filter plan's words and figures for the card (and the design sheet). Pure: no React. */
 
-import { longPassTransmission, type Evaluation } from '../solver';
+import { longPassTransmission, type Evaluation } from '../solver/index';
 import type { Design } from '../../shared/design';
 import { filterFieldWords } from '../../shared/design-fields';
 import type { OrderSortingFilter } from '../../shared/filters';
