@@ -11,7 +11,7 @@
  */
 
 import type { Design } from '../../shared/design';
-import { formatInteger, formatNumber, formatPercent, formatQuantity } from '../../shared/format';
+import { formatInteger, formatNumber, formatPercent, formatQuantity, keepTogether } from '../../shared/format';
 import { REQUIREMENT_IDS, type Footprint, type RequirementId, type Requirements } from '../../shared/requirements';
 import { PRISM_MATERIAL_IDS, type PrismMaterial } from '../../shared/selectors';
 import { airyTransmission, fabryPerotFwhmNm, fabryPerotPeaksNm, reflectingFinesse, spacerThicknessNm, tiltedPeakNm } from './fabry-perot';
@@ -304,6 +304,12 @@ function runsText(wavelengthsNm: readonly number[], flagged: (i: number) => bool
   return runs.length > 3 ? `${shown.join(', ')} and ${runs.length - 3} more` : shown.join(', ');
 }
 
+/** "f 300 mm", or "f 200/240 mm" when the collimator and camera differ; never broken across lines. */
+function focalBrief(design: Design): string {
+  const { collimatorFocalMm: a, cameraFocalMm: b } = design.layout;
+  return keepTogether(a === b ? `f ${mm(a)}` : `f ${formatNumber(a)}/${mm(b)}`);
+}
+
 /** "≈ 73 %": an estimate, marked as one; "—" without. */
 function estimateText(value: number | null): string {
   return value === null || !Number.isFinite(value) ? '—' : `≈\u00A0${formatPercent(value)}`;
@@ -485,7 +491,7 @@ function gratingStudy(ctx: Context, summary: ReturnType<typeof evaluateDesign>['
       peak: estimateText(peak),
       tuning: reachable ? 'turn the grating' : 'turn the grating; part unreachable',
       overlaps: anyOverlap ? (unblockedTotal === 0 ? 'yes, all blocked' : 'yes: needs filters') : 'none',
-      size: `f ${formatNumber(layout.collimatorFocalMm)}/${mm(layout.cameraFocalMm)}; ${formatNumber(grating.ruledWidthMm)} × ${mm(grating.ruledHeightMm)} grating`,
+      size: `${focalBrief(design)}; ${formatNumber(grating.ruledWidthMm)} × ${mm(grating.ruledHeightMm)} grating`,
     },
     notes,
   };
@@ -569,7 +575,7 @@ function prismStudy(ctx: Context): SelectorStudy {
       peak: estimateText(peak),
       tuning: passes ? 'turn the prism' : 'turn the prism; no light in part',
       overlaps: 'none',
-      size: `f ${formatNumber(design.layout.collimatorFocalMm)}/${mm(design.layout.cameraFocalMm)}; ${mm(prism.baseMm)} base`,
+      size: `${focalBrief(design)}; ${mm(prism.baseMm)} base`,
     },
     size:
       `Same focal lengths as the design; prism faces ${mm(faceMm)}, base ${mm(prism.baseMm)}, ` +
