@@ -1,6 +1,7 @@
 /** The short ultraviolet note a calculator shows when its range reaches below 300 nm. Pure: no React. */
 
-import { cautionClosingLine, deepUvBelowNm } from '@/features/safety';
+// The pure file, not the feature's index: the index also exports a React card, and this module stays pure.
+import { cautionClosingLine, deepUvBelowNm } from '@/features/safety/cautions';
 import { formatQuantity } from '@/shared/format';
 
 export interface UvNote {

@@ -1,9 +1,20 @@
 /** What a calculator's plot says to someone who cannot see it. Pure: no React. */
 
-import { valueExtent, type PlotSeries } from '@/features/plots';
+// The pure file, not the feature's index: the index also exports the React plots.
+import { valueExtent, type Values } from '@/features/plots/plot-paths';
 import { formatNumber, withUnit } from '@/shared/format';
 
-export type XySeries = Pick<PlotSeries, 'label' | 'unit' | 'values' | 'color' | 'dash' | 'format'>;
+/** One line of a calculator plot: the workbench plot series' fields that a calculator uses. */
+export interface XySeries {
+  label: string;
+  /** Empty when dimensionless. */
+  unit: string;
+  values: Values;
+  color: string;
+  dash?: string;
+  /** How a value reads in the summary, when the unit alone does not say it ("87 %"). */
+  format?: (value: number | null) => string;
+}
 
 /**
  * "Transmission against wavelength, 350 to 800 nm; Stack from 0 to 87 %; …; peaks at 366.7 and

@@ -96,8 +96,7 @@ export function GlassStackTool({ text, onChange }: Props) {
           {text.filters.length > 1 ? (
             <Button
               kind="secondary"
-              label="Remove this filter"
-              accessibilityLabel={`Remove filter ${index + 1}`}
+              label={`Remove filter ${index + 1}`}
               onPress={() => remove(index)}
               testID={`glass-filter-${index + 1}-remove`}
             />

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import { StyleSheet, View } from 'react-native';
-import { Card, space, useLayout } from '@/features/ui';
+import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
+import { Card, colors, radius, space, useLayout } from '@/features/ui';
 
 type Props = {
   inputs: ReactNode;
@@ -8,17 +8,19 @@ type Props = {
   blocked: ReactNode;
   results: ReactNode;
   plots: ReactNode;
-  /** Dims the results and plots while they are the last valid ones. */
+  /** Marks the results and plots while they are the last valid ones (an outline: dimming would fail text contrast). */
   stale: boolean;
   testID: string;
 };
 
 /**
  * Inputs, then results, then plots in one column on a phone and a tablet; on a wide screen the
- * inputs keep a column of their own beside the results and plots, so a change shows beside it.
+ * inputs keep a window-high scrolling column of their own beside the results and plots, so a
+ * change shows beside the field however long the list of inputs (a stack of several filters).
  */
 export function ToolLayout({ inputs, blocked, results, plots, stale, testID }: Props) {
   const wide = useLayout() === 'wide';
+  const { height } = useWindowDimensions();
   const out = (
     <View style={[styles.column, stale && styles.stale]}>
       {results}
@@ -27,9 +29,14 @@ export function ToolLayout({ inputs, blocked, results, plots, stale, testID }: P
   );
   return (
     <View style={[styles.root, wide && styles.row]} testID={testID}>
-      <View style={wide ? styles.inputsWide : undefined}>
+      {wide ? (
+        // The app bar and the page's own padding take about 100 px of the window.
+        <ScrollView style={[styles.inputsWide, { maxHeight: Math.max(400, height - 100) }]} testID={`${testID}-inputs`}>
+          <Card title="Inputs">{inputs}</Card>
+        </ScrollView>
+      ) : (
         <Card title="Inputs">{inputs}</Card>
-      </View>
+      )}
       <View style={[styles.column, wide && styles.outWide]}>
         {blocked}
         {out}
@@ -44,5 +51,11 @@ const styles = StyleSheet.create({
   column: { gap: space.lg },
   inputsWide: { width: 400, flexShrink: 0 },
   outWide: { flex: 1, minWidth: 0 },
-  stale: { opacity: 0.55 },
+  stale: {
+    borderWidth: 2,
+    borderStyle: 'dashed',
+    borderColor: colors.danger,
+    borderRadius: radius.lg,
+    padding: space.xs,
+  },
 });
