@@ -52,10 +52,16 @@ export interface TradeOff {
   stack: EdgeFigures;
   /** What the stack is compared with, in words ("Filter 1 alone at its reference thickness (3 mm)"). */
   baselineWords: string;
+  /** The same, short enough for a figure's label ("Filter 1 alone"). */
+  baselineShort: string;
   baseline: EdgeFigures;
   /** The sentence under the plot. */
   sentence: string;
 }
+
+/** A rising edge's width as the figures show it, "—" when the range holds none. */
+export const edgeWidthText = (figures: EdgeFigures) =>
+  figures.edgeWidthNm === null ? '—' : formatQuantity(figures.edgeWidthNm, 'nm', 3);
 
 const edgeWords = (figures: EdgeFigures) =>
   figures.edgeWidthNm === null ? 'no rising edge in the range' : `10–90 % edge ${formatQuantity(figures.edgeWidthNm, 'nm', 3)}`;
@@ -78,6 +84,7 @@ export function glassTradeOff(filters: readonly AbsorptionFilter[], startNm: num
     return {
       stack,
       baselineWords: `Twice as thick (${formatQuantity(doubled.thicknessMm, 'mm')})`,
+      baselineShort: 'Twice as thick',
       baseline: twice,
       sentence:
         `This filter at its reference thickness: ${edgeWords(stack)}, ${peakWords(stack)}. ` +
@@ -90,6 +97,7 @@ export function glassTradeOff(filters: readonly AbsorptionFilter[], startNm: num
   return {
     stack,
     baselineWords,
+    baselineShort: 'Filter 1 alone',
     baseline: alone,
     sentence:
       `This stack: ${edgeWords(stack)}, ${peakWords(stack)}. ${baselineWords}: ${edgeWords(alone)}, ${peakWords(alone)}. ` +

@@ -45,6 +45,8 @@ describe('filters and prisms screen in Chromium', () => {
     expect(await page.getByTestId('thin-film-figures-finesse').textContent()).toBe('29.8');
     // The tilt curve: λ(30°) = 600 √(1 − (0.5/1.8)²) = 600 × 0.96065 = 576.39 nm.
     expect(await page.getByTestId('thin-film-figures-tilt').textContent()).toBe('576.39\u00A0nm');
+    // On a wide screen the inputs keep a 400 px column and the plots take the rest of the 1440 px.
+    if (size === 'wide') expect((await page.getByTestId('thin-film-airy').boundingBox())?.width).toBeGreaterThan(800);
     const summary = await page.getByTestId('thin-film-airy-figure').getAttribute('aria-label');
     expect(summary).toMatch(/^Transmission at normal incidence against wavelength, 350 to 800\u00A0nm/);
 

@@ -15,7 +15,7 @@ import {
   type GlassShape,
   type GlassStackText,
 } from '../glass-stack-form';
-import { glassTradeOff } from '../glass-trade-off';
+import { edgeWidthText, glassTradeOff } from '../glass-trade-off';
 import { uvNote } from '../uv-note';
 import { BlockedNote, FigureList, Note, UvNoteView, WarningNotes } from './calculator-parts';
 import { CalculatorFieldInput } from './calculator-field';
@@ -132,17 +132,9 @@ export function GlassStackTool({ text, onChange }: Props) {
   const figures = tradeOff
     ? [
         { id: 'stack-peak', label: 'Stack peak', value: percent(tradeOff.stack.peak) },
-        {
-          id: 'stack-edge',
-          label: 'Stack edge, 10–90 %',
-          value: tradeOff.stack.edgeWidthNm === null ? '—' : `${tradeOff.stack.edgeWidthNm.toFixed(1)} nm`,
-        },
-        { id: 'baseline-peak', label: `${tradeOff.baselineWords}: peak`, value: percent(tradeOff.baseline.peak) },
-        {
-          id: 'baseline-edge',
-          label: `${tradeOff.baselineWords}: edge`,
-          value: tradeOff.baseline.edgeWidthNm === null ? '—' : `${tradeOff.baseline.edgeWidthNm.toFixed(1)} nm`,
-        },
+        { id: 'stack-edge', label: 'Stack edge, 10–90 %', value: edgeWidthText(tradeOff.stack) },
+        { id: 'baseline-peak', label: `${tradeOff.baselineShort}: peak`, value: percent(tradeOff.baseline.peak) },
+        { id: 'baseline-edge', label: `${tradeOff.baselineShort}: edge`, value: edgeWidthText(tradeOff.baseline) },
       ]
     : [];
   const results = (

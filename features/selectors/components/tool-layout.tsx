@@ -49,7 +49,8 @@ const styles = StyleSheet.create({
   root: { gap: space.lg },
   row: { flexDirection: 'row', alignItems: 'flex-start' },
   column: { gap: space.lg },
-  inputsWide: { width: 400, flexShrink: 0 },
+  // ScrollView grows by default (flexGrow 1): held at its width, the results get the rest.
+  inputsWide: { width: 400, flexGrow: 0, flexShrink: 0 },
   outWide: { flex: 1, minWidth: 0 },
   stale: {
     borderWidth: 2,

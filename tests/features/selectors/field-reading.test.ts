@@ -2,7 +2,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { loadUnitParser } from '../../../features/solver';
 import { carriesOwnUnit, readFieldText, type CalculatorField } from '../../../features/selectors/field-reading';
 
-beforeAll(loadUnitParser);
+// mathjs loads in seconds, but a machine shared by several test runs has taken over 10 s.
+beforeAll(loadUnitParser, 60_000);
 
 const field = (reading: CalculatorField['reading'], optional = false): CalculatorField => ({
   key: 'x',

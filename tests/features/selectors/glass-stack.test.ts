@@ -4,7 +4,8 @@ import { GLASS_STACK_DEFAULTS, checkGlassStack, defaultGlassFilter, type GlassSt
 import { edgeFigures, glassTradeOff } from '../../../features/selectors/glass-trade-off';
 import type { AbsorptionFilter } from '../../../shared/selectors';
 
-beforeAll(loadUnitParser);
+// mathjs loads in seconds, but a machine shared by several test runs has taken over 10 s.
+beforeAll(loadUnitParser, 60_000);
 
 /** n = 1 has no surface loss, so the curve is the internal transmittance alone. */
 const bare: AbsorptionFilter = {

@@ -3,7 +3,8 @@ import { loadUnitParser, prismMonochromator } from '../../../features/solver';
 import { PRISM_DEFAULTS, checkPrism, missingMonochromatorFields, type PrismText } from '../../../features/selectors/prism-form';
 import { bandpassSpread } from '../../../features/selectors/prism-series';
 
-beforeAll(loadUnitParser);
+// mathjs loads in seconds, but a machine shared by several test runs has taken over 10 s.
+beforeAll(loadUnitParser, 60_000);
 
 const withText = (patch: Partial<PrismText>): PrismText => ({ ...PRISM_DEFAULTS, ...patch });
 

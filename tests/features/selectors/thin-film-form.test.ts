@@ -2,7 +2,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { designInterferenceFilter, loadUnitParser } from '../../../features/solver';
 import { THIN_FILM_DEFAULTS, checkThinFilm, thinFilmCurve, type ThinFilmText } from '../../../features/selectors/thin-film-form';
 
-beforeAll(loadUnitParser);
+// mathjs loads in seconds, but a machine shared by several test runs has taken over 10 s.
+beforeAll(loadUnitParser, 60_000);
 
 const withText = (patch: Partial<ThinFilmText>): ThinFilmText => ({ ...THIN_FILM_DEFAULTS, ...patch });
 
