@@ -11,6 +11,7 @@
  */
 
 import type { Design } from '../../shared/design';
+import { layoutKindOptions } from '../../shared/design-fields';
 import { formatInteger, formatNumber, formatPercent, formatQuantity, keepTogether } from '../../shared/format';
 import { REQUIREMENT_IDS, type Footprint, type RequirementId, type Requirements } from '../../shared/requirements';
 import { PRISM_MATERIAL_IDS, type PrismMaterial } from '../../shared/selectors';
@@ -304,6 +305,11 @@ function runsText(wavelengthsNm: readonly number[], flagged: (i: number) => bool
   return runs.length > 3 ? `${shown.join(', ')} and ${runs.length - 3} more` : shown.join(', ');
 }
 
+/** The mount's name as the editor shows it ("Czerny–Turner"). */
+function mountName(kind: Design['layout']['kind']): string {
+  return layoutKindOptions.find((option) => option.value === kind)?.label ?? kind;
+}
+
 /** "f 300 mm", or "f 200/240 mm" when the collimator and camera differ; never broken across lines. */
 function focalBrief(design: Design): string {
   const { collimatorFocalMm: a, cameraFocalMm: b } = design.layout;
@@ -475,7 +481,7 @@ function gratingStudy(ctx: Context, summary: ReturnType<typeof evaluateDesign>['
   return {
     id: 'grating',
     label: 'Grating',
-    setup: `This design: ${formatNumber(grating.grooveDensityPerMm)}/mm in order ${grating.order}, ${layout.kind} mount.`,
+    setup: `This design: ${formatNumber(grating.grooveDensityPerMm)}/mm in order ${grating.order}, ${mountName(layout.kind)} mount.`,
     bandpassNm: curves.bandpassNm,
     resolvingPower: curves.resolvingPower,
     bandpassSpanNm: span(curves.bandpassNm),
