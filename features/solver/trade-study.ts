@@ -321,11 +321,6 @@ function estimateText(value: number | null): string {
   return value === null || !Number.isFinite(value) ? '—' : `≈\u00A0${formatPercent(value)}`;
 }
 
-/** The grating's point may carry the order-sorting count (issue 16); older points have only overlapCount. */
-function unblockedOverlaps(point: WavelengthPoint): number | undefined {
-  return (point as WavelengthPoint & { unblockedOverlapCount?: number }).unblockedOverlapCount;
-}
-
 // Each selector at a list of wavelengths ---------------------------------------------------------
 
 interface Curves {
@@ -426,7 +421,8 @@ interface Context {
   options: TradeStudyOptions;
   wavelengthsNm: number[];
   gratingPoints: WavelengthPoint[];
-  orderSortingProposed: number | null;
+  /** Long-pass filters in the solver's proposed order-sorting plan (order-sorting.ts). */
+  orderSortingProposed: number;
   prism: PrismSetup;
   prismCurves: Curves & { theoretical: (number | null)[] };
   cavityPeaks: number[];
@@ -452,17 +448,14 @@ function gratingStudy(ctx: Context, summary: ReturnType<typeof evaluateDesign>['
   const overlapIdx = gratingPoints.map((p) => p.overlapCount > 0);
   const anyOverlap = overlapIdx.some(Boolean);
   const worst = gratingPoints.reduce((n, p) => Math.max(n, p.overlapCount), 0);
-  const unblocked = gratingPoints.map(unblockedOverlaps);
-  const unblockedTotal = unblocked.every((u) => u !== undefined) ? unblocked.reduce<number>((a, u) => a + (u ?? 0), 0) : null;
+  const unblockedTotal = gratingPoints.reduce((total, p) => total + p.unblockedOverlapCount, 0);
   let overlapping = 'None in the range: no other order brings source light onto the working wavelength.';
   if (anyOverlap) {
     overlapping =
       `Other orders land on ${runsText(ctx.wavelengthsNm, (i) => overlapIdx[i]!)} (up to ${formatInteger(worst)} at once)` +
-      (unblockedTotal === null
-        ? '; order-sorting filters are needed.'
-        : unblockedTotal === 0
-          ? '; the design’s order-sorting filters block them all.'
-          : `; ${ctx.orderSortingProposed !== null && ctx.orderSortingProposed > 0 ? `a plan of ${formatInteger(ctx.orderSortingProposed)} long-pass filter${ctx.orderSortingProposed === 1 ? '' : 's'} would block them` : 'order-sorting filters are needed'}.`);
+      (unblockedTotal === 0
+        ? '; the design’s order-sorting filters block them all.'
+        : `; ${ctx.orderSortingProposed > 0 ? `a plan of ${formatInteger(ctx.orderSortingProposed)} long-pass filter${ctx.orderSortingProposed === 1 ? '' : 's'} would block them` : 'order-sorting filters are needed'}.`);
   }
   const rot = [summary.gratingRotationStartDeg, summary.gratingRotationEndDeg];
   const reachable = gratingPoints.every((p) => p.reachable);
@@ -801,11 +794,8 @@ function overlapRow(
     if (!overlapping) return pass('no other order lands in the range');
     const where = runsText(ctx.wavelengthsNm, (i) => ctx.gratingPoints[i]!.overlapCount > 0);
     if (policy === 'forbidden') return fail(`other orders land on ${where}`);
-    const unblocked = ctx.gratingPoints.map(unblockedOverlaps);
-    if (unblocked.some((u) => u === undefined)) {
-      return notChecked('order-sorting filters are not modelled in this solver, so an overlap cannot be shown blocked');
-    }
-    const open = unblocked.map((u) => (u ?? 0) > 0);
+    // As the requirements check judges it: every overlap blocked by the design's own filters.
+    const open = ctx.gratingPoints.map((p) => p.unblockedOverlapCount > 0);
     return open.some(Boolean)
       ? fail(`no filter blocks the other orders at ${runsText(ctx.wavelengthsNm, (i) => open[i]!)}`)
       : pass('the design’s order-sorting filters block every other order');
@@ -959,14 +949,13 @@ export function tradeStudy(design: Design, overrides: TradeStudyOverrides = {}):
   const ratio = design.range.endNm / design.range.startNm;
   const filtersToCover = tiltFactor < 1 ? Math.max(1, Math.ceil(Math.log(ratio) / -Math.log(tiltFactor) - 1e-9)) : null;
   const glassesToCover = Math.max(1, Math.ceil((design.range.endNm - design.range.startNm) / options.colouredGlass.widthNm - 1e-9));
-  const proposed = (evaluation as { orderSorting?: { proposedFilters?: unknown[] } }).orderSorting?.proposedFilters;
 
   const ctx: Context = {
     design,
     options,
     wavelengthsNm: sweepNm,
     gratingPoints: gratingAll.slice(0, sweepNm.length),
-    orderSortingProposed: proposed ? proposed.length : null,
+    orderSortingProposed: evaluation.orderSorting.proposedFilters.length,
     prism,
     prismCurves: {
       bandpassNm: prismAll.bandpassNm.slice(0, sweepNm.length),

@@ -3,6 +3,7 @@ import { checkRequirements } from '@/features/requirements';
 import {
   DEFAULT_TRADE_STUDY_OPTIONS,
   TRADE_SELECTOR_IDS,
+  evaluateDesign,
   tradeStudy,
   tradeStudyOptionIssues,
   resolveTradeStudyOptions,
@@ -231,16 +232,32 @@ describe('verdicts per requirement', () => {
       maxFocalLengthMm: 250,
       orderOverlap: 'forbidden',
     };
-    for (const range of [{ startNm: 300, endNm: 900 }, { startNm: 450, endNm: 650 }]) {
-      const design = withRequirements(makeDesign({ range, source: undefined }), requirements);
+    const cases: [{ startNm: number; endNm: number }, Requirements['orderOverlap']][] = [
+      [{ startNm: 300, endNm: 900 }, 'forbidden'],
+      [{ startNm: 450, endNm: 650 }, 'forbidden'],
+      [{ startNm: 300, endNm: 900 }, 'filtered'],
+    ];
+    for (const [range, orderOverlap] of cases) {
+      const design = withRequirements(makeDesign({ range, source: undefined }), { ...requirements, orderOverlap });
       const study = tradeStudy(design);
       const words = { pass: 'pass', fail: 'fail', unknown: 'not-checked' } as const;
       for (const check of checkRequirements(design).checks) {
-        expect(verdict(study, check.id as TradeVerdictId, 'grating')?.status, `${check.id} over ${range.startNm}–${range.endNm}`).toBe(
+        expect(verdict(study, check.id as TradeVerdictId, 'grating')?.status, `${check.id} over ${range.startNm}–${range.endNm}, overlaps ${orderOverlap}`).toBe(
           words[check.status],
         );
       }
     }
+  });
+
+  it('“filtered” overlaps: the grating fails without order-sorting filters and passes with the proposed plan', () => {
+    // 300–900 nm lit only over the range: order 2 brings 300–450 nm onto 600–900 nm (Palmer & Loewen, ch. 2).
+    const bare = withRequirements(makeDesign({ source: undefined }), { orderOverlap: 'filtered' });
+    expect(verdict(tradeStudy(bare), 'orderOverlap', 'grating')?.status).toBe('fail');
+    const plan = evaluateDesign(bare).orderSorting.proposedFilters;
+    expect(plan.length).toBeGreaterThan(0);
+    const filtered = tradeStudy({ ...bare, filters: plan });
+    expect(verdict(filtered, 'orderOverlap', 'grating')?.status).toBe('pass');
+    expect(selector(filtered, 'grating').overlappingOrders).toMatch(/block them all/);
   });
 
   it('requirements only a grating has are named apart, not given verdicts', () => {
