@@ -15,6 +15,10 @@ function isPlainObject(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
 
+function isRecordList(value: unknown): value is Record<string, unknown>[] {
+  return Array.isArray(value) && value.length > 0 && value.every(isPlainObject);
+}
+
 function sameList(a: readonly unknown[], b: readonly unknown[]): boolean {
   return a.length === b.length && a.every((item, i) => Object.is(item, b[i]));
 }
@@ -26,7 +30,14 @@ function walk(before: unknown, after: unknown, prefix: string): DesignChange[] {
     const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
     return keys.flatMap((key) => walk(a[key], b[key], prefix ? `${prefix}.${key}` : key));
   }
-  // A list (the requirements' wavelengths) is one value: equal when its items are.
+  // A list of records (the order-sorting filters) is walked item by item, so a change is named
+  // by its filter and field (`filters.1.cutOnNm`) and equal filters are not a change.
+  if (isRecordList(before) || isRecordList(after)) {
+    const a = Array.isArray(before) ? before : [];
+    const b = Array.isArray(after) ? after : [];
+    return Array.from({ length: Math.max(a.length, b.length) }, (_, i) => walk(a[i], b[i], `${prefix}.${i}`)).flat();
+  }
+  // A list of numbers (the requirements' wavelengths) is one value: equal when its items are.
   if (Array.isArray(before) && Array.isArray(after) && sameList(before, after)) return [];
   if (Object.is(before ?? null, after ?? null)) return [];
   return [{ path: prefix, before: before ?? null, after: after ?? null }];
@@ -62,6 +73,8 @@ export function flattenDesign(design: Design): Flat {
   const visit = (value: unknown, prefix: string) => {
     if (isPlainObject(value)) {
       for (const [key, inner] of Object.entries(value)) visit(inner, prefix ? `${prefix}.${key}` : key);
+    } else if (isRecordList(value)) {
+      value.forEach((inner, i) => visit(inner, `${prefix}.${i}`));
     } else if (value !== undefined && value !== null) {
       flat[prefix] = value;
     }
@@ -78,7 +91,10 @@ export function unflattenDesign(flat: Flat): Design {
     const keys = path.split('.');
     const last = keys.pop() as string;
     let target = design;
-    for (const key of keys) target = (target[key] ??= {}) as Record<string, unknown>;
+    // A numeric key is a place in a list (`filters.1.cutOnNm`): its parent is an array.
+    keys.forEach((key, i) => {
+      target = (target[key] ??= /^\d+$/.test(keys[i + 1] ?? last) ? [] : {}) as Record<string, unknown>;
+    });
     target[last] = value;
   }
   return design as unknown as Design;

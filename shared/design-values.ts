@@ -1,4 +1,4 @@
-import { describedFieldByPath, describedSections, fieldTableName } from './design-fields';
+import { describeFilterPath, describedFieldByPath, describedSections, fieldTableName, filterPathParts } from './design-fields';
 import { UNIT_SPACE, formatNumber, formatQuantity } from './format';
 import { requirementWords } from './requirements';
 
@@ -49,6 +49,9 @@ export function editorFieldName(path: string): string {
   // Requirements are named by their limit, unit in brackets: "Max bandpass (nm)".
   if (requirement) return requirement.short.charAt(0).toUpperCase() + requirement.short.slice(1);
   if (path === REQUIREMENTS) return 'Requirements';
+  // "Filter 2: cut-on (nm)": filters count from 1, as the filter card lists them.
+  const filter = describeFilterPath(path);
+  if (filter) return filter;
   const field = describedFieldByPath.get(path);
   if (field) return field.kind === 'quantity' ? `${field.label} (${field.unitLabel})` : field.label;
   return describedSections.find((section) => section.id === path)?.title ?? path;
@@ -58,6 +61,7 @@ export function editorFieldName(path: string): string {
 export function editorSectionTitle(path: string): string {
   const id = path.split('.')[0] ?? path;
   if (id === REQUIREMENTS) return 'Requirements';
+  if (id === 'filters') return 'Order-sorting filters';
   return describedSections.find((section) => section.id === id)?.title ?? id;
 }
 
@@ -80,6 +84,8 @@ export function formatStoredValue(path: string, value: unknown): string {
     return formatParam(value);
   }
   const field = describedFieldByPath.get(path);
+  // A filter's wavelengths are stored in nm and shown in full.
+  if (typeof value === 'number' && filterPathParts(path)?.key) return formatQuantity(value, 'nm', 12);
   if (typeof value === 'number') {
     // Stored values are shown in full, not cut to the four figures of a derived one.
     return field?.kind === 'quantity' ? formatQuantity(value, field.unitLabel, 12) : formatNumber(value, 12);

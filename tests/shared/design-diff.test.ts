@@ -69,4 +69,42 @@ describe('the design diff', () => {
     expect(Object.keys(flat).some((path) => path.startsWith('source'))).toBe(false);
     expect(unflattenDesign(flat)).toEqual(base);
   });
+
+  describe('order-sorting filters (a list of records)', () => {
+    const filter = (cutOnNm: number, inFromNm: number, inToNm: number) =>
+      ({ kind: 'long-pass', cutOnNm, inFromNm, inToNm, edgeWidthNm: 10 }) as const;
+    const withFilters = edit((d) => {
+      d.filters = [filter(395, 400, 780), filter(770, 780, 900)];
+    });
+
+    it('finds nothing between two designs whose filters are equal but not the same objects', () => {
+      expect(designChanges(withFilters, structuredClone(withFilters))).toEqual([]);
+    });
+
+    it('names a changed filter field by its filter and field', () => {
+      const after = structuredClone(withFilters);
+      after.filters![1]!.cutOnNm = 765;
+      expect(describedChanges(withFilters, after)).toEqual([
+        { path: 'filters.1.cutOnNm', label: 'Filter 2: cut-on (nm)', before: 770, after: 765 },
+      ]);
+    });
+
+    it('reports an added or removed filter field by field', () => {
+      const fewer = structuredClone(withFilters);
+      fewer.filters!.pop();
+      expect(changedPaths(withFilters, fewer)).toEqual([
+        'filters.1.cutOnNm',
+        'filters.1.edgeWidthNm',
+        'filters.1.inFromNm',
+        'filters.1.inToNm',
+        'filters.1.kind',
+      ]);
+    });
+
+    it('flattens to indexed paths and back to the same list', () => {
+      const flat = flattenDesign(withFilters);
+      expect(flat['filters.1.inFromNm']).toBe(780);
+      expect(unflattenDesign(flat)).toEqual(withFilters);
+    });
+  });
 });
