@@ -3,6 +3,9 @@
 import { SCALAR_LIMIT_LAMBDA_OVER_D, type Evaluation } from '../solver';
 import { formatNumber } from '../../shared/format';
 
+/** The efficiency plot's key for its shading, in the app and on the sheet. */
+export const OVERLAP_SHADE_LABEL = 'Shaded: other orders land here and no filter blocks them';
+
 export interface ScalarBlazeCaution {
   /** Shortest plotted wavelength with an efficiency value past the scalar region, nm. */
   fromNm: number;

@@ -2,13 +2,13 @@ export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './co
 export {
   EFFICIENCY_MODEL_CAPTION,
   FAILING_LABEL,
-  OVERLAP_SHADE_LABEL,
   PerformancePlots,
   RESOLVING_POWER_CAPTION,
   TWO_COLUMN_MIN_WIDTH,
   type PerformancePlotsProps,
   type PlotProps,
 } from './components/performance-plots';
+export { OVERLAP_SHADE_LABEL } from './captions';
 export { requirementShading, PLOT_REQUIREMENTS, type RequirementShade, type ShadedPlot } from './requirement-shading';
 export {
   countRuns,

@@ -5,7 +5,7 @@ import type { Design } from '@/shared/design';
 import type { OrderSortingFilter } from '@/shared/filters';
 import { formatNumber, formatPercent } from '@/shared/format';
 import { colors, space } from '@/features/ui';
-import { scalarBlazeCaution, type ScalarBlazeCaution } from '../captions';
+import { OVERLAP_SHADE_LABEL, scalarBlazeCaution, type ScalarBlazeCaution } from '../captions';
 import { filterChangeMarks, marksSummary, overlapSummary, type PlotMark } from '../filter-marks';
 import { requirementShading, type RequirementShade } from '../requirement-shading';
 import { performanceSeries, type PerformanceSeries } from '../series';
@@ -30,7 +30,6 @@ export type PerformancePlotsProps = PlotProps & {
 };
 
 /** The key under the efficiency plot for its shading. */
-export const OVERLAP_SHADE_LABEL = 'Shaded: other orders land here and no filter blocks them';
 
 /** The key under a plot's title for its hatching. */
 export const FAILING_LABEL = 'Hatched: fails a requirement here';

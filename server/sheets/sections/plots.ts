@@ -1,4 +1,4 @@
-import { scalarBlazeCaution } from '../../../features/plots/captions';
+import { OVERLAP_SHADE_LABEL, scalarBlazeCaution } from '../../../features/plots/captions';
 import { performanceSeries } from '../../../features/plots/series';
 import { colors } from '../../../features/ui/theme';
 import { drawLinePlot, linePlotHeight, plotHeaderHeight, type PdfPlot } from '../plot-pdf';
@@ -65,7 +65,7 @@ export function sheetPlots(evaluation: SheetContext['evaluation']): PdfPlot[] {
         tickFormat: '.0%',
       },
       shaded: data.overlapIntervals,
-      shadedLabel: 'Other orders land here too (overlapping orders)',
+      shadedLabel: OVERLAP_SHADE_LABEL,
       emptyMessage: 'Give a blaze wavelength to see the efficiency',
       caution: scalarBlazeCaution(evaluation)?.text ?? null,
     },

@@ -304,7 +304,7 @@ describe('plots on the sheet', () => {
     // The grating equation depends on mλ only: the source's 200–450 nm in order 2 leaves the grating
     // at the same angles as 400–900 nm in order 1.
     const { text } = await sheetOf([plotsSection]);
-    expect(text).toContain('Other orders land here too (overlapping orders)');
+    expect(text).toContain('Shaded: other orders land here and no filter blocks them');
   });
 
   it('says how much of the sweep is out of reach, and still draws every plot', async () => {
