@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { exampleDesign, type Design } from '../../../shared/design';
+import { proposeOrderSortingPlan } from '../../../features/solver/order-sorting';
 import { buildCompareSheet, buildSheet } from '../../../server/sheets/build';
 import type { SheetContext } from '../../../server/sheets/context';
 import { sheetSections } from '../../../server/sheets/registry';
@@ -29,7 +30,9 @@ const plain = (text: string) => text.replace(/\s+/g, ' ').trim();
  * - Focal length: 300 mm against 400 mm passes with (400 − 300) / 400 = 25 % to spare.
  * - One-shot coverage: 1024 pixels × 25 µm = 25.6 mm of detector × ≈ 2.8 nm/mm ≈ 71 nm, far short
  *   of the 600 nm range. It fails.
- * - Order overlap "filtered": order-sorting filters are not modelled, so it cannot be checked.
+ * - Order overlap "filtered": the 200–1100 nm source puts order 2's λ/2 on every λ from 400 nm
+ *   (Palmer & Loewen, ch. 2) and the design carries no filter, so it fails; with the proposed plan
+ *   (features/solver/order-sorting.ts) it passes.
  */
 const withRequirements: Design = {
   ...structuredClone(exampleDesign),
@@ -52,10 +55,15 @@ async function sectionLines(params: Design): Promise<string[]> {
 }
 
 describe('the design sheet’s Requirements section', () => {
-  it('is listed after the plots and before the warnings', () => {
+  it('is listed after the plots and the order sorting, and before the trade study and the warnings', () => {
     const ids = sheetSections.map((section) => section.id);
-    expect(ids.indexOf('requirements')).toBe(ids.indexOf('plots') + 1);
-    expect(ids.indexOf('warnings')).toBe(ids.indexOf('requirements') + 1);
+    expect(ids.slice(ids.indexOf('plots'), ids.indexOf('warnings') + 1)).toEqual([
+      'plots',
+      'order-sorting',
+      'requirements',
+      'trade-study',
+      'warnings',
+    ]);
   });
 
   it('prints each requirement’s row with its result in words, limit, worst value, place and margin', async () => {
@@ -64,17 +72,26 @@ describe('the design sheet’s Requirements section', () => {
     expect(rowOf('Bandpass')).toBe('Bandpass Fail ≤ 0.25 nm 0.2778 nm 404.7 nm 11 % over');
     expect(rowOf('Focal length')).toBe('Focal length Pass ≤ 400 mm 300 mm design 25 % to spare');
     expect(rowOf('One-shot coverage')).toMatch(/^One-shot coverage Fail whole range at one setting Detector sees .* it misses/);
-    // The unknown one says why instead of a number.
-    expect(rowOf('Order overlap')).toMatch(/^Order overlap Not checked other orders filtered Order-sorting filters are not modelled/);
+    expect(rowOf('Order overlap')).toMatch(/^Order overlap Fail other orders filtered /);
+    const planned = await sectionLines({ ...withRequirements, filters: proposeOrderSortingPlan(withRequirements) });
+    expect(planned.find((line) => line.startsWith('Order overlap '))).toMatch(/^Order overlap Pass other orders filtered/);
   });
 
   it('says how many are met and names the failing ones, in words', async () => {
     const lines = await sectionLines(withRequirements);
-    expect(lines).toContain('1 of 4 met. Failing: bandpass, one-shot coverage. 1 not checked (why, in its row).');
+    expect(lines).toContain('1 of 4 met. Failing: bandpass, one-shot coverage, order overlap.');
+    expect(lines).toContain('Order overlap Fail other orders filtered 3 804 nm —');
+    // Pixels per bandpass needs a detector: without one it is not checked, and says why in its row.
+    const noDetector = structuredClone(withRequirements);
+    delete noDetector.detector;
+    noDetector.requirements = { ...noDetector.requirements, minPixelsPerBandpass: 2 };
+    delete noDetector.requirements.oneShotCoverage;
+    const unknown = await sectionLines(noDetector);
+    expect(unknown).toContain('1 of 4 met. Failing: bandpass, order overlap. 1 not checked (why, in its row).');
     expect(lines.some((line) => line.includes('checked at 404.7 nm'))).toBe(true);
   });
 
-  it('prints its heading at the heading size in the whole sheet, between the plots and the warnings', async () => {
+  it('prints its heading at the heading size in the whole sheet, before the trade study and the warnings', async () => {
     const { pieces } = await pdfText(await buildSheet(sheetOf(withRequirements)));
     const headings = pieces
       .flatMap((page, n) => page.map((piece) => ({ ...piece, n })))
@@ -82,7 +99,8 @@ describe('the design sheet’s Requirements section', () => {
       .sort((a, b) => a.n - b.n || b.baseline - a.baseline)
       .map((piece) => piece.str.trim());
     expect(headings.indexOf('Requirements')).toBeGreaterThan(-1);
-    expect(headings.indexOf('Warnings')).toBe(headings.indexOf('Requirements') + 1);
+    expect(headings.indexOf('Other wavelength selectors')).toBe(headings.indexOf('Requirements') + 1);
+    expect(headings.indexOf('Warnings')).toBe(headings.indexOf('Requirements') + 2);
   });
 
   it.each(['a4', 'letter'] as const)('keeps every piece of its text inside the margins on %s, in glyphs its fonts have', async (paper) => {
