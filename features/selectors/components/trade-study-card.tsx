@@ -1,7 +1,7 @@
 import { Link } from 'expo-router';
 import { memo, useCallback, useDeferredValue, useMemo, useState } from 'react';
 import { StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
-import { designFootprintMm, type RequirementsReport } from '@/features/requirements';
+import { designFootprintMm } from '@/features/requirements';
 import {
   DEFAULT_TRADE_STUDY_OPTIONS,
   PRISM_MATERIALS,
@@ -9,7 +9,6 @@ import {
   resolveTradeStudyOptions,
   tradeStudy,
   tradeStudyOptionIssues,
-  type Evaluation,
   type SelectorStudy,
   type TradeStudy,
   type TradeVerdict,
@@ -24,8 +23,6 @@ import { tradeFigureRows } from '../trade-study-table';
 
 export type TradeStudyCardProps = {
   design: Design;
-  evaluation: Evaluation;
-  report: RequirementsReport;
   collapsedAtFirst: boolean;
 };
 

@@ -310,8 +310,6 @@ export function Workbench({
   const tradeStudy = (
     <TradeStudyCard
       design={bench.design}
-      evaluation={deferredEvaluation}
-      report={report}
       collapsedAtFirst={layout === 'phone'}
     />
   );
