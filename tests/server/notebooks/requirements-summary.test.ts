@@ -20,11 +20,15 @@ import { createNotebook, createNotebookFixture, saveVersion, type NotebookFixtur
  * - focal length 300 mm ≤ 400 mm: passes;
  * - f-number ≤ 20: the collimator is f/6 along the 50 mm grating (300 / 50) and a little slower
  *   across it (the beam narrows by cos α), well under f/20: passes;
- * - order overlap "filtered": filters are not modelled, so it cannot be checked.
+ * - order overlap "filtered": the 200–1100 nm source puts λ/2 on every λ from 400 nm and no filter
+ *   blocks it: fails (the design carries no filter);
+ * - pixels per bandpass ≥ 2 without a detector: not checked.
  */
+const { detector: _detector, ...withoutDetector } = structuredClone(exampleDesign);
 const stated: Design = {
-  ...structuredClone(exampleDesign),
+  ...withoutDetector,
   requirements: {
+    minPixelsPerBandpass: 2,
     maxBandpassNm: 0.25,
     atWavelengthsNm: [546.1],
     maxFocalLengthMm: 400,
@@ -35,7 +39,7 @@ const stated: Design = {
 
 describe('summarizeRequirements', () => {
   it('counts met, failing and unknown against the hand-worked limits', () => {
-    expect(summarizeRequirements(stated)).toEqual({ met: 2, total: 4, unknown: 1, failing: ['maxBandpassNm'] });
+    expect(summarizeRequirements(stated)).toEqual({ met: 2, total: 5, unknown: 1, failing: ['maxBandpassNm', 'orderOverlap'] });
   });
 
   it('is null without requirements, or with only the list of wavelengths they would apply at', () => {
@@ -66,7 +70,7 @@ describe('requirements through the notebook routes', () => {
     await saveVersion(fx, design.id, 1, stated, 'State the limits').expect(201);
     const list = versionListResponseSchema.parse((await fx.viewer.agent.get(`/api/designs/${design.id}/versions`).expect(200)).body);
     expect(list.versions.map((version) => [version.number, version.summary.requirements ?? null])).toEqual([
-      [2, { met: 2, total: 4, unknown: 1, failing: ['maxBandpassNm'] }],
+      [2, { met: 2, total: 5, unknown: 1, failing: ['maxBandpassNm', 'orderOverlap'] }],
       [1, null],
     ]);
   });
@@ -77,7 +81,7 @@ describe('requirements through the notebook routes', () => {
       (await fx.owner.agent.post(`/api/designs/${design.id}/share-links`).send({}).expect(201)).body,
     );
     const shared = sharedVersionResponseSchema.parse((await browserAgent(fx.ctx.app).get(`/api/share/${token}`).expect(200)).body);
-    expect(shared.version.summary.requirements?.failing).toEqual(['maxBandpassNm']);
+    expect(shared.version.summary.requirements?.failing).toEqual(['maxBandpassNm', 'orderOverlap']);
   });
 
   it.each([
