@@ -38,6 +38,7 @@ export default function RootLayout() {
       >
         <Stack.Screen name="index" options={{ title: 'Blazebook' }} />
         <Stack.Screen name="workbench" options={{ title: 'Workbench' }} />
+        <Stack.Screen name="selectors" options={{ title: 'Filters and prisms' }} />
         <Stack.Screen name="(auth)" options={{ title: 'Account' }} />
         <Stack.Screen name="(workspace)" options={{ title: 'Teams' }} />
         <Stack.Screen name="share/[token]" options={{ title: 'Shared design' }} />

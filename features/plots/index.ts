@@ -20,6 +20,6 @@ export {
   type Interval,
 } from './plot-paths';
 export { performanceSeries, type PerformanceSeries } from './series';
-export { axisMarginPx, labelWidthPx, sharesAxis, valueScale, valueTicks } from './axes';
+export { MIN_SIDE_PX, TICK_GAP_PX, TICK_PX, TITLE_BAND_PX, axisMarginPx, labelWidthPx, sharesAxis, valueScale, valueTicks } from './axes';
 export { scalarBlazeCaution, type ScalarBlazeCaution } from './captions';
 export { filterChangeMarks, marksSummary, overlapSummary, type PlotMark } from './filter-marks';

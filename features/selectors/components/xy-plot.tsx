@@ -2,8 +2,17 @@ import { scaleLinear } from 'd3-scale';
 import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import Svg, { G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
-import { axisMarginPx, linePath, PLOT_HEIGHT, valueScale, valueTicks } from '@/features/plots';
-import { MIN_SIDE_PX, TICK_GAP_PX, TICK_PX, TITLE_BAND_PX } from '@/features/plots/axes';
+import {
+  MIN_SIDE_PX,
+  PLOT_HEIGHT,
+  TICK_GAP_PX,
+  TICK_PX,
+  TITLE_BAND_PX,
+  axisMarginPx,
+  linePath,
+  valueScale,
+  valueTicks,
+} from '@/features/plots';
 import { Text, colors, fonts, space } from '@/features/ui';
 import { describeXyPlot, type XySeries } from '../xy-plot-summary';
 
