@@ -13,13 +13,11 @@
 
 import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { parseArgs } from 'node:util';
 import { runSearch, searchRequestIssues } from '../features/search/index';
 import { SEARCH_LIMITS, searchRequestSchema, type SearchAnswer } from '../shared/search';
 import { fieldErrors, formatFieldErrors } from '../shared/validation';
-import { parseInputJson, readInputText } from './json-input';
+import { parseInputArgs, parseInputJson, runJsonCommand, type InputArgs, type JsonOutcome } from './json-input';
 import { runCommand } from './run-command';
-import { UsageError } from './solve';
 
 // The same limits as POST /api/search (one schema and one check for both).
 export const USAGE = `usage: npm run --silent search -- <input.json | ->
@@ -28,27 +26,12 @@ optional search lists (grooveDensitiesPerMm, blazeWavelengthsNm, maxOrder, devia
 focalLengthsMm, gratingSizeMm, top, weights). At most ${SEARCH_LIMITS.maxCandidates} candidates (the product of the
 lists' lengths), ${SEARCH_LIMITS.maxListLength} values a list, ${SEARCH_LIMITS.maxTop} returned.`;
 
-export interface SearchArgs {
-  /** A file path, or `-` for stdin. */
-  input: string;
-}
-
-const options = { help: { type: 'boolean', short: 'h' } } as const;
+export type SearchArgs = InputArgs;
 
 /** Reads the command line (without `node` and the script); throws a `UsageError` naming what is wrong. */
-export function parseSearchArgs(argv: readonly string[]): SearchArgs {
-  const { values, positionals, tokens } = parseArgs({ args: [...argv], options, allowPositionals: true, strict: false, tokens: true });
-  if (values.help === true) throw new UsageError('');
-  for (const token of tokens) {
-    if (token.kind === 'option' && !Object.hasOwn(options, token.name)) throw new UsageError(`unknown option ${token.rawName}`);
-  }
-  const [input, extra] = positionals;
-  if (extra !== undefined) throw new UsageError(`unexpected argument ${extra}`);
-  if (input === undefined) throw new UsageError('missing the input file (or - for stdin)');
-  return { input };
-}
+export const parseSearchArgs = parseInputArgs;
 
-export type SearchOutcome = { ok: true; answer: SearchAnswer } | { ok: false; message: string };
+export type SearchOutcome = JsonOutcome<SearchAnswer>;
 
 /**
  * Parses the input JSON read from `args.input`, checks it with the HTTP API's schema and the
@@ -65,27 +48,8 @@ export function searchInput(text: string, args: SearchArgs): SearchOutcome {
 }
 
 /** The command: 0 with the answer on stdout, 2 with the reason on stderr. */
-export async function main(argv: readonly string[] = process.argv.slice(2)): Promise<number> {
-  let args: SearchArgs;
-  try {
-    args = parseSearchArgs(argv);
-  } catch (error) {
-    if (!(error instanceof UsageError)) throw error;
-    process.stderr.write(`${error.message ? `${error.message}\n` : ''}${USAGE}\n`);
-    return 2;
-  }
-  const input = readInputText(args.input);
-  if (!input.ok) {
-    process.stderr.write(`${input.message}\n`);
-    return 2;
-  }
-  const outcome = searchInput(input.text, args);
-  if (!outcome.ok) {
-    process.stderr.write(`${outcome.message}\n`);
-    return 2;
-  }
-  process.stdout.write(`${JSON.stringify(outcome.answer, null, 2)}\n`);
-  return 0;
+export function main(argv: readonly string[] = process.argv.slice(2)): Promise<number> {
+  return runJsonCommand(argv, USAGE, parseSearchArgs, searchInput);
 }
 
 // Run only as the script, so tests can import the functions above.

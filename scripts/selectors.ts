@@ -11,13 +11,11 @@
 
 import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { parseArgs } from 'node:util';
 import { runSelector } from '../features/solver/selectors';
 import { PRISM_MATERIAL_IDS, SELECTOR_LIMITS, selectorInputSchema, type SelectorAnswer } from '../shared/selectors';
 import { fieldErrors, formatFieldErrors } from '../shared/validation';
-import { parseInputJson, readInputText } from './json-input';
+import { parseInputArgs, parseInputJson, runJsonCommand, type InputArgs, type JsonOutcome } from './json-input';
 import { runCommand } from './run-command';
-import { UsageError } from './solve';
 
 // The examples are written out as JSON so the help shows exactly what a file holds (a test parses
 // each one and runs it).
@@ -102,27 +100,12 @@ kind "prism" (at minimum deviation; Born & Wolf, Hecht)
 
 The same schema and limits as POST /api/selectors.`;
 
-export interface SelectorsArgs {
-  /** A file path, or `-` for stdin. */
-  input: string;
-}
-
-const options = { help: { type: 'boolean', short: 'h' } } as const;
+export type SelectorsArgs = InputArgs;
 
 /** Reads the command line (without `node` and the script); throws a `UsageError` naming what is wrong. */
-export function parseSelectorsArgs(argv: readonly string[]): SelectorsArgs {
-  const { values, positionals, tokens } = parseArgs({ args: [...argv], options, allowPositionals: true, strict: false, tokens: true });
-  if (values.help === true) throw new UsageError('');
-  for (const token of tokens) {
-    if (token.kind === 'option' && !Object.hasOwn(options, token.name)) throw new UsageError(`unknown option ${token.rawName}`);
-  }
-  const [input, extra] = positionals;
-  if (extra !== undefined) throw new UsageError(`unexpected argument ${extra}`);
-  if (input === undefined) throw new UsageError('missing the input file (or - for stdin)');
-  return { input };
-}
+export const parseSelectorsArgs = parseInputArgs;
 
-export type SelectorsOutcome = { ok: true; answer: SelectorAnswer } | { ok: false; message: string };
+export type SelectorsOutcome = JsonOutcome<SelectorAnswer>;
 
 /** Parses the input JSON read from `args.input`, checks it with the HTTP API's schema, and calculates. */
 export function selectorsInput(text: string, args: SelectorsArgs): SelectorsOutcome {
@@ -134,28 +117,8 @@ export function selectorsInput(text: string, args: SelectorsArgs): SelectorsOutc
 }
 
 /** The command: 0 with the answer on stdout, 2 with the reason on stderr. */
-export async function main(argv: readonly string[] = process.argv.slice(2)): Promise<number> {
-  let args: SelectorsArgs;
-  try {
-    args = parseSelectorsArgs(argv);
-  } catch (error) {
-    if (!(error instanceof UsageError)) throw error;
-    // --help too, as solve and search print it.
-    process.stderr.write(`${error.message ? `${error.message}\n` : ''}${USAGE}\n`);
-    return 2;
-  }
-  const input = readInputText(args.input);
-  if (!input.ok) {
-    process.stderr.write(`${input.message}\n`);
-    return 2;
-  }
-  const outcome = selectorsInput(input.text, args);
-  if (!outcome.ok) {
-    process.stderr.write(`${outcome.message}\n`);
-    return 2;
-  }
-  process.stdout.write(`${JSON.stringify(outcome.answer, null, 2)}\n`);
-  return 0;
+export function main(argv: readonly string[] = process.argv.slice(2)): Promise<number> {
+  return runJsonCommand(argv, USAGE, parseSelectorsArgs, selectorsInput);
 }
 
 // Run only as the script, so tests can import the functions above.

@@ -17,6 +17,7 @@ import { defaultRateLimits } from '../server/auth/rate-limit';
 import { designSchema, MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS, solveRequestSchema } from '../shared/design';
 import { fieldErrors, formatFieldErrors } from '../shared/validation';
 import { parseInputJson, readInputText } from './json-input';
+import { UsageError } from './run-command';
 
 // The CLI keeps the HTTP API's limits (one schema for both), so a script that works here also
 // works against POST /api/solve.
@@ -39,8 +40,7 @@ What some figures assume:
   detector.pixelsPerResolutionElement  pixels across the entrance-slit image or the diffraction-
                    limited line, the wider, fewest of range start, centre and end; under 2 warns`;
 
-/** A bad command line: the message (empty for --help) is printed above USAGE, exit 2. */
-export class UsageError extends Error {}
+export { UsageError };
 
 export interface SolveArgs {
   /** A file path, or `-` for stdin. */
