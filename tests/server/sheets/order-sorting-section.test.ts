@@ -5,7 +5,8 @@ import { buildSheet } from '../../../server/sheets/build';
 import type { SheetContext } from '../../../server/sheets/context';
 import { sheetSections } from '../../../server/sheets/registry';
 import { orderSortingSection } from '../../../server/sheets/sections/order-sorting';
-import { SheetWriter, margins, paperPt, textSize } from '../../../server/sheets/writer';
+import { textSize } from '../../../server/sheets/writer';
+import { expectInsideMarginsInGlyphs } from './inside-margins';
 import { pdfText } from './pdf-text';
 import { sampleSheet, sampleVersion } from './sample';
 
@@ -88,20 +89,7 @@ describe('the design sheet’s Order sorting section', () => {
     for (const params of [withFilters, exampleDesign]) {
       const sheet = { ...sheetOf(params), paper };
       const { pieces } = await pdfText(await buildSheet(sheet, [orderSortingSection]));
-      const { width, height } = paperPt[paper];
-      const all = pieces.flat();
-      expect(all.length).toBeGreaterThan(10);
-      for (const piece of all) {
-        expect(piece.x, piece.str).toBeGreaterThanOrEqual(margins.left - 0.5);
-        expect(piece.right, piece.str).toBeLessThanOrEqual(width - margins.right + 0.5);
-        expect(piece.baseline, piece.str).toBeLessThanOrEqual(height - margins.top + 0.5);
-      }
-      // ×, – and the no-break spaces must be set, not printed as empty boxes.
-      const writer = new SheetWriter(paper, { title: 't', subject: 's', createdAt: new Date(0) });
-      const chars = new Set(all.map((piece) => piece.str).join('').replace(/\s/g, ''));
-      for (const char of chars) {
-        expect(writer.hasGlyph('regular', char) && writer.hasGlyph('semibold', char), `glyph for "${char}"`).toBe(true);
-      }
+      expectInsideMarginsInGlyphs(pieces.flat(), paper, 10);
     }
   });
 });

@@ -4,7 +4,8 @@ import { buildSheet } from '../../../server/sheets/build';
 import type { SheetContext } from '../../../server/sheets/context';
 import { sheetSections } from '../../../server/sheets/registry';
 import { tradeStudySection } from '../../../server/sheets/sections/trade-study';
-import { SheetWriter, margins, paperPt, textSize } from '../../../server/sheets/writer';
+import { textSize } from '../../../server/sheets/writer';
+import { expectInsideMarginsInGlyphs } from './inside-margins';
 import { pdfText } from './pdf-text';
 import { sampleSheet, sampleVersion } from './sample';
 
@@ -110,18 +111,6 @@ describe('the design sheet’s trade study section', () => {
   it.each(['a4', 'letter'] as const)('keeps every piece of its text inside the margins on %s, in glyphs its fonts have', async (paper) => {
     const sheet = { ...sheetOf(withRequirements), paper };
     const { pieces } = await pdfText(await buildSheet(sheet, [tradeStudySection]));
-    const { width, height } = paperPt[paper];
-    const all = pieces.flat();
-    expect(all.length).toBeGreaterThan(40);
-    for (const piece of all) {
-      expect(piece.x, piece.str).toBeGreaterThanOrEqual(margins.left - 0.5);
-      expect(piece.right, piece.str).toBeLessThanOrEqual(width - margins.right + 0.5);
-      expect(piece.baseline, piece.str).toBeLessThanOrEqual(height - margins.top + 0.5);
-    }
-    const writer = new SheetWriter(paper, { title: 't', subject: 's', createdAt: new Date(0) });
-    const chars = new Set(all.map((piece) => piece.str).join('').replace(/\s/g, ''));
-    for (const char of chars) {
-      expect(writer.hasGlyph('regular', char) && writer.hasGlyph('semibold', char), `glyph for "${char}"`).toBe(true);
-    }
+    expectInsideMarginsInGlyphs(pieces.flat(), paper, 40);
   });
 });
