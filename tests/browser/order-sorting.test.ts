@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { draftFromDesign } from '../../features/workbench/draft';
 import { exampleDesign } from '../../shared/design';
 import { expectAccessible } from '../support/axe';
-import { artifactsDir, liveServerAndBrowser, screenshot, viewports } from '../support/browser';
+import { artifactsDir, liveServerAndBrowser, screenshot, viewports, watchConsole } from '../support/browser';
 
 /**
  * The order-sorting filter plan in the workbench, on the example design: a 200–1100 nm source
@@ -34,11 +34,7 @@ describe('order-sorting filters in the workbench', () => {
   it('accepts the proposed plan, clears the shading and the warning, undoes it, and says when no filter is needed', async () => {
     const context = await live.browser.newContext({ viewport: viewports.phone });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('pageerror', (error) => errors.push(error.message));
-    page.on('console', (message) => {
-      if (message.type() === 'error') errors.push(message.text());
-    });
+    const errors = watchConsole(page);
     await page.goto(`${live.server.url}/workbench`);
     // The scratch workbench opens the draft it finds: the example design, before any filter.
     const draft = { version: 1, value: draftFromDesign(exampleDesign) };

@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { expectAccessible } from '../support/axe';
-import { liveServerAndBrowser, screenshot, viewports, type ViewportName } from '../support/browser';
+import { liveServerAndBrowser, screenshot, viewports, watchConsole, type ViewportName } from '../support/browser';
 
 /** Replaces a field's text the way a person does: focus, select all, type. */
 async function typeInto(page: Page, testID: string, text: string) {
@@ -9,15 +9,6 @@ async function typeInto(page: Page, testID: string, text: string) {
   await field.click();
   await page.keyboard.press('ControlOrMeta+A');
   await page.keyboard.type(text);
-}
-
-function watchConsole(page: Page): string[] {
-  const errors: string[] = [];
-  page.on('pageerror', (error) => errors.push(error.message));
-  page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(message.text());
-  });
-  return errors;
 }
 
 const sizes = ['phone', 'tablet', 'wide'] as const satisfies readonly ViewportName[];

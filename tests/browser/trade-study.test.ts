@@ -2,7 +2,7 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { expectAccessible } from '../support/axe';
-import { artifactsDir, liveServerAndBrowser, screenshot, viewports } from '../support/browser';
+import { artifactsDir, liveServerAndBrowser, screenshot, viewports, watchConsole } from '../support/browser';
 
 /** One part of the screen, saved on its own: the phone's scroll view keeps most of the page out of a full shot. */
 const shootPart = (page: Page, testID: string, name: string) =>
@@ -36,11 +36,7 @@ describe('the trade study card in the workbench', () => {
   it('opens from the keyboard on a phone, plots the grating and the prism, and gives verdicts in words at every size', async () => {
     const context = await live.browser.newContext({ viewport: viewports.phone });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('pageerror', (error) => errors.push(error.message));
-    page.on('console', (message) => {
-      if (message.type() === 'error') errors.push(message.text());
-    });
+    const errors = watchConsole(page);
     await page.goto(`${live.server.url}/workbench`);
     await page.getByTestId('readout-bandpass').waitFor();
 

@@ -75,6 +75,16 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   };
 }
 
+/** Page errors and console errors as they happen: a test ends by expecting the list empty. */
+export function watchConsole(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(error.message));
+  page.on('console', (message) => {
+    if (message.type() === 'error') errors.push(message.text());
+  });
+  return errors;
+}
+
 /** Debian's Chromium through playwright-core. Missing Chromium is a failure, never a skip. */
 export async function launchBrowser(): Promise<Browser> {
   if (!existsSync(chromiumPath)) {
