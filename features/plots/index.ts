@@ -1,3 +1,4 @@
+export { AxisText, type AxisTextProps } from './components/axis-text';
 export { LinePlot, PLOT_HEIGHT, type LinePlotProps, type PlotSeries } from './components/line-plot';
 export {
   EFFICIENCY_MODEL_CAPTION,

@@ -1,10 +1,10 @@
 import { scaleLinear } from 'd3-scale';
 import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
-import Svg, { G, Path, Text as SvgText } from 'react-native-svg';
-import { MIN_SIDE_PX, TICK_GAP_PX, TICK_PX, TITLE_BAND_PX, axisMarginPx, linePath, valueExtent } from '@/features/plots';
+import Svg, { G, Path } from 'react-native-svg';
+import { AxisText, MIN_SIDE_PX, axisMarginPx, linePath, valueExtent } from '@/features/plots';
 import type { SelectorStudy, TradeSelectorId } from '@/features/solver';
-import { Text, colors, fonts, space } from '@/features/ui';
+import { Text, colors, space } from '@/features/ui';
 import { formatNumber, withUnit } from '@/shared/format';
 import { SELECTOR_LOOKS, decadeDomain, decadeTicks, log10Values, markerIndices, markerPath } from './trade-study-series';
 
@@ -95,8 +95,6 @@ export const TradeStudyPlot = memo(function TradeStudyPlot({
   }, [title, selectors, pick, unit, wavelengthsNm]);
 
   const { lines, ticks, left, right, top, bottom, x, y, xTicks, xFormat } = drawn;
-  const midY = (top + bottom) / 2;
-  const titleX = TITLE_BAND_PX / 2;
   return (
     <View style={[styles.root, { width }]} testID={testID}>
       <Text variant="small" weight="semibold">
@@ -146,46 +144,21 @@ export const TradeStudyPlot = memo(function TradeStudyPlot({
                 <Path d={line.markers} fill={colors.surface} stroke={SELECTOR_INK[line.id]} strokeWidth={1.5} />
               </G>
             ))}
-            {xTicks.map((t) => (
-              <SvgText
-                key={`x${t}`}
-                x={x(t)}
-                y={bottom + 15}
-                fontSize={TICK_PX}
-                fontFamily={fonts.mono}
-                fill={colors.inkMuted}
-                textAnchor={x(t) > right - 18 ? 'end' : 'middle'}
-              >
-                {xFormat(t)}
-              </SvgText>
-            ))}
-            {ticks.values.map((k, i) => (
-              <SvgText
-                key={`y${k}`}
-                x={left - TICK_GAP_PX}
-                y={y(k) + 4}
-                fontSize={TICK_PX}
-                fontFamily={fonts.mono}
-                fill={colors.inkMuted}
-                textAnchor="end"
-              >
-                {ticks.labels[i]}
-              </SvgText>
-            ))}
-            <SvgText x={(left + right) / 2} y={HEIGHT - 4} fontSize={TICK_PX} fontFamily={fonts.regular} fill={colors.ink} textAnchor="middle">
-              Wavelength (nm)
-            </SvgText>
-            <SvgText
-              x={titleX}
-              y={midY}
-              fontSize={TICK_PX}
-              fontFamily={fonts.regular}
-              fill={colors.ink}
-              textAnchor="middle"
-              transform={`rotate(-90 ${titleX} ${midY})`}
-            >
-              {axisTitle}
-            </SvgText>
+            <AxisText
+              left={left}
+              right={right}
+              top={top}
+              bottom={bottom}
+              height={HEIGHT}
+              xTicks={xTicks}
+              x={x}
+              xLabel={xFormat}
+              yTicks={ticks.values}
+              y={y}
+              yLabels={ticks.labels}
+              xTitle="Wavelength (nm)"
+              yTitle={axisTitle}
+            />
           </G>
         </Svg>
       </View>

@@ -1,19 +1,17 @@
 import { scaleLinear } from 'd3-scale';
 import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
-import Svg, { G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
+import Svg, { G, Line, Path, Rect } from 'react-native-svg';
 import {
+  AxisText,
   MIN_SIDE_PX,
   PLOT_HEIGHT,
-  TICK_GAP_PX,
-  TICK_PX,
-  TITLE_BAND_PX,
   axisMarginPx,
   linePath,
   valueScale,
   valueTicks,
 } from '@/features/plots';
-import { Text, colors, fonts, space } from '@/features/ui';
+import { Text, colors, space } from '@/features/ui';
 import { describeXyPlot, type XySeries } from '../xy-plot-summary';
 
 export type XyPlotProps = {
@@ -76,8 +74,6 @@ export const XyPlot = memo(function XyPlot(props: XyPlotProps) {
     [title, props.xName, props.xUnit, xs, series, props.summaryExtra],
   );
   const { x, y, left, right, top, bottom } = frame;
-  const midY = (top + bottom) / 2;
-  const titleX = TITLE_BAND_PX / 2;
   return (
     <View style={[styles.root, { width }]} testID={testID}>
       <Text variant="small" weight="semibold" style={styles.header}>
@@ -129,53 +125,21 @@ export const XyPlot = memo(function XyPlot(props: XyPlotProps) {
                 data-points={String(xs.length)}
               />
             ))}
-            {frame.xTicks.map((t) => (
-              <SvgText
-                key={`x${t}`}
-                x={x(t)}
-                y={bottom + 15}
-                fontSize={TICK_PX}
-                fontFamily={fonts.mono}
-                fill={colors.inkMuted}
-                textAnchor={x(t) > right - 18 ? 'end' : 'middle'}
-              >
-                {frame.xFormat(t)}
-              </SvgText>
-            ))}
-            {frame.yTicks.values.map((t, i) => (
-              <SvgText
-                key={`y${t}`}
-                x={left - TICK_GAP_PX}
-                y={y(t) + 4}
-                fontSize={TICK_PX}
-                fontFamily={fonts.mono}
-                fill={colors.inkMuted}
-                textAnchor="end"
-              >
-                {frame.yTicks.labels[i]}
-              </SvgText>
-            ))}
-            <SvgText
-              x={(left + right) / 2}
-              y={height - 4}
-              fontSize={TICK_PX}
-              fontFamily={fonts.regular}
-              fill={colors.ink}
-              textAnchor="middle"
-            >
-              {props.xTitle}
-            </SvgText>
-            <SvgText
-              x={titleX}
-              y={midY}
-              fontSize={TICK_PX}
-              fontFamily={fonts.regular}
-              fill={colors.ink}
-              textAnchor="middle"
-              transform={`rotate(-90 ${titleX} ${midY})`}
-            >
-              {props.yTitle}
-            </SvgText>
+            <AxisText
+              left={left}
+              right={right}
+              top={top}
+              bottom={bottom}
+              height={height}
+              xTicks={frame.xTicks}
+              x={x}
+              xLabel={frame.xFormat}
+              yTicks={frame.yTicks.values}
+              y={y}
+              yLabels={frame.yTicks.labels}
+              xTitle={props.xTitle}
+              yTitle={props.yTitle}
+            />
           </G>
         </Svg>
       </View>
