@@ -1,6 +1,8 @@
 import { z } from 'zod';
+import { curvesSchema } from './curves';
 import { filtersSchema } from './filters';
 import { formatNumber } from './format';
+import { lightInputSchema } from './light-input';
 import { requirementsSchema } from './requirements';
 import { number, section } from './schema-words';
 import { MAX_SOLVE_WAVELENGTHS, MIN_SOLVE_POINTS } from './solve-limits';
@@ -143,6 +145,10 @@ export const storedDesignSchema = section({
   requirements: requirementsSchema.optional(),
   /** Order-sorting filters and where each is in the beam (shared/filters.ts). */
   filters: filtersSchema.optional(),
+  /** How light reaches the entrance slit (shared/light-input.ts); matched to the instrument when absent. */
+  input: lightInputSchema.optional(),
+  /** Measured curves the design's light budget uses (shared/curves.ts), each with its own points. */
+  curves: curvesSchema.optional(),
 });
 
 /**
