@@ -59,9 +59,10 @@ type FieldDescriptions<S> = {
 
 /**
  * The editor's sections: every part of a design but its requirements, which are limits on the
- * results rather than parameters (shared/requirements.ts describes them).
+ * results rather than parameters (shared/requirements.ts describes them), and the lists and
+ * choices that have cards of their own (filters, the light input, measured curves).
  */
-export type SectionId = Exclude<keyof Design, 'requirements' | 'filters'>;
+export type SectionId = Exclude<keyof Design, 'requirements' | 'filters' | 'input' | 'curves'>;
 
 type DesignDescription = {
   [S in SectionId]-?: {
