@@ -1,6 +1,8 @@
 import { sql } from 'drizzle-orm';
 import {
   boolean,
+  customType,
+  doublePrecision,
   index,
   integer,
   jsonb,
@@ -9,6 +11,7 @@ import {
   primaryKey,
   text,
   timestamp,
+  unique,
   uniqueIndex,
   type AnyPgColumn,
 } from 'drizzle-orm/pg-core';
@@ -331,3 +334,45 @@ export const mailSettings = pgTable('mail_settings', {
   threadsOnMyDesigns: boolean().notNull().default(true),
   decisionsOnMyVersions: boolean().notNull().default(true),
 });
+
+/** Raw bytes; drizzle 0.45 has no built-in `bytea` column. PGlite reads it back as a Uint8Array. */
+const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({ dataType: () => 'bytea' });
+
+/**
+ * A team's library of uploaded measured curves (`shared/curves.ts`): the file as sent, its SHA-256,
+ * and the points parsed from it with the units applied (`wavelengthUnit`, `valueScale` — null for
+ * kinds whose values are not fractions — and `medium`, each detected or corrected). The same file
+ * read the same way is one row: the unique key is the team, checksum, kind and applied units, so a
+ * re-upload is recognised. Designs keep their own copy of the points, so deleting a row changes no
+ * saved version.
+ */
+export const teamCurves = pgTable(
+  'team_curves',
+  {
+    id: text().primaryKey(),
+    teamId: text()
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    kind: text().notNull(),
+    name: text().notNull(),
+    fileName: text().notNull(),
+    fileBytes: bytea().notNull(),
+    checksum: text().notNull(),
+    wavelengthUnit: text({ enum: ['nm', 'um'] }).notNull(),
+    valueScale: text({ enum: ['fraction', 'percent'] }),
+    medium: text({ enum: ['air', 'vacuum', 'unstated'] }).notNull(),
+    /** What the uploader corrected (`CurveCorrections`), `{}` when nothing was. */
+    corrections: jsonb().notNull().default(sql`'{}'::jsonb`),
+    wavelengthsNm: doublePrecision().array().notNull(),
+    values: doublePrecision().array().notNull(),
+    /** A line list's labels, one per point; null for other kinds. */
+    labels: text().array(),
+    uploadedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    uploadedByName: text().notNull(),
+    createdAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [
+    unique('team_curves_same_file_unique').on(t.teamId, t.checksum, t.kind, t.wavelengthUnit, t.valueScale, t.medium).nullsNotDistinct(),
+    index('team_curves_team_created_idx').on(t.teamId, t.createdAt),
+  ],
+);
