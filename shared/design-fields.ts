@@ -354,10 +354,13 @@ function objectShape(schema: z.ZodType): Record<string, z.ZodType> {
   return inner instanceof z.ZodObject ? (inner.shape as Record<string, z.ZodType>) : {};
 }
 
+const NOT_SECTIONS: ReadonlySet<string> = new Set(['requirements', 'filters', 'input', 'curves']);
+
 /** Every section and field of the design in the schema's order, with its description. */
 export const describedSections: readonly DescribedSection[] = Object.entries(designSchema.shape)
-  // Requirements and filters are lists and limits beside the parameters, described on their own.
-  .filter(([id]) => id !== 'requirements' && id !== 'filters')
+  // Requirements, filters, the light input and curves are limits, lists and choices beside the
+  // parameters, described on their own.
+  .filter(([id]) => !NOT_SECTIONS.has(id))
   .map(([id, sectionSchema]) => {
     const section = designDescription[id as SectionId];
     const descriptions = section.fields as Record<

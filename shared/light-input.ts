@@ -20,7 +20,7 @@ const fNumber = () =>
     .min(0.5, { error: 'must be at least 0.5 (no beam is faster: sine condition)' })
     .max(1000, { error: 'must be at most 1000' });
 
-const kind = (value: InputKind) =>
+const kind = <K extends InputKind>(value: K) =>
   z.literal(value, {
     error: (issue) =>
       issue.input === undefined ? 'is required' : `must be one of ${INPUT_KINDS.join(', ')}`,

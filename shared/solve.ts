@@ -106,6 +106,9 @@ export const warningCodes = [
   'few-grooves',
   'fast-optics',
   'degenerate-mount',
+  'input-overfills',
+  'input-underfills',
+  'curve-gap',
 ] as const;
 
 export const designWarningSchema = z.strictObject({
@@ -121,9 +124,45 @@ export const orderSortingSummarySchema = z.strictObject({
   filterChangesNm: z.array(z.number()),
 });
 
+const nullableNumbers = z.array(nullableNumber);
+
+export const inputFillSchema = z.strictObject({
+  inputFNumber: nullableNumber,
+  pupilFraction: z.number(),
+  slitFraction: z.number(),
+  coupling: z.number(),
+  litWidthFraction: z.number(),
+  litGrooves: z.number(),
+  litResolvingPower: z.number(),
+  state: z.enum(['matched', 'overfilled', 'underfilled', 'assumed-matched']),
+});
+
+export const throughputFactorSchema = z.strictObject({
+  id: z.enum(['grating', 'collimator', 'camera', 'filter', 'detector', 'input']),
+  basis: z.enum(['measured', 'estimate', 'model', 'not-counted']),
+  curveNames: z.array(z.string()),
+  values: nullableNumbers,
+  gapsNm: z.array(z.strictObject({ fromNm: z.number(), toNm: z.number() })),
+});
+
+export const lightBudgetSchema = z.strictObject({
+  inputKind: z.enum(['none', 'free-space', 'fibre', 'lens']),
+  slitAreaMm2: z.number(),
+  acceptanceSolidAngleSr: nullableNumber,
+  acceptanceFNumber: nullableNumber,
+  etendueMm2Sr: nullableNumber,
+  fill: inputFillSchema.nullable(),
+  factors: z.array(throughputFactorSchema),
+  throughput: nullableNumbers,
+  signal: nullableNumbers,
+  sourceBasis: z.enum(['measured', 'flat']),
+  lowest: z.strictObject({ value: z.number(), wavelengthNm: z.number() }).nullable(),
+});
+
 export const solveResponseSchema = z.strictObject({
   points: z.array(wavelengthPointSchema),
   design: designSummarySchema,
   orderSorting: orderSortingSummarySchema,
+  lightBudget: lightBudgetSchema,
   warnings: z.array(designWarningSchema),
 });

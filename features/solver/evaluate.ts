@@ -47,6 +47,7 @@ import type {
   OrderSortingSummary,
   WavelengthPoint,
 } from './results';
+import { lightBudget } from './light-budget';
 import { scanSensitivityNmPerArcsec } from './scan';
 import { collectWarnings } from './warnings';
 
@@ -318,11 +319,13 @@ export function evaluateDesign(design: Design, options: EvaluateOptions = {}): E
   }
   const summary = summarizeDesign(design, plan);
   const orderSorting = orderSortingSummary(design, plan, points);
+  const light = lightBudget(design, points);
   return {
     points,
     design: summary,
     orderSorting,
-    warnings: collectWarnings(points, summary, plan.order, orderSorting),
+    lightBudget: light,
+    warnings: collectWarnings(points, summary, plan.order, orderSorting, light),
   };
 }
 

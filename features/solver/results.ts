@@ -8,6 +8,7 @@ import type { LayoutKind } from '../../shared/design';
 import type { OrderSortingFilter } from '../../shared/filters';
 import type { SlitFunction } from './bandpass';
 import type { DetectorCoverage } from './detector';
+import type { LightBudget } from './light-budget';
 import type { Overlap } from './orders';
 
 export interface WavelengthPoint {
@@ -109,7 +110,10 @@ export type WarningCode =
   | 'beyond-scalar-blaze'
   | 'few-grooves'
   | 'fast-optics'
-  | 'degenerate-mount';
+  | 'degenerate-mount'
+  | 'input-overfills'
+  | 'input-underfills'
+  | 'curve-gap';
 
 /** One kind of design problem in plain words with its fix (built by `collectWarnings`). */
 export interface Warning {
@@ -134,5 +138,7 @@ export interface Evaluation {
   points: WavelengthPoint[];
   design: DesignSummary;
   orderSorting: OrderSortingSummary;
+  /** Étendue, input fill and relative throughput (features/solver/light-budget.ts). */
+  lightBudget: LightBudget;
   warnings: Warning[];
 }

@@ -4,6 +4,8 @@
  * readable list rather than a thousand lines.
  */
 
+import type { LightBudget } from './light-budget';
+import { lightBudgetWarnings } from './light-budget-warnings';
 import { formatNumber } from '../../shared/format';
 import { ORDER_SORTING_RULES } from './order-sorting';
 import type { DesignSummary, OrderSortingSummary, Warning, WavelengthPoint } from './results';
@@ -77,6 +79,7 @@ export function collectWarnings(
   summary: DesignSummary,
   order: number,
   orderSorting: OrderSortingSummary | null = null,
+  light: LightBudget | null = null,
 ): Warning[] {
   const unreachable = tally();
   const grazing = tally();
@@ -275,5 +278,6 @@ export function collectWarnings(
         'use smaller pixels, a longer camera focal length or a wider entrance slit.',
     });
   }
+  if (light) warnings.push(...lightBudgetWarnings(light));
   return warnings;
 }

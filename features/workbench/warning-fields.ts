@@ -15,6 +15,9 @@ export const warningField: Record<WarningCode, string> = {
   'few-grooves': 'grating.ruledWidthMm',
   'fast-optics': 'layout.collimatorFocalMm',
   'degenerate-mount': 'layout.deviationAngleDeg',
+  'input-overfills': 'input.kind',
+  'input-underfills': 'input.kind',
+  'curve-gap': 'range.startNm',
 };
 
 /**
