@@ -47,6 +47,14 @@ export const requirementsSchema = section({
     .gt(0, { error: 'must be greater than 0 (a fraction from 0 to 1)' })
     .max(1, { error: 'must be at most 1 (a fraction: 0.4 means 40 %)' })
     .optional(),
+  /**
+   * The light budget's relative throughput (grating × mirrors × filter × detector × input), at
+   * least this, a fraction from 0 to 1; judged where every counted factor is known.
+   */
+  minRelativeThroughput: number()
+    .gt(0, { error: 'must be greater than 0 (a fraction from 0 to 1)' })
+    .max(1, { error: 'must be at most 1 (a fraction: 0.2 means 20 %)' })
+    .optional(),
   /** The slower of the collimator's width and height f-numbers at the range centre, at most this. */
   maxFNumber: number()
     .min(0.5, { error: 'must be at least 0.5 (no mirror or lens is faster)' })
@@ -91,6 +99,7 @@ export const REQUIREMENT_IDS = [
   'maxBandpassNm',
   'minResolvingPower',
   'minBlazeEfficiency',
+  'minRelativeThroughput',
   'maxFNumber',
   'maxFocalLengthMm',
   'maxFootprintMm',
@@ -110,6 +119,7 @@ export const requirementWords: Readonly<
   minResolvingPower: { label: 'Resolving power at least', short: 'min resolving power' },
   atWavelengthsNm: { label: 'Only at these wavelengths', short: 'at wavelengths (nm)' },
   minBlazeEfficiency: { label: 'Blaze efficiency at least', short: 'min blaze efficiency' },
+  minRelativeThroughput: { label: 'Throughput at least', short: 'min relative throughput' },
   maxFNumber: { label: 'f-number at most', short: 'max f-number' },
   maxFocalLengthMm: { label: 'Focal length at most', short: 'max focal length (mm)' },
   maxFootprintMm: { label: 'Footprint at most', short: 'max footprint (mm)' },

@@ -43,6 +43,7 @@ export const wavelengthPointSchema = z.strictObject({
   overlapsTruncated: z.boolean(),
   filterTransmission: z.number(),
   scanSensitivityNmPerArcsec: nullableNumber,
+  relativeThroughput: nullableNumber,
 });
 
 export const aberrationSummarySchema = z.strictObject({

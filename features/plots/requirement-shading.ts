@@ -33,6 +33,8 @@ function failureWords(id: RequirementId, r: Requirements): string {
       return `resolving power under ${formatNumber(r.minResolvingPower ?? 0)}`;
     case 'minBlazeEfficiency':
       return `efficiency under ${formatPercent(r.minBlazeEfficiency ?? 0)}`;
+    case 'minRelativeThroughput':
+      return `throughput under ${formatPercent(r.minRelativeThroughput ?? 0)}`;
     case 'orderOverlap':
       return 'other orders overlapping, which the requirements forbid';
     case 'maxReciprocalDispersionNmPerMm':

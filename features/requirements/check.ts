@@ -85,6 +85,20 @@ const POINT_RULES: readonly PointRule[] = [
         : null,
   },
   {
+    id: 'minRelativeThroughput',
+    kind: 'min',
+    scope: 'listed',
+    limit: (r) => r.minRelativeThroughput,
+    value: (p) => p.relativeThroughput,
+    words: (v) => `relative throughput ${v}`,
+    unit: '',
+    fixPath: 'grating.blazeWavelengthNm',
+    missing: (design) =>
+      design.grating.blazeWavelengthNm === undefined && !(design.curves ?? []).some((c) => c.kind !== 'line-list' && c.kind !== 'source-spectrum') && !design.input
+        ? 'nothing to count: give the grating’s blaze, a measured curve or the light input to check the throughput'
+        : null,
+  },
+  {
     id: 'minPixelsPerBandpass',
     kind: 'min',
     scope: 'listed',

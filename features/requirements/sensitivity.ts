@@ -110,6 +110,7 @@ const FIGURES: Record<RequirementId | KeyFigure, { noun: string; unit: string }>
   minResolvingPower: { noun: 'resolving power', unit: '' },
   resolvingPower: { noun: 'resolving power', unit: '' },
   minBlazeEfficiency: { noun: 'blaze efficiency', unit: '' },
+  minRelativeThroughput: { noun: 'relative throughput', unit: '' },
   maxFNumber: { noun: 'f-number', unit: '' },
   maxFocalLengthMm: { noun: 'focal length', unit: 'mm' },
   maxFootprintMm: { noun: 'footprint', unit: 'mm' },
@@ -131,7 +132,12 @@ interface Figure {
   noun: string;
 }
 
-const MIN_KEYED: ReadonlySet<string> = new Set(['minResolvingPower', 'minBlazeEfficiency', 'minPixelsPerBandpass']);
+const MIN_KEYED: ReadonlySet<string> = new Set([
+  'minResolvingPower',
+  'minBlazeEfficiency',
+  'minRelativeThroughput',
+  'minPixelsPerBandpass',
+]);
 
 /** The worst value of each numeric requirement, or of the key figures when there are none. */
 function figures(design: Design, footprintDimension: 'widthMm' | 'depthMm' | null): Figure[] {

@@ -132,6 +132,7 @@ function unreachablePoint(plan: PreparedDesign, wavelengthNm: number, reason: st
     overlapsTruncated: false,
     filterTransmission: 1,
     scanSensitivityNmPerArcsec: null,
+    relativeThroughput: null,
   };
 }
 
@@ -194,6 +195,8 @@ export function evaluatePoint(plan: PreparedDesign, wavelengthNm: number): Wavel
     overlapsTruncated: overlapTotal > overlaps.length,
     filterTransmission: filtered ? transmissionAtSetting(plan.filters, wavelengthNm) : 1,
     scanSensitivityNmPerArcsec: scanSensitivityNmPerArcsec(order, spacingNm, K, rotationRad),
+    // The product of the light budget's factors, filled in by `evaluateDesign` once they are known.
+    relativeThroughput: null,
   };
 }
 
@@ -320,6 +323,7 @@ export function evaluateDesign(design: Design, options: EvaluateOptions = {}): E
   const summary = summarizeDesign(design, plan);
   const orderSorting = orderSortingSummary(design, plan, points);
   const light = lightBudget(design, points);
+  for (let i = 0; i < points.length; i++) (points[i] as WavelengthPoint).relativeThroughput = light.throughput[i] ?? null;
   return {
     points,
     design: summary,

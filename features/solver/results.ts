@@ -55,6 +55,11 @@ export interface WavelengthPoint {
   /** What the filters in the beam at this setting pass of the working wavelength itself (1 without). */
   filterTransmission: number;
   scanSensitivityNmPerArcsec: number | null;
+  /**
+   * The light budget's relative throughput here (features/solver/throughput.ts); null where a
+   * counted factor is unknown, where nothing is counted, and from `evaluatePoint` alone.
+   */
+  relativeThroughput: number | null;
 }
 
 export interface AberrationSummary {

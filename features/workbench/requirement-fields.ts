@@ -15,6 +15,7 @@ export type RequirementsText = {
   minResolvingPower: string;
   atWavelengthsNm: string;
   minBlazeEfficiency: string;
+  minRelativeThroughput: string;
   maxFNumber: string;
   maxFocalLengthMm: string;
   maxFootprintMm: { widthMm: string; depthMm: string };
@@ -62,6 +63,11 @@ export const requirementTextFields: readonly RequirementFieldSpec[] = [
     'fraction',
     'Relative to the blaze peak: type a percent (40 %) or a fraction (0.4); stored as a fraction.',
   ),
+  spec(
+    'minRelativeThroughput',
+    'fraction',
+    'Grating × mirrors × filter × detector × input, as the light budget counts them: a percent (20 %) or a fraction (0.2).',
+  ),
   spec('maxFNumber', 'number', 'The slower of the collimator’s width and height f-numbers, e.g. 4.'),
   spec('maxFocalLengthMm', 'mm', 'The longer of the collimator and camera focal lengths.', 'mm'),
   spec('maxFootprintMm.widthMm', 'mm', 'Across the instrument (the sketch’s horizontal).', 'mm'),
@@ -96,6 +102,7 @@ export function blankRequirementsText(): RequirementsText {
     minResolvingPower: '',
     atWavelengthsNm: '',
     minBlazeEfficiency: '',
+    minRelativeThroughput: '',
     maxFNumber: '',
     maxFocalLengthMm: '',
     maxFootprintMm: { widthMm: '', depthMm: '' },
@@ -122,6 +129,8 @@ export const requirementsTextSchema = z
     minResolvingPower: text,
     atWavelengthsNm: text,
     minBlazeEfficiency: text,
+    // Drafts typed before the throughput requirement existed have no such key: blank.
+    minRelativeThroughput: text.default(''),
     maxFNumber: text,
     maxFocalLengthMm: text,
     maxFootprintMm: z.object({ widthMm: text, depthMm: text }),
@@ -258,6 +267,7 @@ export function requirementsToText(requirements: Requirements | undefined): Requ
   text.minResolvingPower = numberText(requirements.minResolvingPower);
   text.atWavelengthsNm = requirements.atWavelengthsNm?.map((nm) => formatMachineNumber(nm)).join(', ') ?? '';
   text.minBlazeEfficiency = numberText(requirements.minBlazeEfficiency);
+  text.minRelativeThroughput = numberText(requirements.minRelativeThroughput);
   text.maxFNumber = numberText(requirements.maxFNumber);
   text.maxFocalLengthMm = numberText(requirements.maxFocalLengthMm);
   text.maxFootprintMm = {

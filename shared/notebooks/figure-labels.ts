@@ -47,6 +47,7 @@ export const requirementNames: Record<RequirementId, string> = {
   maxBandpassNm: 'bandpass',
   minResolvingPower: 'resolving power',
   minBlazeEfficiency: 'blaze efficiency',
+  minRelativeThroughput: 'relative throughput',
   maxFNumber: 'f-number',
   maxFocalLengthMm: 'focal length',
   maxFootprintMm: 'footprint',

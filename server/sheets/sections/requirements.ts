@@ -47,6 +47,7 @@ export function worstCell(check: RequirementCheck): string {
       return `f/${formatNumber(check.worst, 3)}`;
     case 'minResolvingPower':
     case 'minBlazeEfficiency':
+    case 'minRelativeThroughput':
     case 'minPixelsPerBandpass':
       return formatNumber(check.worst, 3);
     case 'maxBandpassNm':
