@@ -44,3 +44,6 @@ export * from './input-fill';
 export * from './throughput';
 export * from './light-budget';
 export * from './light-budget-warnings';
+export * from './air-index';
+export * from './polynomial-fit';
+export * from './calibration-lines';
