@@ -7,6 +7,15 @@ import { fieldErrors, type FieldErrors } from '@/shared/validation';
 import { allFields, type FieldSpec } from './fields';
 import { filtersFromText, filtersTextSchema, filtersToText, spokenFilterKey, type FiltersText } from './filter-fields';
 import {
+  draftCurvesSchema,
+  inputFieldWords,
+  inputFromText,
+  inputTextSchema,
+  inputToText,
+  type DraftCurves,
+  type InputText,
+} from './input-fields';
+import {
   requirementLabel,
   requirementsFromText,
   requirementsTextSchema,
@@ -22,12 +31,16 @@ type FieldText<V> = Exclude<V, undefined> extends number ? string : Exclude<V, u
  * Every section and field of the design, optional or not; numbers as text, a choice as its value.
  */
 export type FormValues = {
-  [S in Exclude<keyof Design, 'requirements' | 'filters'>]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
+  [S in Exclude<keyof Design, 'requirements' | 'filters' | 'input' | 'curves'>]-?: { [K in keyof NonNullable<Design[S]>]-?: FieldText<NonNullable<Design[S]>[K]> };
 } & {
   /** What the instrument must do, as typed (requirement-fields.ts); all blank for none. */
   requirements: RequirementsText;
   /** The order-sorting filters, one row of text each (filter-fields.ts); null when the design has no list. */
   filters: FiltersText;
+  /** How light reaches the slit, as typed (input-fields.ts); kind '' for none. */
+  input: InputText;
+  /** The attached measured curves, exactly as stored (never typed); null when the design has no list. */
+  curves: DraftCurves;
 };
 
 const text = z.string().max(200);
@@ -50,6 +63,9 @@ export const formValuesSchema = z.object(
     ['requirements', requirementsTextSchema],
     // …and those saved before filters existed, as no list.
     ['filters', filtersTextSchema],
+    // …and those saved before the light budget existed, as no input and no curves.
+    ['input', inputTextSchema],
+    ['curves', draftCurvesSchema],
   ]),
 ) as unknown as z.ZodType<FormValues>;
 
@@ -85,6 +101,8 @@ function speak(message: string): string {
   return message.replace(FIELD_NAME, (name) => {
     const filterWords = spokenFilterKey(name);
     if (filterWords) return filterWords;
+    const inputWords = inputFieldWords[name as keyof typeof inputFieldWords];
+    if (inputWords) return `the ${inputWords.label.toLowerCase()}`;
     const field = describedFieldByPath.get(name) ?? describedFields.find((f) => f.key === name);
     const label = field?.label ?? requirementLabel(name.startsWith('requirements.') ? name : `requirements.${name}`);
     return label ? `the ${label.charAt(0).toLowerCase()}${label.slice(1)}` : name;
@@ -127,6 +145,10 @@ export function formToDesign(values: FormValues): FormResult {
   const typedFilters = filtersFromText(values.filters);
   Object.assign(errors, typedFilters.errors);
   if (typedFilters.filters) (candidate as Record<string, unknown>).filters = typedFilters.filters;
+  const typedInput = inputFromText(values.input);
+  Object.assign(errors, typedInput.errors);
+  if (typedInput.input) (candidate as Record<string, unknown>).input = typedInput.input;
+  if (values.curves) (candidate as Record<string, unknown>).curves = values.curves;
   const checked = designSchema.safeParse(candidate);
   if (checked.success && Object.keys(errors).length === 0) return { ok: true, design: checked.data };
   if (!checked.success) {
@@ -186,6 +208,8 @@ export function designToForm(design: Design): FormValues {
     ...form,
     requirements: requirementsToText(design.requirements),
     filters: filtersToText(design.filters),
+    input: inputToText(design.input),
+    curves: design.curves ?? null,
   } as FormValues;
 }
 

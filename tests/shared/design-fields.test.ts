@@ -45,7 +45,7 @@ const words = {
 
 function parameterSections() {
   // Requirements and the filter list have editors of their own (a limit block and a list).
-  return Object.entries(designSchema.shape).filter(([section]) => section !== 'requirements' && section !== 'filters');
+  return Object.entries(designSchema.shape).filter(([section]) => !['requirements', 'filters', 'input', 'curves'].includes(section));
 }
 
 describe('the described design schema', () => {

@@ -13,7 +13,7 @@ function schemaPaths(): string[] {
 }
 
 function parameterSections() {
-  return Object.entries(designSchema.shape).filter(([section]) => section !== 'requirements' && section !== 'filters');
+  return Object.entries(designSchema.shape).filter(([section]) => !['requirements', 'filters', 'input', 'curves'].includes(section));
 }
 
 describe('the editor fields and form, derived from the described schema', () => {
@@ -36,7 +36,7 @@ describe('the editor fields and form, derived from the described schema', () => 
     const form = designToForm(withoutSource);
     // The parameter sections, then the requirements' text (requirement-fields.test.ts covers it)
     // and the filters' rows (filter-fields.test.ts).
-    expect(Object.keys(form)).toEqual([...parameterSections().map(([section]) => section), 'requirements', 'filters']);
+    expect(Object.keys(form)).toEqual([...parameterSections().map(([section]) => section), 'requirements', 'filters', 'input', 'curves']);
     expect(form.source).toEqual({ minNm: '', maxNm: '' });
     expect(form.layout.kind).toBe('czerny-turner');
     expect(form.grating.grooveDensityPerMm).toBe('1200');
