@@ -11,6 +11,7 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
 import { createOutboxRepository } from './mail/outbox-repository';
+import { createCurves } from './curves/index';
 import { createInbox } from './inbox/index';
 import { createNotebooks } from './notebooks/index';
 import { createReviews } from './reviews/index';
@@ -120,6 +121,7 @@ export function createApp(deps: AppDeps) {
     notebooks: notebooks.service,
     reviews: reviews.service,
   });
+  const curves = createCurves({ db: deps.database.db, roles: teams.roles, clock: deps.clock, rateLimits: deps.rateLimits });
   apiRouter.use(
     mountContract(
       {
@@ -137,6 +139,7 @@ export function createApp(deps: AppDeps) {
         },
         search: { run: searchRoute(deps.rateLimits) },
         selectors: { run: selectorsRoute(deps.rateLimits) },
+        curves: curves.router,
       },
       { signedIn },
     ),

@@ -6,7 +6,8 @@ import { sessionCookieName } from './auth/lucia';
 import type { Implementation } from './http/contract';
 
 type Document = Awaited<ReturnType<OpenAPIGenerator['generate']>>;
-type Operation = { responses?: Record<string, unknown>; security?: unknown[]; description?: string };
+type MediaType = { schema?: { properties?: Record<string, unknown> } };
+type Operation = { responses?: Record<string, unknown>; security?: unknown[]; description?: string; requestBody?: { content?: Record<string, MediaType> } };
 
 const sessionScheme = 'session';
 
@@ -60,6 +61,23 @@ export async function buildOpenApiDocument(version: string): Promise<Document> {
           content: { [mediaType]: { schema: { type: 'string', contentMediaType: mediaType } } },
         },
       };
+    }
+    if (entry.meta.upload) {
+      // The generator offers JSON beside multipart for a body holding a file; the server reads only multipart.
+      const { field, sameAnswerStatus } = entry.meta.upload;
+      const multipart = operation.requestBody?.content?.['multipart/form-data'];
+      if (!multipart?.schema?.properties?.[field]) throw new Error(`${entry.name}: the generated document lacks the multipart part ${field}.`);
+      multipart.schema.properties[field] = {
+        type: 'string',
+        format: 'binary',
+        contentMediaType: 'application/octet-stream',
+        description: 'The file: CSV, TSV or semicolon-separated UTF-8 text (413 when it is larger than the limit).',
+      };
+      operation.requestBody!.content = { 'multipart/form-data': multipart };
+      const ok = operation.responses?.[String(entry.status)] as { description?: string } | undefined;
+      if (sameAnswerStatus && ok) {
+        operation.responses = { ...operation.responses, [String(sameAnswerStatus)]: { ...ok, description: 'Already there: the same file, read the same way, is answered as stored before.' } };
+      }
     }
     operation.responses = { ...operation.responses, '4XX': errorResponse('Refused: the error shape names the reason and any bad fields.'), '5XX': errorResponse('Unexpected failure (no detail is given).') };
   }

@@ -199,14 +199,14 @@ export function parseCurveFile(input: string | Uint8Array, kind: CurveKind, corr
   const widest = Math.max(...data.map((r) => r.cells.length), header?.cells.length ?? 0);
   const valueWord = isLineList ? 'relative intensity' : 'value';
   const nameOf = (column: number, role: string) => header?.cells[column - 1] || role;
-  const use = (column: number): ColumnUse => ({ column, name: header?.cells[column - 1] || null });
+  const columnAt = (column: number): ColumnUse => ({ column, name: header?.cells[column - 1] || null });
 
-  const wavelengthColumn = use(1);
-  const valueColumn = isLineList ? (widest >= 2 ? use(2) : null) : use(2);
-  const labelColumn = isLineList && widest >= 3 ? use(3) : null;
+  const wavelengthColumn = columnAt(1);
+  const valueColumn = isLineList ? (widest >= 2 ? columnAt(2) : null) : columnAt(2);
+  const labelColumn = isLineList && widest >= 3 ? columnAt(3) : null;
   const usedColumns = isLineList ? 3 : 2;
   const ignored: ColumnUse[] = [];
-  for (let c = usedColumns + 1; c <= widest; c++) ignored.push(use(c));
+  for (let c = usedColumns + 1; c <= widest; c++) ignored.push(columnAt(c));
 
   if (data.length === 0) {
     return { ok: false, errors: [{ row: header?.row ?? null, column: null, message: 'has a header but no rows of data (a curve needs at least 2 points)' }] };

@@ -24,6 +24,9 @@ const capabilities = {
   /** Clone out of this team; the target team must be one where the user is owner. */
   'designs.clone': ['owner', 'reviewer', 'viewer'],
   'share.manage': ['owner'],
+  /** The team's library of measured curves: owners add and remove, every member reads and copies into designs. */
+  'curves.read': ['owner', 'reviewer', 'viewer'],
+  'curves.manage': ['owner'],
 } as const satisfies Record<string, readonly Role[]>;
 export type Capability = keyof typeof capabilities;
 

@@ -22,6 +22,8 @@ export type RateLimits = {
   searchPerIp: number;
   /** `POST /api/selectors` calls per IP per `solveWindowMs`. */
   selectorsPerIp: number;
+  /** Curve file previews and uploads together per IP per `solveWindowMs`. */
+  curveUploadsPerIp: number;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -49,6 +51,10 @@ export const defaultRateLimits: RateLimits = {
   // One selector call evaluates at most 1,000 wavelengths through closed forms (SELECTOR_LIMITS), a
   // small fraction of the thread, so 60 a minute (a script sweeping parameters once a second) is safe.
   selectorsPerIp: 60,
+  // A curve file is at most 2 MB held in memory and read once; the largest takes CURVE_PARSE_MS
+  // of the thread. A person previews, corrects a unit and uploads a handful a minute; 30 a minute
+  // bounds the memory and the thread one address can hold.
+  curveUploadsPerIp: 30,
 };
 
 type KeyBy = 'ip' | 'email' | 'email-and-ip';
@@ -149,5 +155,16 @@ export function createSelectorsRateLimiter(limits: Pick<RateLimits, 'selectorsPe
     'ip',
     false,
     'Too many selector calculations from this address. Wait a minute and try again.',
+  );
+}
+
+/** Curve file previews and uploads per IP, one counter for both: each holds up to 2 MB in memory while it is read. */
+export function createCurveUploadRateLimiter(limits: Pick<RateLimits, 'curveUploadsPerIp' | 'solveWindowMs'>): RequestHandler {
+  return limiter(
+    limits.curveUploadsPerIp,
+    limits.solveWindowMs,
+    'ip',
+    false,
+    'Too many curve files from this address. Wait a minute and try again.',
   );
 }

@@ -1,4 +1,5 @@
 import { accounts } from './accounts';
+import { curves } from './curves';
 import { inbox } from './inbox';
 import { notebooks } from './notebooks';
 import { platform } from './platform';
@@ -16,7 +17,7 @@ export type { Access, Method, Route, RouteAnswer, RouteArgs, RouteInput, RouteMe
  * Every route of the HTTP API, described once. Group and route names are the OpenAPI
  * operation ids (`notebooks.saveVersion`) and the first two items of each TanStack Query key.
  */
-export const apiContract = { accounts, teams, notebooks, reviews, sheets, inbox, platform, search, selectors };
+export const apiContract = { accounts, teams, notebooks, reviews, sheets, inbox, platform, search, selectors, curves };
 export type ApiContract = typeof apiContract;
 
 export type RouteEntry = { name: string; route: Route } & ReturnType<typeof describe>;

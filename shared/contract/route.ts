@@ -31,6 +31,12 @@ export type RouteMeta = {
    * and the OpenAPI document describes it as binary.
    */
   file?: { mediaType: 'application/pdf' };
+  /**
+   * The body is multipart/form-data with one file in the part `field` (the body schema holds it
+   * as `z.file()`); the OpenAPI document describes only that content type. `sameAnswerStatus`: a
+   * second success status the route also answers (an upload recognised as already stored).
+   */
+  upload?: { field: string; sameAnswerStatus?: 200 };
 };
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -65,6 +71,7 @@ export type RouteSpec<Params, Query, Body, O> = {
   access: Access;
   originExempt?: boolean;
   file?: RouteMeta['file'];
+  upload?: RouteMeta['upload'];
   tag: string;
 };
 
@@ -98,7 +105,7 @@ export function route<
       tags: [spec.tag],
       inputStructure: 'detailed',
     })
-    .meta({ access: spec.access, ...(spec.originExempt ? { originExempt: true } : {}), ...(spec.file ? { file: spec.file } : {}) })
+    .meta({ access: spec.access, ...(spec.originExempt ? { originExempt: true } : {}), ...(spec.file ? { file: spec.file } : {}), ...(spec.upload ? { upload: spec.upload } : {}) })
     .input(z.object(shape));
   return (spec.output ? procedure.output(spec.output) : procedure) as unknown as Route<InputSchema<Params, Query, Body>, O>;
 }

@@ -36,8 +36,11 @@ type Fixture = {
   invite(teamId: string, email: string, role?: Role): Promise<{ id: string; token: string }>;
 };
 
-/** `query`: for a route that needs one to answer at all (the compare sheet names both versions). */
-type Case = { params?: Record<string, string>; query?: Record<string, string>; body?: unknown };
+/**
+ * `query`: for a route that needs one to answer at all (the compare sheet names both versions).
+ * `form`: a multipart body (the curve uploads): its text fields and the file sent in the part `file`.
+ */
+type Case = { params?: Record<string, string>; query?: Record<string, string>; body?: unknown; form?: { fields: Record<string, string>; file: string } };
 /**
  * `session`: 'own' when the call ends or replaces the session it carries (sign-up, sign-in,
  * sign-out), so it must not use the shared agent; 'ends-all' when it may end every session of the
@@ -96,6 +99,15 @@ let matrixThread: Promise<{ id: string; remarkId: string }> | undefined;
 const thread = (fx: Fixture) => (matrixThread ??= newThread(fx));
 
 let unique = 0;
+/** A curve file no earlier case sent, so an upload is new (201), not recognised (200). */
+const freshCurveForm = () => ({ fields: { kind: 'mirror-reflectance' }, file: `nm,R\n500,0.9\n${600 + (unique += 1)},0.95\n` });
+async function newCurve(fx: Fixture): Promise<string> {
+  const { fields, file } = freshCurveForm();
+  const res = await (await fx.agent('owner')).post(`/api/teams/${fx.teamId}/curves`).field(fields).attach('file', Buffer.from(file), 'matrix.csv').expect(201);
+  return res.body.curve.id as string;
+}
+let matrixCurve: Promise<string> | undefined;
+const curve = (fx: Fixture) => (matrixCurve ??= newCurve(fx));
 const freshEmail = () => `matrix-${(unique += 1)}@example.com`;
 const password = testPassword;
 
@@ -242,6 +254,13 @@ const matrix: Record<string, Row> = {
   'sheets.compare': { prepare: async (fx) => ({ ...(await designParams(fx)), query: { a: '1', b: '1' } }) },
   'sheets.shared': { prepare: async (fx) => ({ params: { token: (await newShareLink(fx)).token } }) },
 
+  // The curve library: anyone signed in previews a file; members read the library, owners add and remove.
+  'curves.preview': { prepare: async () => ({ form: freshCurveForm() }) },
+  'curves.upload': { prepare: async () => ({ form: freshCurveForm() }) },
+  'curves.list': {},
+  'curves.get': { prepare: async (fx) => ({ params: { curveId: await curve(fx) } }) },
+  'curves.remove': { prepare: async (fx) => ({ params: { curveId: await newCurve(fx) } }) },
+
   // Anyone holding the link may read what it offers; only its addressee may accept it.
   'teams.previewInvitation': {
     
@@ -262,7 +281,7 @@ describe('access matrix: every API route × every kind of caller', () => {
   let fx: Fixture;
 
   beforeAll(async () => {
-    const ctx = await createTestApp({ rateLimits: { signInPerIp: 10_000, signInFailuresPerEmailPerIp: 10_000, signInFailuresPerIp: 10_000, signUpPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000 } });
+    const ctx = await createTestApp({ rateLimits: { signInPerIp: 10_000, signInFailuresPerEmailPerIp: 10_000, signInFailuresPerIp: 10_000, signUpPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000, curveUploadsPerIp: 10_000 } });
     const owner = await signUp(ctx.app, 'Owner', 'matrix-owner@example.com');
     const made = await owner.agent.post('/api/teams').send({ name: 'Team A' }).expect(201);
     const teamId: string = made.body.team.id;
@@ -353,7 +372,8 @@ describe('access matrix: every API route × every kind of caller', () => {
     const call = prepared.query ? bare.query(prepared.query) : bare;
     let res: Awaited<typeof call>;
     try {
-      res = await (prepared.body === undefined ? call : call.send(prepared.body as object));
+      const form = prepared.form;
+      res = await (form ? call.field(form.fields).attach('file', Buffer.from(form.file), 'matrix.csv') : prepared.body === undefined ? call : call.send(prepared.body as object));
     } finally {
       if (row.session === 'ends-all') fx.forget(actor);
     }
