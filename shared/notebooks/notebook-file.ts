@@ -12,9 +12,17 @@ import { designTitleSchema, notesSchema, tagsSchema, versionMessageSchema } from
 import { versionNumberSchema } from './version-number';
 
 export const notebookFileKind = 'blazebook-notebook';
-/** The format this version writes. It still reads format 1, which has no review data. */
-export const notebookFormatVersion = 2;
-export const readableFormatVersions = [1, 2] as const;
+/**
+ * The format this version writes. Format 2 added the review; format 3 lets a version's params
+ * carry the light input (`input`) and measured curves (`curves`). Formats 1 and 2 still read.
+ */
+export const notebookFormatVersion = 3;
+export const readableFormatVersions = [1, 2, 3] as const;
+/** Design fields a file must be at least this format to carry (older writers never wrote them). */
+const designFieldsSince: Readonly<Record<'input' | 'curves', number>> = { input: 3, curves: 3 };
+
+/** "1, 2 or 3". */
+const formatsText = `${readableFormatVersions.slice(0, -1).join(', ')} or ${readableFormatVersions.at(-1)}`;
 export const maxFileVersions = 1000;
 export const maxFileThreads = 2000;
 export const maxFileRemarksPerThread = 500;
@@ -175,7 +183,7 @@ export const notebookFileSchema = z
     {
       kind: z.literal(notebookFileKind, { error: `must be "${notebookFileKind}"` }),
       formatVersion: z.literal(readableFormatVersions, {
-        error: `must be ${readableFormatVersions.join(' or ')} (the formats this version reads)`,
+        error: `must be ${formatsText} (the formats this version reads)`,
       }),
       exportedAt: z.iso.datetime().optional(),
       title: designTitleSchema,
@@ -215,6 +223,21 @@ export const notebookFileSchema = z
             path: ['versions', index, 'parentNumber'],
             message: 'must be an earlier version',
           });
+        }
+        // A version of an older format carrying the light input or curves was not written by an
+        // older Blazebook: refuse it by path, as a format 1 file with a review is.
+        const params = (raw as { params?: unknown }).params;
+        const format = typeof file.formatVersion === 'number' ? file.formatVersion : notebookFormatVersion;
+        if (typeof params === 'object' && params !== null) {
+          for (const [field, since] of Object.entries(designFieldsSince)) {
+            if (field in params && format < since) {
+              ctx.addIssue({
+                code: 'custom',
+                path: ['versions', index, 'params', field],
+                message: `is not part of format ${format} (use formatVersion ${since})`,
+              });
+            }
+          }
         }
         if (index > 0 && (parentNumber === null || parentNumber === undefined)) {
           ctx.addIssue({

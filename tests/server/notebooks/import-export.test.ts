@@ -67,7 +67,7 @@ describe('export', () => {
     const file = notebookFileSchema.parse(res.body);
     expect(file).toMatchObject({
       kind: 'blazebook-notebook',
-      formatVersion: 2,
+      formatVersion: 3,
       title: 'Export me',
       baselineVersion: 1,
       clonedFrom: null,
@@ -139,7 +139,7 @@ describe('import', () => {
   it('refuses a broken file, names every problem by its path, and writes nothing', async () => {
     const before = await rowCounts();
     const file = goodFile() as Record<string, unknown> & { versions: Record<string, unknown>[] };
-    file.formatVersion = 3;
+    file.formatVersion = 4;
     file.title = '';
     file.baselineVersion = 9;
     file.surprise = true;
@@ -150,7 +150,7 @@ describe('import', () => {
     const res = await fx.owner.agent.post(`/api/teams/${fx.teamId}/designs/import`).send(file).expect(400);
     expect(res.body.error.fields).toEqual({
       '(body)': "has an unknown field 'surprise' (check the spelling)",
-      formatVersion: 'must be 1 or 2 (the formats this version reads)',
+      formatVersion: 'must be 1, 2 or 3 (the formats this version reads)',
       title: 'is required',
       'versions.0.params.grating.order': 'must be a whole number other than 0',
       'versions.0.params.slits.exitWidthUm': 'must be greater than 0',

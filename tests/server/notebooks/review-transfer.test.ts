@@ -4,6 +4,7 @@ import { designs, reviewDecisions, reviewRemarks, reviewThreads, users } from '.
 import { exampleDesign } from '../../../shared/design';
 import {
   notebookFileSchema,
+  notebookFormatVersion,
   notebookWithVersionResponseSchema,
   type NotebookFile,
   type NotebookFileInput,
@@ -129,7 +130,7 @@ describe('export and import of the review', () => {
     expect(Object.keys(res.body).sort()).toEqual(
       ['kind', 'formatVersion', 'exportedAt', 'title', 'tags', 'baselineVersion', 'clonedFrom', 'versions', 'review'].sort(),
     );
-    expect(file.formatVersion).toBe(2);
+    expect(file.formatVersion).toBe(notebookFormatVersion);
     const reviewer = fx.reviewer.user.displayName;
     const owner = fx.owner.user.displayName;
     expect(file.review?.threads.map((t) => [t.version, t.pin.kind, t.status, t.createdByName, t.remarks.length])).toEqual([
