@@ -105,7 +105,7 @@ let targets: Record<string, Target>;
 
 beforeAll(async () => {
   fx = await createNotebookFixture({
-    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9 },
+    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9, curveUploadsPerIp: 1e9 },
   });
   server = createServer(fx.ctx.app).listen(0, '127.0.0.1');
   for (const who of ['owner', 'reviewer'] as const) {
@@ -198,6 +198,10 @@ beforeAll(async () => {
       as: 'owner',
       body: { reviewRequests: true, mentions: false, threadsOnMyDesigns: true, decisionsOnMyVersions: true },
     },
+    // Multipart routes: JSON in any shape is refused before it is read. Poisoned forms and files
+    // are thrown at them in curves-hostile.property.test.ts.
+    'POST /api/curves/preview': { as: 'owner', body: { kind: 'grating-efficiency', file: '500,0.5\n600,0.6\n' } },
+    'POST /api/teams/:teamId/curves': { as: 'owner', params: { teamId: team }, body: { kind: 'grating-efficiency', name: 'Fuzz', file: '500,0.5\n600,0.6\n' } },
   };
 }, 120_000);
 
@@ -242,6 +246,8 @@ describe.each([
   'POST /api/designs/:id/versions/:n/decisions',
   'POST /api/inbox/read',
   'PUT /api/account/mail-settings',
+  'POST /api/curves/preview',
+  'POST /api/teams/:teamId/curves',
 ])('%s', (route) => {
   it(`answers ${runsPerRoute} hostile bodies without a 500, refusals in the error shape`, async () => {
     const target = targets[route]!;

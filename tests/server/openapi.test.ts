@@ -73,6 +73,20 @@ describe('GET /api/openapi.json', () => {
     expect(Object.keys(document.paths['/designs/{id}/versions/{n}/sheet.pdf']!.get!.responses['200']!.content!)).toEqual(['application/pdf']);
   });
 
+  it('describes the curve uploads as multipart/form-data with a binary file part, and nothing else', () => {
+    const uploads = apiRoutes.filter((entry) => entry.meta.upload);
+    expect(uploads.map((entry) => entry.name).sort()).toEqual(['curves.preview', 'curves.upload']);
+    for (const entry of uploads) {
+      const content = document.paths[entry.path]![entry.method.toLowerCase()]!.requestBody!.content;
+      expect(Object.keys(content), entry.name).toEqual(['multipart/form-data']);
+      const schema = content['multipart/form-data']!.schema as { properties: Record<string, { type?: string; format?: string }>; required: string[] };
+      expect(schema.properties.file).toMatchObject({ type: 'string', format: 'binary' });
+      expect(schema.required).toEqual(expect.arrayContaining(['file', 'kind']));
+    }
+    // A recognised re-upload answers 200 with the stored curve, beside the 201 of a new one.
+    expect(Object.keys(document.paths['/teams/{teamId}/curves']!.post!.responses)).toEqual(expect.arrayContaining(['200', '201']));
+  });
+
   it('describes the solver’s real answer: a POST /api/solve answer validates against the documented schema', async () => {
     const schema = document.paths['/solve']!.post!.responses['200']!.content!['application/json']!.schema;
     const validate = compile(schema);
