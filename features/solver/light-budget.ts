@@ -7,11 +7,10 @@
 import type { Design } from '../../shared/design';
 import type { InputKind } from '../../shared/light-input';
 import { etendueMm2Sr, equivalentFNumber, rectangleSolidAngleSr } from './etendue';
-import { solveGrating } from './grating';
+import { grooveSpacingNm, solveGrating } from './grating';
 import { inputFill, type FillGeometry, type InputFill } from './input-fill';
 import { UM_PER_MM } from './math';
 import { halfDeviationRad } from './mount';
-import { grooveSpacingNm } from './grating';
 import type { WavelengthPoint } from './results';
 import {
   signalShape,

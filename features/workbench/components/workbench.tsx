@@ -12,7 +12,9 @@ import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-nati
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 // The file, not the notebooks index: that index reaches back into this feature.
 import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
+import { CalibrationCard } from '@/features/calibration';
 import { CandidateSearchPanel } from '@/features/candidates';
+import { LightBudgetCard } from '@/features/light-budget';
 import { OrderSortingCard } from '@/features/order-sorting';
 import { PerformancePlots } from '@/features/plots';
 import { TradeStudyCard } from '@/features/selectors';
@@ -30,6 +32,9 @@ import type { Preset } from '../presets';
 import { filterToText } from '../filter-fields';
 import { BlockedNote } from './blocked-note';
 import { FilterRowFields } from './filter-row-fields';
+import { InputFields } from './input-fields';
+import type { InputTextKey } from '../input-fields';
+import type { DesignCurve } from '@/shared/curves';
 import { DesignEditor } from './design-editor';
 import { PresetPicker } from './preset-picker';
 import { RangeTable } from './range-table';
@@ -126,7 +131,7 @@ export function Workbench({
   const [valueUndo, setValueUndo] = useState<{
     text: string;
     previous: FormValues;
-    from: 'requirements' | 'filters';
+    from: 'requirements' | 'filters' | 'curves';
   } | null>(null);
   const applyOffer = (offer: SolveOffer) => {
     const previous = bench.applyChanges(offer.changes);
@@ -136,7 +141,7 @@ export function Workbench({
     const previous = bench.openDesign(design);
     setValueUndo({ text: 'Opened a candidate design in the editor.', previous, from: 'requirements' });
   };
-  const undoFor = (from: 'requirements' | 'filters') =>
+  const undoFor = (from: 'requirements' | 'filters' | 'curves') =>
     valueUndo?.from === from
       ? { text: valueUndo.text, onUndo: () => (bench.restore(valueUndo.previous), setValueUndo(null)) }
       : null;
@@ -166,6 +171,16 @@ export function Workbench({
     (index: number) => <FilterRowFields control={control} index={index} highlightedPath={highlightedPath} />,
     [control, highlightedPath],
   );
+
+  const inputFields = useCallback(
+    (keys: readonly InputTextKey[]) => <InputFields control={control} keys={keys} highlightedPath={highlightedPath} />,
+    [control, highlightedPath],
+  );
+  const changeCurves = (curves: DesignCurve[], text: string | null) => {
+    // Removing the last curve leaves the design without a list, as before any was attached.
+    const previous = bench.setCurves(curves.length > 0 ? curves : null);
+    if (text) setValueUndo({ text, previous, from: 'curves' });
+  };
 
   const pickPreset = (preset: Preset) => {
     const previous = bench.applyPreset(preset);
@@ -313,6 +328,24 @@ export function Workbench({
       collapsedAtFirst={layout === 'phone'}
     />
   );
+  // Étendue, fill and throughput: the light the design gathers, beside its measured curves.
+  const lightBudget = (
+    <LightBudgetCard
+      design={bench.design}
+      evaluation={deferredEvaluation}
+      readOnly={readOnly}
+      dimmed={dimmed}
+      inputKind={bench.values.input?.kind ?? ''}
+      onInputKind={bench.setInputKind}
+      inputFields={inputFields}
+      curves={bench.values.curves ?? []}
+      onCurvesChange={changeCurves}
+      undo={undoFor('curves')}
+      collapsedAtFirst={layout === 'phone'}
+    />
+  );
+  // The lamp lines the design will be calibrated with.
+  const calibration = <CalibrationCard design={bench.design} collapsedAtFirst={layout === 'phone'} />;
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   // Last in every layout: what to take care of at the bench, for this design's range and source.
   const cautions = <CautionsCard design={bench.design} />;
@@ -332,6 +365,8 @@ export function Workbench({
           {search}
           {sensitivity}
           {tradeStudy}
+          {lightBudget}
+          {calibration}
           {readout}
           {graphics}
           {table}
@@ -366,6 +401,8 @@ export function Workbench({
           {search}
           {sensitivity}
           {tradeStudy}
+          {lightBudget}
+          {calibration}
           {readout}
           {table}
           {cautions}
@@ -391,6 +428,8 @@ export function Workbench({
         {search}
         {sensitivity}
         {tradeStudy}
+        {lightBudget}
+        {calibration}
         {readout}
         {table}
         {cautions}

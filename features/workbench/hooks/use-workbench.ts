@@ -15,6 +15,7 @@ import { formatMachineNumber } from '@/shared/format';
 import type { FieldErrors } from '@/shared/validation';
 import type { Draft } from '../draft';
 import { filtersToText, type FiltersText } from '../filter-fields';
+import { blankInputText, type DraftCurves, type InputText } from '../input-fields';
 import { designToForm, formToDesign, readForm, type FormResult, type FormValues } from '../form-model';
 import { rememberDeviation, switchDeviation, type DeviationMemory } from '../mount-switch';
 import { defaultPreset, type Preset } from '../presets';
@@ -199,6 +200,20 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     return previous;
   }
 
+  /** Chooses how light reaches the slit ('' for none); the other kinds' typed text is kept for a switch back. */
+  function setInputKind(kind: InputText['kind']) {
+    const previous = form.getValues();
+    form.setValue('input', { ...(previous.input ?? blankInputText()), kind }, { shouldValidate: true, shouldDirty: true });
+    return previous;
+  }
+
+  /** Replaces the attached curves (null for none); returns the replaced text, for an undo. */
+  function setCurves(curves: DraftCurves) {
+    const previous = form.getValues();
+    form.setValue('curves', curves, { shouldValidate: true, shouldDirty: true });
+    return previous;
+  }
+
   /** Replaces the design's filters (a proposed plan; undefined for none); returns the replaced text, for an undo. */
   function applyFilters(filters: readonly OrderSortingFilter[] | undefined) {
     return setFilterRows(filtersToText(filters));
@@ -230,6 +245,8 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     applyChanges,
     applyFilters,
     setFilterRows,
+    setInputKind,
+    setCurves,
     restore,
     requirementsSet,
     requirementsReport,

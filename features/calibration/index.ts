@@ -1,0 +1,1 @@
+export { CalibrationCard, type CalibrationCardProps } from './components/calibration-card';

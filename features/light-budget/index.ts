@@ -1,0 +1,1 @@
+export { LightBudgetCard, type LightBudgetCardProps } from './components/light-budget-card';
