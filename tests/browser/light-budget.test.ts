@@ -1,0 +1,120 @@
+import path from 'node:path';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { draftFromDesign } from '../../features/workbench/draft';
+import { exampleDesign } from '../../shared/design';
+import { expectAccessible } from '../support/axe';
+import { artifactsDir, liveServerAndBrowser, screenshot, viewports, watchConsole } from '../support/browser';
+
+/**
+ * The light budget card on the example design (300–900 nm, 1200/mm blazed at 500 nm): attach a
+ * measured grating efficiency curve through the document picker at phone size, see the units it
+ * detected and the preview, and the throughput follow the measured curve instead of the scalar
+ * estimate. The curve is demo data of our own: a smooth hump peaking at 70 % near 500 nm, in µm
+ * and percent so both detections show.
+ */
+const curveCsv = [
+  '# Demo grating, ruled 1200/mm, test report 14 (invented)',
+  'wavelength (um),efficiency (%)',
+  ...Array.from({ length: 31 }, (_, i) => {
+    const um = 0.3 + i * 0.02;
+    const pct = 70 * Math.exp(-(((um - 0.5) / 0.25) ** 2));
+    return `${um.toFixed(2)},${pct.toFixed(2)}`;
+  }),
+].join('\n');
+
+const shootPart = (page: Page, testID: string, name: string) =>
+  page.getByTestId(testID).screenshot({ path: path.join(artifactsDir, `${name}.png`) });
+const eventually = <T>(read: () => Promise<T>) => expect.poll(read, { timeout: 15_000 });
+const basis = (page: Page, id: string) => page.getByTestId(`light-budget-factor-${id}`).getAttribute('data-basis');
+const throughputSummary = (page: Page) =>
+  page.getByTestId('light-budget-throughput-plot-figure').getAttribute('aria-label');
+
+async function openWithExample(page: Page, url: string) {
+  await page.goto(`${url}/workbench`);
+  const draft = { version: 1, value: draftFromDesign(exampleDesign) };
+  await page.evaluate((stored) => localStorage.setItem('blazebook.scratch-design', stored), JSON.stringify(draft));
+  await page.reload();
+  await page.getByTestId('light-budget-card').waitFor();
+}
+
+describe('the light budget in the workbench', () => {
+  const live = liveServerAndBrowser();
+
+  it('attaches an uploaded efficiency curve at phone size after showing what it detected, and the throughput follows it', async () => {
+    const context = await live.browser.newContext({ viewport: viewports.phone });
+    const page = await context.newPage();
+    const errors = watchConsole(page);
+    await openWithExample(page, live.server.url);
+    // Collapsed at first on a phone; open it.
+    await page.getByTestId('light-budget-toggle').click();
+    await page.getByTestId('light-budget-throughput-plot').waitFor();
+    expect(await basis(page, 'grating')).toBe('estimate');
+    const before = await throughputSummary(page);
+
+    await page.getByTestId('light-budget-add-curve').click();
+    const chooser = page.waitForEvent('filechooser');
+    await page.getByTestId('curve-upload-choose').click();
+    await (await chooser).setFiles({ name: 'demo-grating-report-14.csv', mimeType: 'text/csv', buffer: Buffer.from(curveCsv) });
+    const detected = page.getByTestId('curve-upload-detected');
+    await detected.waitFor();
+    expect(await detected.textContent()).toMatch(/Wavelengths in µm.*header/);
+    expect(await detected.textContent()).toMatch(/Values as percent/);
+    expect(await detected.textContent()).toContain('31 points, 300–900 nm');
+    await page.getByTestId('curve-upload-preview-table').waitFor();
+    expect(await page.getByTestId('curve-upload-plot-line').getAttribute('data-points')).toBe('31');
+    expect(await page.getByTestId('curve-upload-name').inputValue()).toBe('demo-grating-report-14');
+    await shootPart(page, 'curve-upload-panel', 'light-budget-upload-preview-phone');
+    await expectAccessible(page, 'curve upload preview at phone');
+
+    await page.getByTestId('curve-upload-attach').click();
+    await page.getByTestId('light-budget-curve-0').waitFor();
+    expect(await page.getByTestId('light-budget-curve-0').textContent()).toContain('Grating efficiency, 31 points, 300–900 nm');
+    await eventually(() => basis(page, 'grating')).toBe('measured');
+    await eventually(() => throughputSummary(page)).not.toBe(before);
+    // The measured hump peaks at 70 %: the product's centre value reads so in the table.
+    expect(await page.getByTestId('light-budget-factor-grating').textContent()).toMatch(/measured \(demo-grating-report-14\)/);
+    await screenshot(page, 'light-budget-attached-phone');
+    await shootPart(page, 'light-budget-card', 'light-budget-card-phone');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('names the row and column of a bad file and attaches nothing', async () => {
+    const context = await live.browser.newContext({ viewport: viewports.phone });
+    const page = await context.newPage();
+    const errors = watchConsole(page);
+    await openWithExample(page, live.server.url);
+    await page.getByTestId('light-budget-toggle').click();
+    await page.getByTestId('light-budget-add-curve').click();
+    const chooser = page.waitForEvent('filechooser');
+    await page.getByTestId('curve-upload-choose').click();
+    await (await chooser).setFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('nm,value\n400,0.5\n500,abc\n600,0.7\n') });
+    const problems = page.getByTestId('curve-upload-errors');
+    await problems.waitFor();
+    expect(await problems.textContent()).toMatch(/row 3.*column 2/i);
+    expect(await page.getByTestId('curve-upload-attach').isDisabled()).toBe(true);
+    expect(await page.getByTestId('light-budget-curves').count()).toBe(0);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('fits tablet and wide screens, with a fibre input over-filling the grating', async () => {
+    for (const size of ['tablet', 'wide'] as const) {
+      const context = await live.browser.newContext({ viewport: viewports[size] });
+      const page = await context.newPage();
+      const errors = watchConsole(page);
+      await openWithExample(page, live.server.url);
+      await page.getByTestId('light-budget-input-kind-fibre').click();
+      await page.getByTestId('field-input.numericalAperture').fill('0.22');
+      await page.getByTestId('field-input.coreDiameterUm').fill('200 µm');
+      await eventually(() => page.getByTestId('light-budget-fill-state').getAttribute('data-state')).toBe('overfilled');
+      expect(await page.getByTestId('warning-input-overfills').count()).toBe(1);
+      expect(await basis(page, 'input')).toBe('model');
+      await shootPart(page, 'light-budget-card', `light-budget-card-${size}`);
+      await expectAccessible(page, `light budget at ${size}`);
+      expect(errors).toEqual([]);
+      await context.close();
+    }
+  });
+});
