@@ -174,20 +174,27 @@ export function parseCurveFile(input: string | Uint8Array, kind: CurveKind, corr
     if (errors.length < MAX_REPORTED_ERRORS) errors.push(error);
   };
 
-  // One line at a time, so every row keeps its file line; a quoted cell may not span lines.
-  const rows: DataRow[] = [];
-  for (const line of contentLines) {
-    const parsed = Papa.parse<string[]>(line.text, { delimiter });
-    const quoteError = parsed.errors.find((e) => e.type === 'Quotes');
-    if (quoteError) {
-      fail({ row: line.row, column: null, message: 'has a quoted cell that is not closed on its line' });
-      continue;
+  // A header and one point past the limit are all that is ever read: a 2 MB file of short lines
+  // is refused by its count, not split.
+  const read = contentLines.slice(0, MAX_CURVE_POINTS + 2);
+  // One parse of every line; each row keeps its file line as long as no quoted cell spans lines.
+  // When one does, the lines are parsed one by one to name each line that fails.
+  const whole = Papa.parse<string[]>(read.map((l) => l.text).join('\n'), { delimiter, newline: '\n' });
+  let split = whole.data;
+  if (split.length !== read.length || whole.errors.some((e) => e.type === 'Quotes')) {
+    split = [];
+    for (const line of read) {
+      const one = Papa.parse<string[]>(line.text, { delimiter });
+      if (one.errors.some((e) => e.type === 'Quotes')) fail({ row: line.row, column: null, message: 'has a quoted cell that is not closed on its line' });
+      split.push(one.data[0] ?? []);
     }
-    const cells = (parsed.data[0] ?? []).map((c) => c.trim());
-    while (cells.length > 1 && cells[cells.length - 1] === '') cells.pop();
-    rows.push({ row: line.row, cells });
+    if (errors.length > 0) return { ok: false, errors };
   }
-  if (errors.length > 0) return { ok: false, errors };
+  const rows: DataRow[] = read.map((line, i) => {
+    const cells = (split[i] ?? []).map((c) => c.trim());
+    while (cells.length > 1 && cells[cells.length - 1] === '') cells.pop();
+    return { row: line.row, cells };
+  });
 
   const first = rows[0]!;
   const hasHeader = readNumber(first.cells[0] ?? '', decimalComma) === null;
@@ -211,9 +218,10 @@ export function parseCurveFile(input: string | Uint8Array, kind: CurveKind, corr
   if (data.length === 0) {
     return { ok: false, errors: [{ row: header?.row ?? null, column: null, message: 'has a header but no rows of data (a curve needs at least 2 points)' }] };
   }
-  if (data.length > MAX_CURVE_POINTS) {
+  const pointsInFile = contentLines.length - (hasHeader ? 1 : 0);
+  if (pointsInFile > MAX_CURVE_POINTS) {
     const over = data[MAX_CURVE_POINTS]!;
-    return { ok: false, errors: [{ row: over.row, column: null, message: `is point ${MAX_CURVE_POINTS + 1}: a curve keeps at most ${MAX_CURVE_POINTS} points (the file has ${data.length})` }] };
+    return { ok: false, errors: [{ row: over.row, column: null, message: `is point ${MAX_CURVE_POINTS + 1}: a curve keeps at most ${MAX_CURVE_POINTS} points (the file has ${pointsInFile})` }] };
   }
 
   // Pass 1: every cell a number (or a label).

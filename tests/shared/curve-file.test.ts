@@ -171,6 +171,7 @@ describe('refusals name the row and column', () => {
     { label: 'above 1 as a fraction', kind: 'detector-response', file: '500,0.9\n600,1.01\n', message: 'row 2, column 2 (value): 1.01 is above 1 as a fraction (if the file is in percent, correct the value scale)' },
     { label: 'one point', kind: 'mirror-reflectance', file: '# one\n500,0.9\n', message: 'row 2: is the only point: a curve needs at least 2' },
     { label: 'an unclosed quote', kind: 'mirror-reflectance', file: '500,0.9\n"600,0.9\n', message: 'row 2: has a quoted cell that is not closed on its line' },
+    { label: 'a quoted cell across lines', kind: 'mirror-reflectance', file: 'nm,R\n500,"0.9\n0.8"\n600,0.5\n', message: 'row 2: has a quoted cell that is not closed on its line' },
     { label: 'a number too large', kind: 'source-spectrum', file: '500,1\n600,1e999\n', message: "row 2, column 2 (value): '1e999' is too large" },
     { label: 'a wavelength past 10 000 000 nm once converted', kind: 'source-spectrum', file: 'um,counts\n1,1\n20000,1\n', message: 'row 3, column 1 (um): after conversion must be greater than 0 and at most 10000000 nm' },
     { label: 'an empty file', kind: 'source-spectrum', file: '', message: 'is empty: it holds no rows of data' },
