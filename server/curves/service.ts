@@ -14,6 +14,8 @@ import type { CurvesRepository } from './repository';
 export type CurveForm = { file: File; kind: CurveKind; name?: string } & CurveCorrections;
 
 const curveNotFound = () => notFound('No such curve.');
+/** At most `max` UTF-16 units, never ending on half of a pair (which could not be stored as sent). */
+const clip = (text: string, max: number) => text.slice(0, max).replace(/[\uD800-\uDBFF]$/, '');
 const MAX_FILE_NAME = 255;
 
 /** A refused file: every problem (row, column, why) in `fields.file` and, one by one, in `details.fileErrors`. */
@@ -32,7 +34,7 @@ async function readForm(form: CurveForm) {
   if (!parsed.ok) throw refusedFile(parsed.errors);
   const fileNameReason = unstorableReason(form.file.name);
   if (fileNameReason) throw badRequest('The file name cannot be stored.', { file: `has a name that ${fileNameReason}` });
-  return { bytes, parsed, corrections, checksum: createHash('sha256').update(bytes).digest('hex'), fileName: form.file.name.slice(0, MAX_FILE_NAME) };
+  return { bytes, parsed, corrections, checksum: createHash('sha256').update(bytes).digest('hex'), fileName: clip(form.file.name, MAX_FILE_NAME) };
 }
 
 function previewOf(parsed: CurveFileParsed, checksum: string, fileName: string): CurvePreview {
@@ -89,7 +91,7 @@ export function createCurvesService(deps: { repository: CurvesRepository; access
       const existing = await repository.findSame(key);
       if (existing) return { curve: curveOf((await repository.get(teamId, existing))!), recognised: true };
       const id = generateIdFromEntropySize(10);
-      const name = form.name ?? (fileName.trim().slice(0, MAX_CURVE_NAME).trim() || CURVE_KIND_WORDS[form.kind]);
+      const name = form.name ?? (clip(fileName.trim(), MAX_CURVE_NAME).trim() || CURVE_KIND_WORDS[form.kind]);
       const stored = await repository.insert({
         ...key,
         id,

@@ -74,6 +74,17 @@ describe('a good upload in each unit combination', () => {
     expect(res.body.curve.name).toBe('CCD-QE rev B.csv');
   });
 
+  it('reads a UTF-8 file name as sent, and clips a long one without splitting a character', async () => {
+    const accented = await upload('400,0.5\n420,0.6\n', { kind: 'mirror-reflectance' }, fx.owner, 'Réflectance Ag µm.csv').expect(201);
+    expect(accented.body.curve.name).toBe('Réflectance Ag µm.csv');
+    // 119 letters and then 🔭 (two UTF-16 units): cut at 120 units, the pair's first half would be left alone.
+    const long = `${'a'.repeat(119)}🔭.csv`;
+    const res = await upload('400,0.5\n430,0.6\n', { kind: 'mirror-reflectance' }, fx.owner, long).expect(201);
+    expect(res.body.curve.name).toBe('a'.repeat(119));
+    expect(res.body.curve.fileName).toBe(long);
+    expect(designCurveSchema.safeParse(res.body.curve.designCurve).success).toBe(true);
+  });
+
   it('reads a line list of one column (intensity 1) and of three (intensity and label)', async () => {
     const one = await upload('253.652\n404.656\n435.833\n', { kind: 'line-list' }).expect(201);
     expect(one.body.curve.designCurve.values).toEqual([1, 1, 1]);
