@@ -268,6 +268,13 @@ describe('bad forms: 400 naming the field, nothing stored', () => {
     expect(res.body.error.code).toBe('malformed_body');
   });
 
+  it('a multipart content type without a boundary, and a CSV sent as the whole body', async () => {
+    const noBoundary = await fx.owner.agent.post('/api/curves/preview').set('content-type', 'multipart/form-data').send('500,0.5\n600,0.6\n').expect(400);
+    expect(noBoundary.body.error.code).toBe('malformed_body');
+    const raw = await fx.owner.agent.post('/api/curves/preview').set('content-type', 'text/csv').send('500,0.5\n600,0.6\n').expect(400);
+    expect(raw.body.error.fields.file).toBe('must be sent as a multipart/form-data part named file');
+  });
+
   it('stored none of the above', async () => {
     const names = (await fx.ctx.database.db.select({ name: teamCurves.name }).from(teamCurves)).map((r) => r.name);
     expect(names).not.toContain('a\u0000b');
