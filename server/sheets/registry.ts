@@ -1,8 +1,10 @@
+import { calibrationLinesSection } from './sections/calibration-lines';
 import { cautionsSection } from './sections/cautions';
 import { compareFiguresSection } from './sections/compare-figures';
 import { compareParametersSection } from './sections/compare-parameters';
 import { compareSketchSection } from './sections/compare-sketch';
 import { compareTitleSection } from './sections/compare-title';
+import { lightBudgetSection } from './sections/light-budget';
 import { notesSection } from './sections/notes';
 import { orderSortingSection } from './sections/order-sorting';
 import { parametersSection } from './sections/parameters';
@@ -31,6 +33,8 @@ export const sheetSections: readonly SheetSection[] = [
   requirementsSection,
   tradeStudySection,
   warningsSection,
+  lightBudgetSection,
+  calibrationLinesSection,
   notesSection,
   reviewSection,
   cautionsSection,
