@@ -49,12 +49,12 @@ const FILL_STATE_WORDS: Readonly<Record<FillState, string>> = {
   'assumed-matched': 'Taken as matched: no input cone is given, so the whole grating is taken as lit and none of the cone as lost.',
 };
 
-/** The fill at the range centre as key–value rows. */
-export function fillRows(fill: InputFill): [string, string][] {
+/** The fill at the range centre as key–value rows; the core's share only for a fibre, the only input it applies to. */
+export function fillRows(fill: InputFill, input: Design['input']): [string, string][] {
   return [
     ['Input cone', fill.inputFNumber === null ? 'not given' : `f/${formatNumber(fill.inputFNumber, 3)}`],
     ['Share of the cone on the grating', percent(fill.pupilFraction)],
-    ['Share of a fibre core through the slit', percent(fill.slitFraction)],
+    ...(input?.kind === 'fibre' ? [['Share of the fibre core through the slit', percent(fill.slitFraction)] as [string, string]] : []),
     ['Share of the grating width lit', percent(fill.litWidthFraction)],
     ['Grooves lit', formatInteger(Math.round(fill.litGrooves))],
     ['Resolving power they allow (|m| N)', formatInteger(Math.round(fill.litResolvingPower))],
@@ -179,7 +179,7 @@ export const lightBudgetSection: SheetSection = {
     writer.subheading('Fill at the range centre');
     if (light.fill) {
       writer.paragraph(FILL_STATE_WORDS[light.fill.state], { font: 'semibold', color: light.fill.state === 'matched' || light.fill.state === 'assumed-matched' ? sheetColors.ok : sheetColors.warning });
-      writer.keyValues(fillRows(light.fill));
+      writer.keyValues(fillRows(light.fill, params.input));
     } else {
       writer.paragraph('Not known: the mount cannot reach the range centre.', { color: sheetColors.muted });
     }
