@@ -54,7 +54,7 @@ export function fillRows(fill: InputFill, input: Design['input']): [string, stri
   return [
     ['Input cone', fill.inputFNumber === null ? 'not given' : `f/${formatNumber(fill.inputFNumber, 3)}`],
     ['Share of the cone on the grating', percent(fill.pupilFraction)],
-    ...(input?.kind === 'fibre' ? [['Share of the fibre core through the slit', percent(fill.slitFraction)] as [string, string]] : []),
+    ...(input?.kind === 'fibre' ? [['Fibre core through the slit', percent(fill.slitFraction)] as [string, string]] : []),
     ['Share of the grating width lit', percent(fill.litWidthFraction)],
     ['Grooves lit', formatInteger(Math.round(fill.litGrooves))],
     ['Resolving power they allow (|m| N)', formatInteger(Math.round(fill.litResolvingPower))],

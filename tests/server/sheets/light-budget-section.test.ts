@@ -117,7 +117,7 @@ describe('the design sheet’s Light budget section', () => {
     // The whole grating lit: 1200/mm × 50 mm = 60 000 grooves, R = |m| N = 60 000 (Palmer & Loewen, ch. 2).
     expect(lines).toContain('Grooves lit 60 000');
     expect(lines).toContain('Resolving power they allow (|m| N) 60 000');
-    expect(lines.some((line) => line.startsWith('Share of the fibre core'))).toBe(false);
+    expect(lines.some((line) => line.startsWith('Fibre core'))).toBe(false);
     // The scalar blaze estimate is always there, labelled as such.
     expect(lineStarting(lines, 'Grating efficiency ')).toMatch(/^Grating efficiency scalar estimate \(blaze envelope\) /);
     expect(lines).toContain('Collimator reflectance not counted — — —');
@@ -128,7 +128,7 @@ describe('the design sheet’s Light budget section', () => {
     expect(lines).toContain('Light input Fibre: numerical aperture 0.22, core diameter 200 µm');
     expect(lines.some((line) => line.startsWith('Over-filled: less than 95 % of the input cone lands on the grating'))).toBe(true);
     expectPrinted(lineStarting(lines, 'Share of the cone on the grating ').replace('Share of the cone on the grating ', ''), shareOnGrating * 100);
-    expectPrinted(lineStarting(lines, 'Share of the fibre core through the slit ').replace('Share of the fibre core through the slit ', ''), coreThroughSlit * 100);
+    expectPrinted(lineStarting(lines, 'Fibre core through the slit ').replace('Fibre core through the slit ', ''), coreThroughSlit * 100);
     expect(lines).toContain('Share of the grating width lit 100 %');
     expect(lineStarting(lines, 'Input coupling ')).toMatch(/^Input coupling model \(input geometry\) /);
   });
