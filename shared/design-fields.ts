@@ -1,6 +1,8 @@
 import { z } from 'zod';
+import { CURVE_KIND_WORDS, type CurveKind, type DesignCurve } from './curves';
 import { designSchema, type Design, type LayoutKind } from './design';
 import type { OrderSortingFilter } from './filters';
+import type { InputKind, LightInput } from './light-input';
 import { describeRequirementPath } from './requirements';
 
 /**
@@ -445,8 +447,116 @@ export function describeFilterPath(path: string): string | null {
   return `${head}: ${words.short}${words.unitLabel ? ` (${words.unitLabel})` : ''}`;
 }
 
+/** Every field any light input may carry (shared/light-input.ts), across its kinds. */
+type LightInputKey = { [K in InputKind]: keyof Extract<LightInput, { kind: K }> }[InputKind];
+
+/** The light input's heading, as its card and the compare and conflict tables show it. */
+export const INPUT_TITLE = 'Light input';
+
+/**
+ * Words for the light input's fields: the card's labels and the compare and conflict tables'
+ * names ("Light input: numerical aperture"). Keyed by the input's type, so a new field needs words.
+ */
+export const inputFieldWords: Readonly<Record<LightInputKey, { label: string; short: string; unitLabel: string }>> = {
+  kind: { label: 'Light input', short: 'kind', unitLabel: '' },
+  fNumber: { label: 'Input f-number', short: 'f-number', unitLabel: '' },
+  numericalAperture: { label: 'Numerical aperture', short: 'numerical aperture', unitLabel: '' },
+  coreDiameterUm: { label: 'Core diameter', short: 'core diameter', unitLabel: 'µm' },
+};
+
+/** The input kinds by the words their chips carry. */
+export const inputKindLabels: Readonly<Record<InputKind, string>> = {
+  'free-space': 'Free space',
+  fibre: 'Fibre',
+  lens: 'Lens',
+};
+
+/** What a design without an input block reads as wherever its input is shown. */
+export const NO_INPUT_TEXT = 'not given: taken as matched';
+
+/** An `input.…` path's field; null for other paths, `null` key for the block itself. */
+export function inputPathKey(path: string): { key: LightInputKey | null } | null {
+  if (path === 'input') return { key: null };
+  const match = /^input\.([A-Za-z]+)$/.exec(path);
+  if (!match) return null;
+  const key = match[1]!;
+  return { key: key in inputFieldWords ? (key as LightInputKey) : null };
+}
+
+/** `input.numericalAperture` → "Light input: numerical aperture", `input` → "Light input"; null for other paths. */
+export function describeInputPath(path: string): string | null {
+  const parts = inputPathKey(path);
+  if (!parts) return null;
+  if (parts.key === null) return path === 'input' ? INPUT_TITLE : `${INPUT_TITLE}: ${path.slice('input.'.length)}`;
+  const words = inputFieldWords[parts.key];
+  return `${INPUT_TITLE}: ${words.short}${words.unitLabel ? ` (${words.unitLabel})` : ''}`;
+}
+
+/**
+ * A curve's points are one value in diffs, compare tables and rebases (`curves.N.points`): the
+ * wavelengths and values only make sense together, and thousands of numbers are never listed.
+ */
+export const CURVE_POINTS_KEY = 'points';
+
+/** Words for a measured curve's fields (shared/curves.ts), and for its points taken as one. */
+export const curveFieldWords: Readonly<Record<Exclude<keyof DesignCurve, 'wavelengthsNm' | 'values'> | typeof CURVE_POINTS_KEY, { short: string }>> = {
+  kind: { short: 'kind' },
+  name: { short: 'name' },
+  checksum: { short: 'file checksum' },
+  medium: { short: 'medium' },
+  order: { short: 'order' },
+  polarisation: { short: 'polarisation' },
+  mirror: { short: 'mirror' },
+  filterNumber: { short: 'filter' },
+  points: { short: 'points' },
+};
+
+/** The measured curves' heading in tables. */
+export const CURVES_TITLE = 'Measured curves';
+
+const CURVE_PATH = /^curves(?:\.(\d+)(?:\.([A-Za-z]+))?)?$/;
+
+/** A `curves.…` path split into the curve's place (0-based) and field; null for other paths. */
+export function curvePathParts(path: string): { index: number | null; key: string | null } | null {
+  const match = CURVE_PATH.exec(path);
+  if (!match) return null;
+  return { index: match[1] === undefined ? null : Number(match[1]), key: match[2] ?? null };
+}
+
+/** The kind of the curve at `index` in the first of `designs` that has one there. */
+function curveKindAt(index: number, designs: readonly unknown[]): CurveKind | null {
+  for (const design of designs) {
+    const curves = (design as { curves?: unknown } | null | undefined)?.curves;
+    const kind = Array.isArray(curves) ? (curves[index] as { kind?: unknown } | undefined)?.kind : undefined;
+    if (typeof kind === 'string' && kind in CURVE_KIND_WORDS) return kind as CurveKind;
+  }
+  return null;
+}
+
+/**
+ * A curve path as the compare and conflict tables name it, counting curves from 1 as the curve
+ * list does: `curves.1.name` → "Curve 2 (grating efficiency): name" when one of `designs` (the
+ * two sides compared) says what curve 2 is, else "Curve 2: name"; `curves` → "Measured curves";
+ * null for other paths.
+ */
+export function describeCurvePath(path: string, designs: readonly unknown[] = []): string | null {
+  const parts = curvePathParts(path);
+  if (!parts) return null;
+  if (parts.index === null) return CURVES_TITLE;
+  const kind = curveKindAt(parts.index, designs);
+  const head = `Curve ${parts.index + 1}${kind ? ` (${CURVE_KIND_WORDS[kind]})` : ''}`;
+  if (parts.key === null) return head;
+  const words = (curveFieldWords as Record<string, { short: string } | undefined>)[parts.key];
+  return `${head}: ${words?.short ?? parts.key}`;
+}
+
 /** The editor's label for a field path, for "fix <field>" notes; the path itself when unknown. */
 export function fieldLabel(path: string): string {
+  const input = inputPathKey(path);
+  if (input) return input.key === null ? (describeInputPath(path) ?? path) : inputFieldWords[input.key].label;
+  const curve = curvePathParts(path);
+  if (curve && curve.index !== null && curve.key !== null) return describeCurvePath(path)!.replace(':', '');
+  if (curve) return describeCurvePath(path) ?? path;
   const filter = filterPathParts(path);
   if (filter && filter.index !== null && filter.key !== null) {
     return `Filter ${filter.index + 1} ${filterFieldWords[filter.key].short}`;
@@ -470,9 +580,13 @@ export function fieldTableName(key: string): string {
   return field ? tableWords(field) : key;
 }
 
-/** A path as compare and conflict tables name it: `slits.exitWidthUm` → "Slits: exit width (µm)"; a section → "Detector". */
-export function describeDesignPath(path: string): string {
-  const requirement = describeRequirementPath(path) ?? describeFilterPath(path);
+/**
+ * A path as compare and conflict tables name it: `slits.exitWidthUm` → "Slits: exit width (µm)";
+ * a section → "Detector"; `input.numericalAperture` → "Light input: numerical aperture". Given the
+ * designs compared, a curve is named with its kind ("Curve 2 (grating efficiency): name").
+ */
+export function describeDesignPath(path: string, ...designs: unknown[]): string {
+  const requirement = describeRequirementPath(path) ?? describeFilterPath(path) ?? describeInputPath(path) ?? describeCurvePath(path, designs);
   if (requirement !== null) return requirement;
   const [sectionId, key] = path.split('.');
   const section = describedSections.find((s) => s.id === sectionId);

@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { LAYOUT_KINDS, designSchema } from '@/shared/design';
+import { fibreInputSchema, freeSpaceInputSchema, lensInputSchema } from '@/shared/light-input';
 import {
   describeDesignPath,
   describedFields,
+  inputFieldWords,
   describedSections,
   fieldLabel,
   fieldTableName,
@@ -101,5 +103,33 @@ describe('stepper bounds', () => {
       const step = typeof field.step === 'number' ? field.step : 1;
       expect(schema.safeParse(field.max + step).success, `${field.path} past max`).toBe(false);
     }
+  });
+});
+
+describe('the light input and measured curves in tables', () => {
+  it.each([
+    ['input', 'Light input', 'Light input'],
+    ['input.kind', 'Light input: kind', 'Light input'],
+    ['input.numericalAperture', 'Light input: numerical aperture', 'Numerical aperture'],
+    ['input.coreDiameterUm', 'Light input: core diameter (µm)', 'Core diameter'],
+    ['input.fNumber', 'Light input: f-number', 'Input f-number'],
+  ] satisfies [string, string, string][])('names %s in tables and in the editor', (path, table, label) => {
+    expect(describeDesignPath(path)).toBe(table);
+    expect(fieldLabel(path)).toBe(label);
+  });
+
+  it('has words for every field any input kind carries, read from the schemas', () => {
+    const keys = [fibreInputSchema, freeSpaceInputSchema, lensInputSchema].flatMap((schema) => Object.keys(schema.shape));
+    expect(Object.keys(inputFieldWords).sort()).toEqual([...new Set(keys)].sort());
+  });
+
+  it('counts curves from 1 and names one by its kind when the designs compared say what it is', () => {
+    const design = { curves: [{ kind: 'mirror-reflectance' }, { kind: 'grating-efficiency' }] };
+    expect(describeDesignPath('curves.1.name', design)).toBe('Curve 2 (grating efficiency): name');
+    expect(describeDesignPath('curves.1.points', undefined, design)).toBe('Curve 2 (grating efficiency): points');
+    expect(describeDesignPath('curves.1.name')).toBe('Curve 2: name');
+    expect(describeDesignPath('curves.0')).toBe('Curve 1');
+    expect(describeDesignPath('curves')).toBe('Measured curves');
+    expect(fieldLabel('curves.1.filterNumber')).toBe('Curve 2 filter');
   });
 });
