@@ -1,15 +1,22 @@
 import type { Design } from '../../../shared/design';
-import { formatInteger, formatNumber, formatPercent, formatQuantity } from '../../../shared/format';
+import { formatInteger, formatPercent, formatQuantity, withUnit } from '../../../shared/format';
 import { LAMP_ELEMENTS, LAMP_LINES_SOURCE } from '../../../shared/lamp-lines';
 import {
   RESOLUTION_CRITERION,
-  calibrationLineList,
   calibrationReport,
   type CalibrationLine,
   type CalibrationReport,
-  type DetectorLanding,
 } from '../../../features/solver/index';
-import { cautionsFor, type Caution } from '../../../features/safety/cautions';
+import {
+  blockingFilterNumbers,
+  coverageSentences,
+  lineNm,
+  lineSource,
+  placementCell,
+  resolvedPairsSentence,
+} from '../../../features/calibration/calibration-words';
+import { designCalibrationLines, designLineListNames } from '../../../features/calibration/design-lines';
+import { cautionClosingLine, mercuryLampCautions } from '../../../features/calibration/lamp-caution';
 import type { SheetContext } from '../context';
 import type { SheetSection } from '../section';
 import { sheetColors, textSize, type TableColumn, type TableRow } from '../writer';
@@ -20,17 +27,16 @@ import { sheetColors, textSize, type TableColumn, type TableRow } from '../write
  * neighbouring pairs it cannot separate; lines that reach the range through another order
  * (ghosts), blocked by its filters or not; how well the lines cover the detector and how closely
  * a cubic follows its dispersion. Printed for a design whose range holds a line or a ghost of one.
+ * The words are the calibration card's (features/calibration), so screen and paper agree; the
+ * sheet checks every built-in lamp, since a design does not store which lamps the bench has.
  */
 
 /** Rows a table prints before "… and N more": the sheet is for reading, the app lists them all. */
 export const MAX_SHEET_ROWS = 30;
 
-/** Every line the design is checked against: the built-in lamps and each line-list curve, in air. */
+/** Every line the design is checked against: all five built-in lamps and its own line lists, in air. */
 export function designLines(params: Design): CalibrationLine[] {
-  const user = (params.curves ?? [])
-    .filter((curve) => curve.kind === 'line-list')
-    .flatMap((curve) => calibrationLineList([], curve.wavelengthsNm.map((wavelengthNm) => ({ wavelengthNm, label: curve.name })), curve.medium));
-  return [...calibrationLineList(LAMP_ELEMENTS), ...user].sort((a, b) => a.wavelengthNm - b.wavelengthNm);
+  return designCalibrationLines(params, LAMP_ELEMENTS);
 }
 
 /** The design's report, against `designLines`. */
@@ -44,28 +50,8 @@ export function calibrationApplies(sheet: Pick<SheetContext, 'params'>): boolean
   return report.linesInRangeCount > 0 || report.ghostCount > 0;
 }
 
-/** "Hg", or the user's list by name ("line list “Lab Ne lamp”"). */
-export function lineSource(line: CalibrationLine): string {
-  if (line.element) return line.element;
-  return line.label ? `list “${line.label}”` : 'own list';
-}
-
-/** An air wavelength as given (built-in values carry at most seven figures, never padded). */
-const airNm = (nm: number) => formatQuantity(nm, 'nm', 7);
-
-const PLACEMENT_WORDS: Readonly<Record<DetectorLanding['placement'], string>> = {
-  'on-detector': '',
-  'short-of-detector': 'short of the detector',
-  'past-detector': 'past the detector',
-  'misses-camera': 'misses the camera',
-};
-
-/** "512.3", or where the light goes instead. */
-export function pixelText(landing: DetectorLanding | null): string {
-  if (!landing) return '—';
-  if (landing.placement === 'on-detector') return formatNumber(landing.pixel, 5);
-  return PLACEMENT_WORDS[landing.placement];
-}
+/** A line's wavelength as its list gives it (the card's `lineNm`: up to seven figures, never padded), with its unit. */
+const airNm = (nm: number) => withUnit(lineNm(nm), 'nm');
 
 /** "… and 12 more." when a list is cut; null when it is not. */
 export function moreText(listed: number, total: number, what: string): string | null {
@@ -90,7 +76,7 @@ export function lineRows(report: CalibrationReport, hasDetector: boolean): Table
       lineSource(line),
       airNm(line.wavelengthNm),
       bandpassNm === null ? (reason ?? 'out of reach') : formatQuantity(bandpassNm, 'nm'),
-      ...(hasDetector ? [pixelText(detector)] : []),
+      ...(hasDetector ? [placementCell(detector, report.coverage?.pixelCount ?? null)] : []),
       line.vacuumWavelengthNm === null ? (line.strength ?? '') : `${airNm(line.vacuumWavelengthNm)} in vacuum`,
     ],
   }));
@@ -119,16 +105,9 @@ export function unresolvedPairRows(report: CalibrationReport): TableRow[] {
     }));
 }
 
-/** "12 neighbouring pairs: 10 resolved, 2 not." */
+/** "46 of 47 neighbouring pairs are resolved.", in the card's words. */
 export function pairsText(report: CalibrationReport): string {
-  if (report.pairCount === 0) return 'Neighbouring pairs: none (fewer than two lines in the range).';
-  const unknown = report.pairs.filter((pair) => pair.resolved === null).length;
-  const resolved = report.pairCount - report.unresolvedPairCount - unknown;
-  return (
-    `${formatInteger(report.pairCount)} neighbouring ${report.pairCount === 1 ? 'pair' : 'pairs'}: ` +
-    `${formatInteger(resolved)} resolved, ${formatInteger(report.unresolvedPairCount)} not` +
-    `${unknown > 0 ? `, ${formatInteger(unknown)} out of reach` : ''}.`
-  );
+  return resolvedPairsSentence(report.pairCount, report.unresolvedPairCount);
 }
 
 const GHOST_COLUMNS: readonly TableColumn[] = [
@@ -138,57 +117,32 @@ const GHOST_COLUMNS: readonly TableColumn[] = [
   { header: 'Filters', width: 0.38 },
 ];
 
-export function ghostRows(report: CalibrationReport): TableRow[] {
+/** "blocked by filter 1", "not blocked (40 % passed)", or that the mount cannot reach the setting. */
+function ghostFilterCell(ghost: CalibrationReport['ghosts'][number], params: Design): string {
+  if (!ghost.reachable) return 'setting out of reach';
+  if (ghost.blocked) {
+    const numbers = blockingFilterNumbers(params.filters ?? [], ghost.apparentWavelengthNm, ghost.line.wavelengthNm);
+    return numbers.length === 0 ? 'blocked' : `blocked by filter${numbers.length === 1 ? '' : 's'} ${numbers.join(', ')}`;
+  }
+  return `not blocked${ghost.filterTransmission < 1 ? ` (${formatPercent(ghost.filterTransmission)} passed)` : ''}`;
+}
+
+export function ghostRows(report: CalibrationReport, params: Design): TableRow[] {
   return report.ghosts.slice(0, MAX_SHEET_ROWS).map((ghost) => ({
     cells: [
       `${lineSource(ghost.line)} ${airNm(ghost.line.wavelengthNm)}`,
       formatInteger(ghost.order),
-      formatQuantity(ghost.apparentWavelengthNm, 'nm', 6),
-      !ghost.reachable
-        ? 'setting out of reach'
-        : ghost.blocked
-          ? 'blocked'
-          : `not blocked${ghost.filterTransmission < 1 ? ` (${formatPercent(ghost.filterTransmission)} passed)` : ''}`,
+      formatQuantity(ghost.apparentWavelengthNm, 'nm', 7),
+      ghostFilterCell(ghost, params),
     ],
     marked: ghost.reachable && !ghost.blocked,
   }));
 }
 
-/** The coverage sentence and the cubic's residual, in words. */
+/** The coverage and the cubic's residual in the card's sentences; a design without a detector says so. */
 export function coverageText(report: CalibrationReport): string[] {
-  const coverage = report.coverage;
-  if (!coverage) return ['Detector coverage: no detector in the design (a scanning monochromator), or the range centre is out of reach.'];
-  const lines: string[] = [];
-  lines.push(
-    coverage.linesOnDetector === 0
-      ? `No line lands on the ${formatInteger(coverage.pixelCount)}-pixel detector.`
-      : `${formatInteger(coverage.linesOnDetector)} ${coverage.linesOnDetector === 1 ? 'line lands' : 'lines land'} on the ` +
-          `${formatInteger(coverage.pixelCount)}-pixel detector, spanning pixels ${formatNumber(coverage.firstLinePixel, 5)} to ` +
-          `${formatNumber(coverage.lastLinePixel, 5)} (${formatPercent(coverage.spanFraction)} of its length).`,
-  );
-  if (coverage.fit) {
-    const fit = coverage.fit;
-    lines.push(
-      `A cubic fitted to the design’s own dispersion across the detector leaves at most ${formatQuantity(fit.maxResidualNm, 'nm', 3)} ` +
-        `(rms ${formatQuantity(fit.rmsResidualNm, 'nm', 3)}): ${formatNumber(fit.maxResidualPerBandpass, 3)} of the bandpass and ` +
-        `${formatNumber(fit.maxResidualPerPixel, 3)} of a pixel.`,
-    );
-  }
-  if (coverage.note) lines.push(`${coverage.note.charAt(0).toUpperCase()}${coverage.note.slice(1)}.`);
-  return lines;
-}
-
-/**
- * The cautions of features/safety/cautions.ts a mercury lamp on the bench calls for: its UV-C,
- * its high-voltage supply and a broken lamp. `cautionsFor` decides by the design's range, but a
- * mercury lamp gives off 253.65 nm whatever range it calibrates, so it is asked about a range that
- * holds the lamp's lines (250–600 nm) and its words are printed as they are.
- */
-export function mercuryLampCautions(params: Design): Caution[] {
-  const lampRange: Design = { ...params, range: { startNm: 250, endNm: 600 } };
-  delete lampRange.source;
-  const wanted: readonly Caution['id'][] = ['deep-uv', 'lamp-high-voltage', 'mercury-breakage'];
-  return cautionsFor(lampRange).filter((caution) => wanted.includes(caution.id));
+  if (!report.coverage) return ['Detector coverage: no detector in the design (a scanning monochromator), or the range centre is out of reach.'];
+  return coverageSentences(report.coverage);
 }
 
 export const calibrationLinesSection: SheetSection & Required<Pick<SheetSection, 'appliesTo'>> = {
@@ -202,9 +156,12 @@ export const calibrationLinesSection: SheetSection & Required<Pick<SheetSection,
     const size = textSize.small;
     writer.sectionHeading(this.title, 100);
     const lists = (params.curves ?? []).filter((curve) => curve.kind === 'line-list');
+    const listNames = designLineListNames(params);
     writer.paragraph(
-      `Lamp lines of Hg, Ne, Ar, Kr and Na in air (${LAMP_LINES_SOURCE})` +
-        (lists.length > 0 ? `, and the design’s own ${lists.length === 1 ? 'list' : 'lists'} ${lists.map((c) => `“${c.name}” (${c.medium === 'vacuum' ? 'converted from vacuum' : 'air'})`).join(', ')}` : '') +
+      `Lamp lines of ${LAMP_ELEMENTS.join(', ')} in air (${LAMP_LINES_SOURCE})` +
+        (lists.length > 0
+          ? `, and the design’s own ${lists.length === 1 ? 'list' : 'lists'} ${lists.map((c, i) => `“${listNames[i]}” (${c.medium === 'vacuum' ? 'converted from vacuum' : 'air'})`).join(', ')}`
+          : '') +
         `. Pixels with the grating fixed at the range centre; bandpass as a monochromator.`,
       { size, color: sheetColors.muted },
     );
@@ -228,7 +185,7 @@ export const calibrationLinesSection: SheetSection & Required<Pick<SheetSection,
 
     writer.subheading(`Ghosts through other orders: ${formatInteger(report.ghostCount)}`);
     if (report.ghostCount > 0) {
-      writer.table(GHOST_COLUMNS, ghostRows(report), { size });
+      writer.table(GHOST_COLUMNS, ghostRows(report, params), { size });
       const more = moreText(Math.min(MAX_SHEET_ROWS, report.ghosts.length), report.ghostCount, 'ghosts');
       if (more) writer.paragraph(more, { size, color: sheetColors.muted });
       writer.paragraph(
@@ -245,15 +202,13 @@ export const calibrationLinesSection: SheetSection & Required<Pick<SheetSection,
 
     if (report.linesInRange.some(({ line }) => line.element === 'Hg')) {
       writer.subheading('Mercury lamp');
-      const cautions = mercuryLampCautions(params);
-      for (const caution of cautions) {
+      for (const caution of mercuryLampCautions(params)) {
         writer.ensureSpace(30);
         writer.paragraph(caution.title, { font: 'semibold', gapAfter: 1 });
         writer.paragraph(caution.text, { size });
       }
       writer.paragraph('Listed because mercury lines are used here: a mercury lamp gives off 253.65 nm (UV-C) whatever range it calibrates.', { size, font: 'semibold' });
-      const closing = cautions[0]?.closing;
-      if (closing) writer.paragraph(closing, { size, color: sheetColors.muted });
+      writer.paragraph(cautionClosingLine, { size, color: sheetColors.muted });
     }
   },
 };
