@@ -6,8 +6,9 @@
  */
 
 import { detectorFrame, detectorLanding, type CalibrationLine } from '../solver/calibration-lines';
+import { wavelengthAtDetectorNm } from '../solver/detector';
 import type { Design } from '../../shared/design';
-import { formatInteger, withUnit } from '../../shared/format';
+import { formatInteger, formatNumber, withUnit } from '../../shared/format';
 import { lineName, lineNm, lineSource, pixelText } from './calibration-words';
 
 export interface StripTick {
@@ -18,6 +19,9 @@ export interface StripTick {
 
 export interface DetectorStrip {
   pixelCount: number;
+  /** Wavelength at the centre of the first and the last pixel, nm; null past grazing. */
+  firstPixelNm: number | null;
+  lastPixelNm: number | null;
   /** On the detector, in pixel order. */
   ticks: StripTick[];
   /** Lines in the design range that fall short of the first pixel, or past the last. */
@@ -35,7 +39,16 @@ export function detectorStrip(design: Design, lines: readonly CalibrationLine[])
   const frame = detectorFrame(design);
   if (!frame) return null;
   const { startNm, endNm } = design.range;
-  const strip: DetectorStrip = { pixelCount: frame.pixelCount, ticks: [], shortOf: [], pastEnd: [], missing: [] };
+  const edgeMm = ((frame.pixelCount - 1) / 2) * frame.pitchMm;
+  const strip: DetectorStrip = {
+    pixelCount: frame.pixelCount,
+    firstPixelNm: wavelengthAtDetectorNm(frame.geometry, -edgeMm),
+    lastPixelNm: wavelengthAtDetectorNm(frame.geometry, edgeMm),
+    ticks: [],
+    shortOf: [],
+    pastEnd: [],
+    missing: [],
+  };
   for (const line of lines) {
     if (!(Number.isFinite(line.wavelengthNm) && line.wavelengthNm > 0)) continue;
     const landing = detectorLanding(frame, line.wavelengthNm);
@@ -103,7 +116,11 @@ export function offDetectorSentence(strip: DetectorStrip): string | null {
 /** The strip's accessible name: how many lines land, where, and what misses. */
 export function stripSummary(strip: DetectorStrip): string {
   const last = formatInteger(strip.pixelCount - 1);
-  const head = `Detector strip, pixels 0 to ${last}: `;
+  const ends =
+    strip.firstPixelNm !== null && strip.lastPixelNm !== null
+      ? ` (${withUnit(`${formatNumber(strip.firstPixelNm, 5)}–${formatNumber(strip.lastPixelNm, 5)}`, 'nm')})`
+      : '';
+  const head = `Detector strip, pixels 0 to ${last}${ends}: `;
   const first = strip.ticks[0];
   const final = strip.ticks[strip.ticks.length - 1];
   let body: string;

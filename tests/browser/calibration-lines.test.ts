@@ -6,9 +6,20 @@ import { exampleDesign, type Design } from '../../shared/design';
 import { expectAccessible } from '../support/axe';
 import { artifactsDir, liveServerAndBrowser, screenshot, viewports, watchConsole } from '../support/browser';
 
-/** One part of the screen, saved on its own: the phone's scroll view keeps most of the page out of a full shot. */
-const shootPart = (page: Page, testID: string, name: string) =>
-  page.getByTestId(testID).screenshot({ path: path.join(artifactsDir, `${name}.png`) });
+/**
+ * One part of the screen, saved on its own. The card is taller than the screen and sits in a
+ * scroll view, whose element shots come out blank past the window: the window is made as tall as
+ * the part for the shot (same width, so the same layout), then put back.
+ */
+async function shootPart(page: Page, testID: string, name: string): Promise<void> {
+  const size = page.viewportSize()!;
+  const part = page.getByTestId(testID);
+  const box = (await part.boundingBox())!;
+  await page.setViewportSize({ width: size.width, height: Math.max(size.height, Math.ceil(box.height) + 200) });
+  await part.scrollIntoViewIfNeeded();
+  await part.screenshot({ path: path.join(artifactsDir, `${name}.png`) });
+  await page.setViewportSize(size);
+}
 
 /** Waits for a condition on a loaded machine (expect.poll's 1 s default is short). */
 const eventually = <T>(read: () => Promise<T>) => expect.poll(read, { timeout: 15_000 });
@@ -29,7 +40,8 @@ async function expectStripMatchesCoverage(page: Page): Promise<number> {
   const stated = await statedOnDetector(page);
   expect(await page.getByTestId('calibration-strip-tick').count()).toBe(stated);
   const summary = plain(await page.getByTestId('calibration-strip-drawing').getAttribute('aria-label'));
-  expect(summary).toMatch(new RegExp(`^Detector strip, pixels 0 to 1,?023: ${stated} lamp lines`));
+  // The detector's ends by hand: 564.68 and 635.14 nm (tests/features/calibration/detector-strip.test.ts).
+  expect(summary).toMatch(new RegExp(`^Detector strip, pixels 0 to 1,?023 \\(564\\.68–635\\.14 nm\\): ${stated} lamp lines`));
   return stated;
 }
 

@@ -71,7 +71,7 @@ function LineTable({ report, pixelCount, width }: { report: CalibrationReport; p
     <View style={styles.section}>
       <View role="table" aria-label="Lamp lines in the range" testID="calibration-line-table">
         <View role="row" style={[styles.tableRow, styles.headRow]}>
-          {['Lamp', 'Air, nm', 'Bandpass, nm', 'Pixel'].map((head, i) => (
+          {['Lamp', 'Air (nm)', 'Bandpass (nm)', 'Pixel'].map((head, i) => (
             <Text key={head} role="columnheader" variant="caption" weight="semibold" tone="muted" style={[styles.cellPad, { width: cols[i] }]}>
               {head}
             </Text>

@@ -3,7 +3,7 @@ import { memo, useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 import Svg, { G, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { Text, colors, fonts, space } from '@/features/ui';
-import { formatInteger } from '@/shared/format';
+import { formatInteger, formatNumber } from '@/shared/format';
 import { lineSource } from '../calibration-words';
 import { offDetectorSentence, placeStripLabels, stripSummary, type DetectorStrip } from '../detector-strip';
 
@@ -11,6 +11,8 @@ const LABEL_PX = 11;
 /** Inter at 11 px: about 0.62 em a character for element symbols and short names (measured by eye on the screenshots). */
 const CHAR_PX = LABEL_PX * 0.62;
 const LABEL_ROWS = 3;
+/** Room between labels in a row: at 3 px two neighbours read as one word ("Ne Ne"). */
+const LABEL_GAP_PX = 6;
 const ROW_PX = 14;
 const BAR_TOP = LABEL_ROWS * ROW_PX + 6;
 const BAR_PX = 18;
@@ -34,7 +36,7 @@ export const DetectorStripFigure = memo(function DetectorStripFigure({ strip, wi
       .range([1, width - 1]);
     const xs = strip.ticks.map((t) => x(t.pixel));
     const texts = strip.ticks.map((t) => shortLabel(lineSource(t.line)));
-    const places = placeStripLabels(xs, texts.map((t) => t.length * CHAR_PX), width, LABEL_ROWS);
+    const places = placeStripLabels(xs, texts.map((t) => t.length * CHAR_PX), width, LABEL_ROWS, LABEL_GAP_PX);
     return { x, xs, texts, places };
   }, [strip, width]);
   const summary = useMemo(() => stripSummary(strip), [strip]);
@@ -75,10 +77,10 @@ export const DetectorStripFigure = memo(function DetectorStripFigure({ strip, wi
             );
           })}
           <SvgText x={1} y={HEIGHT - 4} fontSize={LABEL_PX} fontFamily={fonts.mono} fill={colors.inkMuted}>
-            pixel 0
+            {strip.firstPixelNm === null ? 'pixel 0' : `pixel 0 · ${formatNumber(strip.firstPixelNm, 5)} nm`}
           </SvgText>
           <SvgText x={width - 1} y={HEIGHT - 4} fontSize={LABEL_PX} fontFamily={fonts.mono} fill={colors.inkMuted} textAnchor="end">
-            {`pixel ${formatInteger(strip.pixelCount - 1)}`}
+            {`pixel ${formatInteger(strip.pixelCount - 1)}${strip.lastPixelNm === null ? '' : ` · ${formatNumber(strip.lastPixelNm, 5)} nm`}`}
           </SvgText>
         </Svg>
       </View>

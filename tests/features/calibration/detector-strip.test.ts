@@ -33,7 +33,13 @@ describe('the detector strip', () => {
 
   it('says in words how many lines land and where', () => {
     const summary = plain(stripSummary(strip));
-    expect(summary).toMatch(new RegExp(`^Detector strip, pixels 0 to 1,?023: ${strip.ticks.length} lamp lines \\(Hg, Ne\\) land on it`));
+    // Pixel 0's centre is 511.5 × 25 µm = 12.7875 mm short of the centre: β = β_c − atan(12.7875/300),
+    // λ = d(sin α + sin β) = 564.68 nm by hand; the last pixel 635.14 nm (Palmer & Loewen ch. 2).
+    expect(strip.firstPixelNm).toBeCloseTo(564.68, 1);
+    expect(strip.lastPixelNm).toBeCloseTo(635.14, 1);
+    expect(summary).toMatch(
+      new RegExp(`^Detector strip, pixels 0 to 1,?023 \\(564\\.68–635\\.14 nm\\): ${strip.ticks.length} lamp lines \\(Hg, Ne\\) land on it`),
+    );
     expect(summary).toMatch(/from Hg 576\.9598 nm at pixel 177\.7 to Ne 633\.4428 nm at pixel 998\.2\./);
   });
 
