@@ -5,12 +5,11 @@ import {
   OVERFILL_BELOW,
   UNDERFILL_BELOW,
   evaluateDesign,
-  type FactorBasis,
   type FillState,
   type InputFill,
   type LightBudget,
-  type ThroughputFactor,
 } from '../../../features/solver/index';
+import { basisText } from '../../../features/light-budget/light-budget-words';
 import { colors } from '../../../features/ui/theme';
 import type { SheetContext } from '../context';
 import { drawLinePlot, linePlotHeight, type PdfPlot } from '../plot-pdf';
@@ -22,7 +21,8 @@ import { sheetColors, textSize, type TableColumn, type TableRow } from '../write
  * instrument's acceptance, how the input fills the grating at the range centre) and what each
  * element passes of it (the solver's throughput factors, their basis, and their product at the
  * start, centre and end of the range, with the lowest over the sweep). Every design gets it: the
- * scalar blaze estimate is always there, so the section never has nothing to say.
+ * scalar blaze estimate is always there, so the section never has nothing to say. A factor's
+ * basis is worded as the workbench's light budget card words it (features/light-budget).
  */
 
 const percent = (fraction: number | null | undefined) => formatPercent(fraction, { maximumFractionDigits: 1 });
@@ -59,17 +59,6 @@ export function fillRows(fill: InputFill, input: Design['input']): [string, stri
     ['Grooves lit', formatInteger(Math.round(fill.litGrooves))],
     ['Resolving power they allow (|m| N)', formatInteger(Math.round(fill.litResolvingPower))],
   ];
-}
-
-/** A factor's basis in words, with the names of the curves it reads. */
-export function basisText(factor: ThroughputFactor): string {
-  const words: Readonly<Record<FactorBasis, string>> = {
-    measured: `measured: ${factor.curveNames.map((name) => `“${name}”`).join(', ')}`,
-    estimate: 'scalar estimate (blaze envelope)',
-    model: factor.id === 'input' ? 'model (input geometry)' : 'model (filter edges)',
-    'not-counted': 'not counted',
-  };
-  return words[factor.basis];
 }
 
 /** Start, centre and end of the range: the three places the table reads each factor at. */
