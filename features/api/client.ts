@@ -56,14 +56,21 @@ export function routeKey<R extends Route>(route: R, input?: RouteInput<R>): read
  * server fails loudly here instead of deep in a screen. A 204 answers `undefined`.
  */
 export async function call<R extends Route>(route: R, input: RouteInput<R>, options: { signal?: AbortSignal } = {}): Promise<RouteAnswer<R>> {
-  const { method, status, output } = describe(route);
+  const { method, status, output, meta } = describe(route);
+  const upload = meta.upload;
   const parts = input as PartValues;
   const url = urlFor(route, parts);
+  // An upload route takes its body as a multipart form (the file a Blob); the browser sets the
+  // content type with its boundary. Every other body is JSON.
+  const form = upload && parts.body !== undefined ? multipart(parts.body as Record<string, unknown>) : null;
   const response = await fetch(url, {
     method,
     credentials: 'same-origin',
-    headers: parts.body === undefined ? { accept: 'application/json' } : { accept: 'application/json', 'content-type': 'application/json' },
-    body: parts.body === undefined ? undefined : JSON.stringify(parts.body),
+    headers:
+      parts.body === undefined || form
+        ? { accept: 'application/json' }
+        : { accept: 'application/json', 'content-type': 'application/json' },
+    body: form ?? (parts.body === undefined ? undefined : JSON.stringify(parts.body)),
     signal: options.signal,
   });
   const payload: unknown = response.status === 204 ? undefined : await response.json().catch(() => null);
@@ -74,6 +81,17 @@ export async function call<R extends Route>(route: R, input: RouteInput<R>, opti
     throw new ApiError(response.status, 'bad_response', `The server's answer to ${routeName(route)} did not match what this app expects.`);
   }
   return parsed.data as RouteAnswer<R>;
+}
+
+/** A form of text fields and Blobs (files keep their names); undefined fields are left out. */
+function multipart(fields: Record<string, unknown>): FormData {
+  const form = new FormData();
+  for (const [key, value] of Object.entries(fields)) {
+    if (value === undefined || value === null) continue;
+    if (value instanceof Blob) form.append(key, value, value instanceof File ? value.name : key);
+    else form.append(key, String(value));
+  }
+  return form;
 }
 
 /** The error an answer that is not ok carries: the server's error shape, or a plain one. */

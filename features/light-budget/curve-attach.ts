@@ -48,20 +48,31 @@ export function designCurveFrom(
   checksum: string,
   role: CurveRole,
 ): { ok: true; curve: DesignCurve } | { ok: false; fields: FieldErrors } {
-  const candidate: Record<string, unknown> = {
-    kind: parsed.kind,
-    name: name.trim(),
-    checksum,
-    medium: parsed.applied.medium.value,
-    wavelengthsNm: parsed.wavelengthsNm,
-    values: parsed.values,
-  };
-  if (parsed.kind === 'grating-efficiency') {
+  return designCurveWithRole(
+    {
+      kind: parsed.kind,
+      name: name.trim(),
+      checksum,
+      medium: parsed.applied.medium.value,
+      wavelengthsNm: parsed.wavelengthsNm,
+      values: parsed.values,
+    },
+    role,
+  );
+}
+
+/** A library curve's points (or a parsed file's) with the role fields its kind takes, checked by the schema. */
+export function designCurveWithRole(
+  base: Pick<DesignCurve, 'kind' | 'name' | 'checksum' | 'medium' | 'wavelengthsNm' | 'values'>,
+  role: CurveRole,
+): { ok: true; curve: DesignCurve } | { ok: false; fields: FieldErrors } {
+  const candidate: Record<string, unknown> = { ...base };
+  if (base.kind === 'grating-efficiency') {
     if (role.order !== undefined) candidate.order = role.order;
     if (role.polarisation !== undefined && role.polarisation !== 'unpolarised') candidate.polarisation = role.polarisation;
   }
-  if (parsed.kind === 'mirror-reflectance' && role.mirror !== undefined && role.mirror !== 'both') candidate.mirror = role.mirror;
-  if (parsed.kind === 'filter-transmission' && role.filterNumber !== undefined) candidate.filterNumber = role.filterNumber;
+  if (base.kind === 'mirror-reflectance' && role.mirror !== undefined && role.mirror !== 'both') candidate.mirror = role.mirror;
+  if (base.kind === 'filter-transmission' && role.filterNumber !== undefined) candidate.filterNumber = role.filterNumber;
   const checked = designCurveSchema.safeParse(candidate);
   return checked.success ? { ok: true, curve: checked.data } : { ok: false, fields: fieldErrors(checked.error) };
 }

@@ -1,1 +1,2 @@
 export { LightBudgetCard, type LightBudgetCardProps } from './components/light-budget-card';
+export type { CurveLibrary } from './components/curve-upload-panel';

@@ -24,11 +24,15 @@ import {
 } from '@/shared/curves';
 import type { Design } from '@/shared/design';
 import { formatNumber } from '@/shared/format';
-import { baseName, designCurveFrom, sha256Hex } from '../curve-attach';
+import { ApiError } from '@/features/api';
+import { baseName, designCurveFrom, designCurveWithRole, sha256Hex, type CurveRole } from '../curve-attach';
+import { curveLine } from '../light-budget-words';
+import { fetchTeamCurve, useTeamCurvesQuery, useUploadTeamCurve } from '../queries';
 
 type Picked = { name: string; bytes: Uint8Array };
 
-const KIND_OPTIONS = CURVE_KINDS.map((kind) => ({ value: kind, label: CURVE_KIND_WORDS[kind].replace(/ \(.*\)$/, '') }));
+const capital = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+const KIND_OPTIONS = CURVE_KINDS.map((kind) => ({ value: kind, label: capital(CURVE_KIND_WORDS[kind].replace(/ \(.*\)$/, '')) }));
 const UNIT_OPTIONS = [
   { value: 'nm' as const, label: 'nm' },
   { value: 'um' as const, label: 'µm' },
@@ -97,12 +101,14 @@ function useDropZone(onFile: (file: File) => void) {
 }
 
 function Detected({ result }: { result: Extract<CurveFileResult, { ok: true }> }) {
+  const unitWord = result.applied.wavelengthUnit.value === 'um' ? 'µm' : 'nm';
+  const scale = result.applied.valueScale;
   const lines = [
-    `Wavelengths in ${result.applied.wavelengthUnit.value === 'um' ? 'µm' : 'nm'}${result.applied.wavelengthUnit.corrected ? ' (your correction)' : ` — ${result.detected.wavelengthUnit.reason}`}`,
-    result.applied.valueScale && result.detected.valueScale
-      ? `Values as ${result.applied.valueScale.value === 'percent' ? 'percent' : 'fractions'}${result.applied.valueScale.corrected ? ' (your correction)' : ` — ${result.detected.valueScale.reason}`}`
+    `Wavelengths: ${result.applied.wavelengthUnit.corrected ? `${unitWord} (your correction)` : result.detected.wavelengthUnit.reason}`,
+    scale && result.detected.valueScale
+      ? `Values: ${scale.corrected ? `${scale.value} (your correction)` : result.detected.valueScale.reason}`
       : null,
-    `Medium: ${result.applied.medium.value === 'unstated' ? 'not stated' : result.applied.medium.value}${result.applied.medium.corrected ? ' (your correction)' : ` — ${result.detected.medium.reason}`}`,
+    `Medium: ${result.applied.medium.corrected ? `${result.applied.medium.value} (your correction)` : result.detected.medium.reason}`,
     `${result.pointCount} points, ${formatNumber(result.wavelengthsNm[0] ?? 0)}–${formatNumber(result.wavelengthsNm[result.pointCount - 1] ?? 0)} nm`,
   ].filter((x): x is string => x !== null);
   return (
@@ -150,12 +156,81 @@ function PreviewTable({ result }: { result: Extract<CurveFileResult, { ok: true 
  * preview table and plot, before attaching the curve to the design. Parsed on the device with the
  * same parser the API uses, so what is refused here is refused there, row and column named.
  */
+/** The team whose curve library the panel reads and (for owners) keeps uploads in. */
+export type CurveLibrary = { teamId: string; canManage: boolean };
+
+/** Why a call failed, in the server's words (naming the field and the row where it says them). */
+function failureText(error: unknown): string {
+  if (error instanceof ApiError) {
+    const fields = Object.entries(error.fields).map(([field, message]) => `${field}: ${message}`);
+    return fields.length > 0 ? `${error.message} ${fields.join('; ')}` : error.message;
+  }
+  return 'The server could not be reached: the curve was not saved.';
+}
+
+/** The team's curves, each with Use: the points are copied into the design with this panel's role choices. */
+function LibraryList({
+  library,
+  roleFor,
+  onUse,
+}: {
+  library: CurveLibrary;
+  roleFor: (kind: CurveKind) => CurveRole;
+  onUse: (curve: DesignCurve) => void;
+}) {
+  const list = useTeamCurvesQuery(library.teamId);
+  const [problem, setProblem] = useState<string | null>(null);
+  const use = async (curveId: string) => {
+    setProblem(null);
+    try {
+      const { curve } = await fetchTeamCurve(library.teamId, curveId);
+      const made = designCurveWithRole(curve.designCurve, roleFor(curve.kind));
+      if (made.ok) onUse(made.curve);
+      else setProblem(Object.entries(made.fields).map(([f, m]) => `${f}: ${m}`).join('; '));
+    } catch (error) {
+      setProblem(failureText(error));
+    }
+  };
+  if (list.isPending) return <Text style={styles.note}>Reading the team’s curve library…</Text>;
+  if (list.isError) return <Text style={styles.error}>{failureText(list.error)}</Text>;
+  return (
+    <View style={styles.library} testID="curve-library">
+      <Text style={styles.subheading} role="heading" aria-level={4}>
+        From the team’s library
+      </Text>
+      {list.data.length === 0 ? <Text style={styles.note}>No curves in the team’s library yet.</Text> : null}
+      <View role="list" style={styles.libraryList}>
+        {list.data.slice(0, 30).map((entry, index) => (
+          <View key={entry.id} role="listitem" style={styles.libraryItem} testID={`curve-library-${index}`}>
+            <View style={styles.libraryText}>
+              <Text style={styles.small}>{entry.name}</Text>
+              <Text style={styles.note}>
+                {curveLine({ kind: entry.kind, name: entry.name, checksum: entry.checksum, medium: entry.medium, wavelengthsNm: [entry.startNm, entry.endNm], values: [0, 0] }).replace(/2 points/, `${entry.pointCount} points`)}
+                {` · ${entry.uploadedByName}`}
+              </Text>
+            </View>
+            <Button kind="quiet" label="Use" accessibilityLabel={`Use the library curve ${entry.name}`} onPress={() => void use(entry.id)} testID={`curve-library-use-${index}`} />
+          </View>
+        ))}
+      </View>
+      {problem ? (
+        <Text style={styles.error} role="alert">
+          {problem}
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
 export function CurveUploadPanel({
   design,
+  library = null,
   onAttach,
   onCancel,
 }: {
   design: Design;
+  /** In a team's notebook: its library to reuse curves from, and where an owner's upload is kept. */
+  library?: CurveLibrary | null;
   onAttach: (curve: DesignCurve) => void;
   onCancel: () => void;
 }) {
@@ -170,6 +245,8 @@ export function CurveUploadPanel({
   const [filterNumber, setFilterNumber] = useState<string>('all');
   const [attachErrors, setAttachErrors] = useState<string[]>([]);
   const [width, setWidth] = useState(300);
+  const [libraryNote, setLibraryNote] = useState<string | null>(null);
+  const upload = useUploadTeamCurve(library?.teamId ?? '');
 
   const take = async (asset: { name: string; size?: number | null; uri: string; file?: File }) => {
     setAttachErrors([]);
@@ -198,14 +275,34 @@ export function CurveUploadPanel({
   const result = useMemo(() => (picked ? parseCurveFile(picked.bytes, kind, corrections) : null), [picked, kind, corrections]);
   const filters = design.filters ?? [];
 
+  const roleFor = (k: CurveKind): CurveRole => ({
+    ...(k === 'grating-efficiency' ? { order: design.grating.order, polarisation } : {}),
+    ...(k === 'mirror-reflectance' ? { mirror } : {}),
+    ...(k === 'filter-transmission' && filterNumber !== 'all' ? { filterNumber: Number(filterNumber) } : {}),
+  });
+  const role = roleFor(kind);
   const attach = async () => {
     if (!picked || !result?.ok) return;
-    const checksum = await sha256Hex(picked.bytes);
-    const made = designCurveFrom(result, name, checksum, {
-      ...(kind === 'grating-efficiency' ? { order: design.grating.order, polarisation } : {}),
-      ...(kind === 'mirror-reflectance' ? { mirror } : {}),
-      ...(kind === 'filter-transmission' && filterNumber !== 'all' ? { filterNumber: Number(filterNumber) } : {}),
-    });
+    setAttachErrors([]);
+    let checksum = await sha256Hex(picked.bytes);
+    // In a team's notebook an owner's upload is kept in the library first: the design then carries
+    // exactly what the library stored (a re-upload is recognised and reused).
+    if (library?.canManage) {
+      try {
+        const answer = await upload.mutateAsync({
+          file: new File([picked.bytes as unknown as BlobPart], picked.name, { type: 'text/csv' }),
+          kind,
+          name: name.trim(),
+          corrections,
+        });
+        checksum = answer.curve.checksum;
+        setLibraryNote(answer.recognised ? 'This file was already in the team’s library: its stored curve is used.' : 'Kept in the team’s library for the next design.');
+      } catch (error) {
+        setAttachErrors([failureText(error)]);
+        return;
+      }
+    }
+    const made = designCurveFrom(result, name, checksum, role);
     if (made.ok) onAttach(made.curve);
     else setAttachErrors(Object.entries(made.fields).map(([field, message]) => `${field}: ${message}`));
   };
@@ -220,6 +317,7 @@ export function CurveUploadPanel({
       <Text style={styles.subheading} role="heading" aria-level={3}>
         Add a measured curve
       </Text>
+      {library ? <LibraryList library={library} roleFor={roleFor} onUse={onAttach} /> : null}
       <RadioGroup label="What the file holds" showLabel options={KIND_OPTIONS} value={kind} onChange={setKind} look="chips" size="compact" testID="curve-upload-kind" />
       <View
         ref={dropRef}
@@ -324,8 +422,9 @@ export function CurveUploadPanel({
           ) : null}
         </>
       ) : null}
+      {libraryNote ? <Text style={styles.note}>{libraryNote}</Text> : null}
       <View style={styles.actions}>
-        <Button label="Attach to the design" onPress={() => void attach()} disabled={!result?.ok} testID="curve-upload-attach" />
+        <Button label="Attach to the design" onPress={() => void attach()} disabled={!result?.ok || upload.isPending} testID="curve-upload-attach" />
         <Button kind="quiet" label="Cancel" onPress={onCancel} testID="curve-upload-cancel" />
       </View>
     </View>
@@ -350,4 +449,8 @@ const styles = StyleSheet.create({
   headCell: { fontFamily: fonts.semibold },
   rowNo: { flex: 0, width: 44, color: colors.inkMuted },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  library: { gap: space.xs },
+  libraryList: { gap: space.xxs },
+  libraryItem: { flexDirection: 'row', alignItems: 'center', gap: space.sm, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.xxs },
+  libraryText: { flex: 1, minWidth: 0 },
 });

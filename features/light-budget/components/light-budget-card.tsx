@@ -9,7 +9,7 @@ import type { Design } from '@/shared/design';
 import { formatNumber, formatPercent } from '@/shared/format';
 import { INPUT_KINDS } from '@/shared/light-input';
 import { FILL_STATE_WORDS, curveLine, factorRows, fillSentence, threePlaces, valueText } from '../light-budget-words';
-import { CurveUploadPanel } from './curve-upload-panel';
+import { CurveUploadPanel, type CurveLibrary } from './curve-upload-panel';
 
 export type LightBudgetCardProps = {
   design: Design;
@@ -27,6 +27,8 @@ export type LightBudgetCardProps = {
   onCurvesChange: (curves: DesignCurve[], text: string | null) => void;
   undo: { text: string; onUndo: () => void } | null;
   collapsedAtFirst: boolean;
+  /** In a team's notebook: the team's curve library (reuse, and where an owner's uploads are kept). */
+  library?: CurveLibrary | null;
 };
 
 const INPUT_OPTIONS = (['', ...INPUT_KINDS] as const).map((value) => ({
@@ -74,7 +76,7 @@ function Figures({ evaluation }: { evaluation: Evaluation }) {
 function FillMark({ state }: { state: keyof typeof FILL_STATE_WORDS }) {
   const bad = state === 'overfilled' || state === 'underfilled';
   return (
-    <View style={[styles.mark, bad ? styles.markBad : styles.markOk]} testID="light-budget-fill-state" data-state={state}>
+    <View style={[styles.mark, bad ? styles.markBad : styles.markOk]} testID="light-budget-fill-state">
       <Text style={[styles.markText, bad ? styles.markTextBad : null]}>{FILL_STATE_WORDS[state]}</Text>
     </View>
   );
@@ -148,7 +150,7 @@ function FactorTable({ evaluation }: { evaluation: Evaluation }) {
   return (
     <View style={styles.factorList} role="list" testID="light-budget-factors">
       {rows.map((row) => (
-        <View key={row.id} style={styles.factor} role="listitem" testID={`light-budget-factor-${row.id}`} data-basis={light.factors.find((f) => f.id === row.id)?.basis}>
+        <View key={row.id} style={styles.factor} role="listitem" testID={`light-budget-factor-${row.id}`}>
           <Text style={styles.factorName}>{row.name}</Text>
           <Text style={styles.note}>{row.basis}</Text>
           {row.counted ? (
@@ -262,6 +264,7 @@ function Body(props: LightBudgetCardProps) {
       {readOnly ? null : adding ? (
         <CurveUploadPanel
           design={props.design}
+          library={props.library ?? null}
           onAttach={(curve) => {
             onCurvesChange([...curves, curve], null);
             setAdding(false);

@@ -426,6 +426,7 @@ export function DesignTab({ design, version, latest, userId, onRestart, rebaseNo
         header={header}
         readOnly={!editable}
         onSaveCandidate={editable ? saveCandidate : undefined}
+        curveLibrary={{ teamId: design.teamId, canManage: can(design.role, 'curves.manage') }}
         aside={sidePanel && open.has('review') ? <ReviewSidePanel {...reviewProps} /> : null}
       />
     </FieldMarksProvider>

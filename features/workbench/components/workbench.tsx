@@ -14,7 +14,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { SaveToNotebook } from '@/features/notebooks/components/save-to-notebook';
 import { CalibrationCard } from '@/features/calibration';
 import { CandidateSearchPanel } from '@/features/candidates';
-import { LightBudgetCard } from '@/features/light-budget';
+import { LightBudgetCard, type CurveLibrary } from '@/features/light-budget';
 import { OrderSortingCard } from '@/features/order-sorting';
 import { PerformancePlots } from '@/features/plots';
 import { TradeStudyCard } from '@/features/selectors';
@@ -71,6 +71,8 @@ export type WorkbenchProps = {
   aside?: ReactNode;
   /** Saves a search candidate as a new version of the open notebook; absent where there is none. */
   onSaveCandidate?: (design: Design, message: string) => Promise<void>;
+  /** The notebook's team curve library, for the light budget's uploads; absent on the scratch page. */
+  curveLibrary?: CurveLibrary | null;
 };
 
 /** Edit a design and see every figure, the sketch and the plots follow. */
@@ -83,6 +85,7 @@ export function Workbench({
   showPresets = false,
   aside = null,
   onSaveCandidate,
+  curveLibrary = null,
 }: WorkbenchProps) {
   const bench = useWorkbench(initial, onDraftChange);
   const layout = useLayout();
@@ -342,6 +345,7 @@ export function Workbench({
       onCurvesChange={changeCurves}
       undo={undoFor('curves')}
       collapsedAtFirst={layout === 'phone'}
+      library={curveLibrary}
     />
   );
   // The lamp lines the design will be calibrated with.
