@@ -187,7 +187,7 @@ function ParametersTable({ data }: { data: CompareResponse }) {
                   style={styles.wideCell}
                 >
                   {differs ? '● ' : ''}
-                  {editorFieldName(path)}
+                  {editorFieldName(path, data.a.params, data.b.params)}
                 </Text>
                 <Text role="cell" variant={valueVariant(a[path])} style={[styles.cell, styles.num]}>
                   {formatParamAt(path, a[path])}

@@ -50,7 +50,7 @@ export function ConflictCard({ latest, baseVersion, mine, myNotes, busy, onReapp
           rows.map((row) => (
             <View key={row.path} role="row" style={styles.row} testID={`conflict-${row.path}`}>
               <Text role="cell" variant="small" style={styles.path}>
-                {editorFieldName(row.path)}
+                {editorFieldName(row.path, latest.params, mine)}
               </Text>
               <Text role="cell" variant="number" style={styles.value}>
                 {formatParamAt(row.path, row.latest)}

@@ -71,7 +71,7 @@ export function compareParameterRows(sheet: CompareSheetContext): TableRow[] {
   if (unknown.length > 0) {
     rows.push({ cells: ['Other', '', '', ''], bold: true });
     for (const change of unknown) {
-      rows.push(row(describeDesignPath(change.path), formatParamAt(change.path, change.before), formatParamAt(change.path, change.after), true));
+      rows.push(row(describeDesignPath(change.path, sheet.a.params, sheet.b.params), formatParamAt(change.path, change.before), formatParamAt(change.path, change.after), true));
     }
   }
   return rows;
