@@ -16,10 +16,25 @@ import { createNotebookFixture, type NotebookFixture } from './notebooks/fixture
  */
 
 const runsPerRoute = 1000;
-/** The example design with an order-sorting filter, so the fuzzer reaches the filter list's fields too. */
+/**
+ * The example design with an order-sorting filter, a light input and a measured curve, so the
+ * fuzzer reaches the filter list's, the input's and the curve's fields too.
+ */
 const filteredDesign = {
   ...exampleDesign,
   filters: [{ kind: 'long-pass', cutOnNm: 395, inFromNm: 400, inToNm: 780, edgeWidthNm: 10 }],
+  input: { kind: 'fibre', numericalAperture: 0.22, coreDiameterUm: 200 },
+  curves: [
+    {
+      kind: 'grating-efficiency',
+      name: 'Demo batch',
+      checksum: 'e'.repeat(64),
+      medium: 'air',
+      order: 1,
+      wavelengthsNm: [300, 600, 900],
+      values: [0.3, 0.7, 0.4],
+    },
+  ],
 };
 
 /** Every string PostgreSQL could choke on shows up: NUL, lone surrogates, any UTF-16 code unit. */
