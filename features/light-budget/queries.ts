@@ -41,3 +41,12 @@ export function useUploadTeamCurve(teamId: string) {
     onSuccess: () => queryClient.invalidateQueries({ predicate: withParams('curves', { teamId }) }),
   });
 }
+
+/** Removes a curve from the library (owners); designs keep their copies. */
+export function useRemoveTeamCurve(teamId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (curveId: string) => call(routes.remove, { params: { teamId, curveId } }),
+    onSuccess: () => queryClient.invalidateQueries({ predicate: withParams('curves', { teamId }) }),
+  });
+}

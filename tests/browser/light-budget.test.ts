@@ -5,6 +5,7 @@ import { draftFromDesign } from '../../features/workbench/draft';
 import { exampleDesign } from '../../shared/design';
 import { expectAccessible } from '../support/axe';
 import { artifactsDir, liveServerAndBrowser, screenshot, viewports, watchConsole } from '../support/browser';
+import { demo, eventually as eventuallyIn, expectNoProblems, ownerApi, person, shown, signInAs } from './journeys/journey';
 
 /**
  * The light budget card on the example design (300–900 nm, 1200/mm blazed at 500 nm): attach a
@@ -77,7 +78,8 @@ describe('the light budget in the workbench', () => {
     await eventually(() => factorText(page, 'grating')).toContain('measured (demo-grating-report-14)');
     await eventually(() => throughputSummary(page)).not.toBe(before);
     // At the centre, near 600 nm (the sweep's middle point), the demo hump is 70 %·exp(−(0.1/0.25)²) = 59.65 %: 60 %.
-    expect(await factorText(page, 'grating')).toMatch(/\b(59[89]|60[01])(\.\d+)?\s?nm 60\s%/);
+    const grating = (await factorText(page, 'grating')) ?? '';
+    expect(grating, grating).toMatch(/\b(59[89]|60[01])(\.\d+)?\s?nm 60\s%/);
     await screenshot(page, 'light-budget-attached-phone');
     await shootPart(page, 'light-budget-card', 'light-budget-card-phone');
     expect(errors).toEqual([]);
@@ -120,5 +122,67 @@ describe('the light budget in the workbench', () => {
       expect(errors).toEqual([]);
       await context.close();
     }
+  });
+});
+
+describe('the team curve library from a notebook', { timeout: 180_000 }, () => {
+  // Development mode seeds the demo team, its owner and the teaching-lab notebook (server/seed/).
+  const live = liveServerAndBrowser({ NODE_ENV: 'development' });
+
+  it('keeps an owner’s upload in the library, saves it with the next version, and recognises the same file again', async () => {
+    const owner = await ownerApi(live.browser, live.server);
+    const api = owner.context.request;
+    const designs = (await (await api.get(`${live.server.url}/api/teams/${owner.teamId}/designs`)).json()) as {
+      designs: { id: string; title: string; latestVersion: number }[];
+    };
+    const notebook = designs.designs.find((d) => d.title === demo.notebook)!;
+    const who = await person(live.browser, 'owner', 'wide');
+    await signInAs(who, live.server, demo.owner);
+    const { page } = who;
+    await page.goto(`${live.server.url}/notebooks/${notebook.id}/v/${notebook.latestVersion}`);
+    await shown(page, 'light-budget-card').waitFor();
+
+    const attachFile = async () => {
+      await shown(page, 'light-budget-add-curve').click();
+      await shown(page, 'curve-library').waitFor();
+      const chooser = page.waitForEvent('filechooser');
+      await shown(page, 'curve-upload-choose').click();
+      await (await chooser).setFiles({ name: 'demo-grating-report-14.csv', mimeType: 'text/csv', buffer: Buffer.from(curveCsv) });
+      await shown(page, 'curve-upload-detected').waitFor();
+      await shown(page, 'curve-upload-attach').click();
+    };
+    await attachFile();
+    await shown(page, 'light-budget-curve-0').waitFor();
+    const library = async () =>
+      ((await (await api.get(`${live.server.url}/api/teams/${owner.teamId}/curves`)).json()) as { curves: { name: string; checksum: string }[] }).curves;
+    const stored = await library();
+    expect(stored.map((c) => c.name)).toEqual(['demo-grating-report-14']);
+
+    // The same file again: recognised, not stored twice.
+    await attachFile();
+    await shown(page, 'light-budget-curve-1').waitFor();
+    expect(await library()).toHaveLength(1);
+
+    // The attached curves are saved with the next version, carrying the library's checksum.
+    await shown(page, 'bar-save').click();
+    await shown(page, 'version-message').fill('Measured grating efficiency attached');
+    await shown(page, 'save-version').click();
+    const next = notebook.latestVersion + 1;
+    const version = async () => {
+      const answer = await api.get(`${live.server.url}/api/designs/${notebook.id}/versions/${next}`);
+      return answer.status() === 200 ? ((await answer.json()) as { version: { params: { curves?: { checksum: string }[] } } }).version : null;
+    };
+    await eventuallyIn(async () => (await version())?.params.curves?.length ?? 0).toBe(2);
+    expect((await version())!.params.curves![0]!.checksum).toBe(stored[0]!.checksum);
+
+    // Removing the curve from the library leaves the saved version's copy as it was.
+    await shown(page, 'light-budget-add-curve').click();
+    await shown(page, 'curve-library-remove-0').click();
+    await eventuallyIn(async () => (await library()).length).toBe(0);
+    expect((await version())!.params.curves).toHaveLength(2);
+    await screenshot(page, 'light-budget-notebook-wide');
+    expectNoProblems(who);
+    await who.context.close();
+    await owner.context.close();
   });
 });

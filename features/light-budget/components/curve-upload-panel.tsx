@@ -27,7 +27,7 @@ import { formatNumber } from '@/shared/format';
 import { ApiError } from '@/features/api';
 import { baseName, designCurveFrom, designCurveWithRole, sha256Hex, type CurveRole } from '../curve-attach';
 import { curveLine } from '../light-budget-words';
-import { fetchTeamCurve, useTeamCurvesQuery, useUploadTeamCurve } from '../queries';
+import { fetchTeamCurve, useRemoveTeamCurve, useTeamCurvesQuery, useUploadTeamCurve } from '../queries';
 
 type Picked = { name: string; bytes: Uint8Array };
 
@@ -179,6 +179,7 @@ function LibraryList({
   onUse: (curve: DesignCurve) => void;
 }) {
   const list = useTeamCurvesQuery(library.teamId);
+  const remove = useRemoveTeamCurve(library.teamId);
   const [problem, setProblem] = useState<string | null>(null);
   const use = async (curveId: string) => {
     setProblem(null);
@@ -199,6 +200,9 @@ function LibraryList({
         From the team’s library
       </Text>
       {list.data.length === 0 ? <Text style={styles.note}>No curves in the team’s library yet.</Text> : null}
+      {list.data.length > 0 && library.canManage ? (
+        <Text style={styles.note}>Removing a curve from the library leaves the designs that use it unchanged.</Text>
+      ) : null}
       <View role="list" style={styles.libraryList}>
         {list.data.slice(0, 30).map((entry, index) => (
           <View key={entry.id} role="listitem" style={styles.libraryItem} testID={`curve-library-${index}`}>
@@ -210,6 +214,15 @@ function LibraryList({
               </Text>
             </View>
             <Button kind="quiet" label="Use" accessibilityLabel={`Use the library curve ${entry.name}`} onPress={() => void use(entry.id)} testID={`curve-library-use-${index}`} />
+            {library.canManage ? (
+              <Button
+                kind="quiet"
+                label="Remove"
+                accessibilityLabel={`Remove ${entry.name} from the team’s library (designs keep their copies)`}
+                onPress={() => remove.mutate(entry.id, { onError: (error) => setProblem(failureText(error)) })}
+                testID={`curve-library-remove-${index}`}
+              />
+            ) : null}
           </View>
         ))}
       </View>

@@ -13,6 +13,7 @@ import { CurveUploadPanel, type CurveLibrary } from './curve-upload-panel';
 
 export type LightBudgetCardProps = {
   design: Design;
+  /** A plain sweep: the light budget's arrays run alongside its points, one value each. */
   evaluation: Evaluation;
   readOnly: boolean;
   dimmed: boolean;

@@ -262,6 +262,7 @@ export function Workbench({
   // The sketch and plots follow each keystroke at once; the long text lists (about 200 text
   // elements) may trail by a frame so typing stays smooth on a tablet.
   const deferredEvaluation = useDeferredValue(bench.evaluation);
+  const deferredSweep = useDeferredValue(bench.sweep);
   const deferredTable = useDeferredValue(bench.table);
   const deferredSelected = useDeferredValue(bench.selected);
   const readout = (
@@ -335,7 +336,7 @@ export function Workbench({
   const lightBudget = (
     <LightBudgetCard
       design={bench.design}
-      evaluation={deferredEvaluation}
+      evaluation={deferredSweep}
       readOnly={readOnly}
       dimmed={dimmed}
       inputKind={bench.values.input?.kind ?? ''}

@@ -232,6 +232,11 @@ export function useWorkbench(initial: () => Draft, onDraftChange: (draft: Draft)
     blockedBy: result.ok ? null : result.fields,
     design: shown,
     evaluation,
+    /**
+     * The plain sweep, without the read-out's point: arrays that run alongside its points (the light
+     * budget's factors) stay aligned with them.
+     */
+    sweep,
     table,
     selectedText,
     setSelectedText,
