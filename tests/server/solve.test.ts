@@ -21,7 +21,7 @@ function wavelengthsNm(count: number, fromNm: number, toNm: number): number[] {
   return Array.from({ length: count }, (_, i) => fromNm + ((toNm - fromNm) * (i + 0.1)) / count);
 }
 
-// 2.5 MB: each listed overlap says whether a filter blocks it (issue 16) — about 2.05 MB measured.
+// 2.5 MB: each listed overlap says whether a filter blocks it (issue 16) and the light budget adds its factors (issue 17) — about 2.2 MB measured.
 const LIMIT_BYTES = 2.5 * 1024 * 1024;
 
 // Solving reads and writes no data: one database for the file, and a new app (so new rate limits)
