@@ -1,7 +1,7 @@
 import { memo, useCallback, useDeferredValue, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, Text as RNText, View, type LayoutChangeEvent } from 'react-native';
 import { calibrationReport, type CalibrationReport } from '@/features/solver';
-import { Card, Text, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
+import { Button, Card, Text, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import { formatInteger, formatNumber } from '@/shared/format';
 import { LAMP_ELEMENTS, LAMP_ELEMENT_WORDS, LAMP_LINES_MEDIUM, LAMP_LINES_SOURCE, type LampElement } from '@/shared/lamp-lines';
@@ -262,20 +262,14 @@ export const CalibrationCard = memo(function CalibrationCard({ design, collapsed
   return (
     <Card title="Calibration lamp lines" testID="calibration-card">
       <View style={styles.actions}>
-        <Pressable
-          role="button"
-          aria-expanded={open}
+        <Button
+          kind="secondary"
+          label={`${label} ${open ? '▴' : '▾'}`}
           accessibilityLabel={label}
+          expanded={open}
           onPress={() => setOpen((o) => !o)}
           testID="calibration-toggle"
-          style={({ pressed, hovered, focused }: { pressed: boolean; hovered?: boolean; focused?: boolean }) => [
-            styles.disclosure,
-            (pressed || hovered) && styles.disclosurePressed,
-            focused && styles.toggleFocused,
-          ]}
-        >
-          <RNText style={styles.disclosureText}>{`${label} ${open ? '▴' : '▾'}`}</RNText>
-        </Pressable>
+        />
       </View>
       {open ? <Body design={deferred} elements={elements} onToggle={onToggle} /> : null}
     </Card>
@@ -287,18 +281,6 @@ const styles = StyleSheet.create({
   section: { gap: space.xs },
   list: { gap: space.xs },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  disclosure: {
-    minHeight: minTouch,
-    paddingHorizontal: space.lg,
-    borderRadius: radius.md,
-    borderWidth: 1,
-    borderColor: colors.primary,
-    backgroundColor: colors.surface,
-    alignItems: 'center',
-    justifyContent: 'center',
-  },
-  disclosurePressed: { backgroundColor: colors.surfaceSunken },
-  disclosureText: { ...type.body, fontFamily: fonts.semibold, color: colors.primary },
   choice: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   toggle: {
     minHeight: minTouch,

@@ -298,6 +298,7 @@ export const LightBudgetCard = memo(function LightBudgetCard(props: LightBudgetC
           kind="secondary"
           label={open ? 'Hide the light budget' : 'Show the light budget'}
           onPress={() => setOpen((o) => !o)}
+          expanded={open}
           testID="light-budget-toggle"
         />
       </View>

@@ -9,10 +9,12 @@ type Props = {
   disabled?: boolean;
   /** Read by screen readers when the visible label is not enough ("Remove exit slit preset"). */
   accessibilityLabel?: string;
+  /** A disclosure button: whether what it shows and hides is open (aria-expanded). */
+  expanded?: boolean;
   testID?: string;
 };
 
-export function Button({ label, onPress, kind = 'primary', disabled = false, accessibilityLabel, testID }: Props) {
+export function Button({ label, onPress, kind = 'primary', disabled = false, accessibilityLabel, expanded, testID }: Props) {
   return (
     <Pressable
       // A button does nothing on paper: printed screens leave it out.
@@ -20,6 +22,7 @@ export function Button({ label, onPress, kind = 'primary', disabled = false, acc
       role="button"
       accessibilityLabel={accessibilityLabel ?? label}
       accessibilityState={{ disabled }}
+      {...(expanded === undefined ? {} : { 'aria-expanded': expanded })}
       disabled={disabled}
       onPress={onPress}
       testID={testID}
