@@ -7,11 +7,12 @@ import { View } from 'react-native';
 import { createQueryClient } from '@/features/api';
 import { AccountMenu } from '@/features/auth';
 import { InboxLink } from '@/features/inbox';
-import { Wordmark, colors, fontAssets, fonts, installFocusRing, installPrintStyles } from '@/features/ui';
+import { Wordmark, colors, fontAssets, fonts, installFocusRing, installPlainShaping, installPrintStyles } from '@/features/ui';
 
 // Printed screens show their content without the controls (web only).
 installPrintStyles();
 installFocusRing();
+installPlainShaping();
 
 export default function RootLayout() {
   const [fontsLoaded, fontError] = useFonts(fontAssets);

@@ -14,6 +14,7 @@ export { fontAssets } from './fonts';
 export { installFocusRing } from './focus-ring';
 export { printHidden } from './print';
 export { installPrintStyles } from './print-styles';
+export { installPlainShaping } from './text-shaping';
 export { downloadBlob, saveTextFile } from './save-text-file';
 export { useLayout } from './theme-context';
 export {

@@ -44,6 +44,21 @@ function loadFonts(): Record<SheetFont, fontkit.Font> {
   return parsedFonts;
 }
 
+/**
+ * The font as pdfkit sees it, shaping text as it was written: Inter's contextual alternates
+ * (OpenType `calt`) set the x between two digits as a multiplication sign, so a share link's token
+ * "…6x8…" printed, copied and read back as "…6×8…" (a link that leads nowhere), and a part number or
+ * a note would change the same way. Every other default feature (kerning, ligatures) stays; fontkit
+ * drops a feature given as `false`. The glyph table and metrics are the parsed font's own.
+ */
+function asWritten(font: fontkit.Font): fontkit.Font {
+  const layout = (text: string, features?: unknown) =>
+    font.layout(text, (features ?? { calt: false }) as Parameters<fontkit.Font['layout']>[1]);
+  return new Proxy(font, {
+    get: (target, key) => (key === 'layout' ? layout : Reflect.get(target, key, target)),
+  });
+}
+
 /** Paper sizes in points (ISO 216 A4 210 × 297 mm; US Letter 8.5 × 11 in). */
 export const paperPt: Record<Paper, { width: number; height: number }> = {
   a4: { width: 595.28, height: 841.89 },
@@ -127,7 +142,7 @@ export class SheetWriter {
       // freshly parsed font would (fontkit 2.0.4's `_glyphs`, pinned).
       (font as unknown as { _glyphs: Record<number, unknown> })._glyphs = {};
       // pdfkit's types list only paths and bytes; its code takes a parsed font (anything with `layout`).
-      this.doc.registerFont(name, font as unknown as Buffer);
+      this.doc.registerFont(name, asWritten(font) as unknown as Buffer);
     }
     this.use('regular', textSize.body);
     this.doc.fillColor(sheetColors.ink);

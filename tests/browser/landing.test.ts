@@ -27,6 +27,15 @@ describe('landing screen in Chromium', () => {
     expect(font.family).toContain('Inter-Bold');
     expect(font.faceStatus).toContain('loaded');
     expect(font.check).toBe(true);
+    // Text shows as typed: Inter's contextual alternates (which draw the x of "6x8" as a ×) are off
+    // on the heading and in a field alike (features/ui/text-shaping.web.ts).
+    const shaping = await page.evaluate(() => {
+      const input = document.body.appendChild(document.createElement('input'));
+      const found = [getComputedStyle(document.querySelector('h1')!).fontFeatureSettings, getComputedStyle(input).fontFeatureSettings];
+      input.remove();
+      return found;
+    });
+    expect(shaping).toEqual(['"calt" 0', '"calt" 0']);
 
     await expect.poll(() => page.getByTestId('server-status').textContent()).toContain('Notebook server ready');
     await screenshot(page, `landing-${size}`);

@@ -239,6 +239,19 @@ describe('design sheet PDF, read back with pdfjs-dist', () => {
     long.pages.forEach((page, i) => expect(page.split('\n').filter((line) => line.includes(link)), `page ${i + 1}: the link whole on one line`).not.toEqual([]));
   });
 
+  it('prints text as it was written: an x between digits stays an x, in a link and in a note', async () => {
+    // Inter's contextual alternates draw both the x of "6x8" and the × of "2×20" with one raised
+    // multiplication glyph, which reads back as whichever character met it first: after a "2×20" a
+    // share token holding "6x8" printed as a × and read back as a link that leads nowhere (a random
+    // token did, about one run in ten).
+    const link = 'http://blazebook.example.com/share/vnl2zdmaeu7y7iovzayrpdn7cjeag6x8jl3ryd7n';
+    const written = 'A 2×20 mm slit, part 10x4-B, mask 2x20';
+    const note = { id: 'note', title: 'Note', draw: (writer: SheetWriter) => void writer.use('regular', 9).doc.text(written, 48, 100) };
+    const { text } = await pdfText(await buildSheet(sampleSheet({ link }), [note]));
+    expect(text).toContain(link);
+    expect(text).toContain(written);
+  });
+
   it('through a share link, leaves out the team’s name and the review threads’ text', async () => {
     const shared = await pdfText(await buildSheet(sampleSheet({ audience: 'link', design: { ...sheet.design, teamName: null } })));
     expect(headingIndex(shared, titleOf('review'))).toBeGreaterThanOrEqual(0);
