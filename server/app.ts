@@ -21,6 +21,7 @@ import { searchRoute } from './search/router';
 import { selectorsRoute } from './selectors/router';
 import { solveRoute } from './solve/router';
 import { createTeams } from './teams/index';
+import { traceRoute } from './trace/router';
 
 export type AppDeps = {
   database: DatabaseHandle;
@@ -139,6 +140,7 @@ export function createApp(deps: AppDeps) {
         },
         search: { run: searchRoute(deps.rateLimits) },
         selectors: { run: selectorsRoute(deps.rateLimits) },
+        trace: { run: traceRoute(deps.rateLimits) },
         curves: curves.router,
       },
       { signedIn },

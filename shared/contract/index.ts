@@ -9,6 +9,7 @@ import { selectors } from './selectors';
 import { sheets } from './sheets';
 import { describe, type Route } from './route';
 import { teams } from './teams';
+import { trace } from './trace';
 
 export { describe, route } from './route';
 export type { Access, Method, Route, RouteAnswer, RouteArgs, RouteInput, RouteMeta } from './route';
@@ -17,7 +18,7 @@ export type { Access, Method, Route, RouteAnswer, RouteArgs, RouteInput, RouteMe
  * Every route of the HTTP API, described once. Group and route names are the OpenAPI
  * operation ids (`notebooks.saveVersion`) and the first two items of each TanStack Query key.
  */
-export const apiContract = { accounts, teams, notebooks, reviews, sheets, inbox, platform, search, selectors, curves };
+export const apiContract = { accounts, teams, notebooks, reviews, sheets, inbox, platform, search, selectors, trace, curves };
 export type ApiContract = typeof apiContract;
 
 export type RouteEntry = { name: string; route: Route } & ReturnType<typeof describe>;

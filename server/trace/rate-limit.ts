@@ -1,0 +1,30 @@
+import type { RequestHandler } from 'express';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { tooManyRequests } from '../auth/errors';
+import { defaultRateLimits, type RateLimits } from '../auth/rate-limit';
+
+/**
+ * `POST /api/trace` calls per IP per `solveWindowMs`. The largest request traces 50,000 rays at
+ * each of up to 11 wavelengths (8 asked for and the range's start, centre and end); 30 a minute
+ * keeps one address to a small share of the server's one thread (`npm run bench:trace` times the
+ * rays), and a lab script sweeping designs rarely traces more than once every two seconds.
+ */
+export const TRACE_PER_IP = 30;
+
+/**
+ * The limits the trace route reads: the app's (`AppDeps.rateLimits`) and its own `tracePerIp`,
+ * which tests set to let a fuzzer through. Kept beside the route until `RateLimits` holds it.
+ */
+export type TraceRateLimits = Partial<RateLimits> & { tracePerIp?: number };
+
+/** `POST /api/trace` per IP: its own counters, apart from solving, searching and signing in. */
+export function createTraceRateLimiter(limits: TraceRateLimits = {}): RequestHandler {
+  return rateLimit({
+    windowMs: limits.solveWindowMs ?? defaultRateLimits.solveWindowMs,
+    limit: limits.tracePerIp ?? TRACE_PER_IP,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `ip:${ipKeyGenerator(req.ip ?? '')}`,
+    handler: (_req, _res, next) => next(tooManyRequests('Too many traces from this address. Wait a minute and try again.')),
+  });
+}
