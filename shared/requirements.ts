@@ -19,6 +19,14 @@ function positive(max: number, unitWords: string) {
 export const ORDER_OVERLAP_POLICIES = ['forbidden', 'filtered', 'allowed'] as const;
 export type OrderOverlapPolicy = (typeof ORDER_OVERLAP_POLICIES)[number];
 
+/**
+ * What `maxBandpassNm` is judged on: the closed-form slit-limited FWHM, or the FWHM of the line
+ * shape the exact ray trace finds (mirror aberrations included). Absent means slit-limited, so a
+ * stored design without the field reads as it always did.
+ */
+export const BANDPASS_BASES = ['slit-limited', 'traced'] as const;
+export type BandpassBasis = (typeof BANDPASS_BASES)[number];
+
 /** At most this many named wavelengths: they are checked one by one on every edit. */
 export const MAX_REQUIREMENT_WAVELENGTHS = 20;
 
@@ -30,8 +38,14 @@ export const footprintSchema = section({
 });
 
 export const requirementsSchema = section({
-  /** Slit-limited FWHM bandpass, at most this, nm. */
+  /** FWHM bandpass, at most this, nm: slit-limited, or traced when `bandpassBasis` says so. */
   maxBandpassNm: positive(10_000_000, 'nm').optional(),
+  /** Which bandpass `maxBandpassNm` limits; slit-limited when absent. */
+  bandpassBasis: z
+    .enum(BANDPASS_BASES, {
+      error: (issue) => (issue.input === undefined ? 'is required' : 'must be one of slit-limited or traced'),
+    })
+    .optional(),
   /** λ/Δλ (slit and diffraction widths in quadrature), at least this. */
   minResolvingPower: positive(100_000_000, '').optional(),
   /** Where bandpass, resolving power, efficiency and sampling are checked; the whole range when absent. */
@@ -116,6 +130,7 @@ export const requirementWords: Readonly<
   Record<keyof Requirements | 'maxFootprintMm.widthMm' | 'maxFootprintMm.depthMm', { label: string; short: string }>
 > = {
   maxBandpassNm: { label: 'Bandpass at most', short: 'max bandpass (nm)' },
+  bandpassBasis: { label: 'Bandpass judged on', short: 'bandpass basis' },
   minResolvingPower: { label: 'Resolving power at least', short: 'min resolving power' },
   atWavelengthsNm: { label: 'Only at these wavelengths', short: 'at wavelengths (nm)' },
   minBlazeEfficiency: { label: 'Blaze efficiency at least', short: 'min blaze efficiency' },

@@ -3,7 +3,9 @@
  * workbench shows, so a pass here is a pass there. Per-wavelength requirements (bandpass,
  * resolving power, blaze efficiency, pixels per bandpass, reciprocal dispersion) are checked over
  * the range sweep or exactly at `atWavelengthsNm`; the drive's wavelength error and order overlap
- * over the range sweep; the rest from the design summary and the sketch's outline.
+ * over the range sweep; the rest from the design summary and the sketch's outline. A bandpass
+ * limit with `bandpassBasis: 'traced'` is judged on the exact ray trace's FWHM instead, at a few
+ * wavelengths (traced-bandpass.ts).
  */
 
 import type { Design } from '../../shared/design';
@@ -18,6 +20,7 @@ import {
   type WavelengthPoint,
 } from '../solver';
 import { designFootprintMm } from './footprint';
+import { tracedBandpassesAt, tracedRequirementWavelengthsNm } from './traced-bandpass';
 import type { RequirementCheck, RequirementsReport } from './types';
 
 /** Wavelengths a range-wide requirement is checked at: the solver's default sweep, ends included. */
@@ -164,6 +167,11 @@ export function hasRequirements(design: Design): boolean {
   return presentRequirements(design).length > 0;
 }
 
+/** Whether `maxBandpassNm` is judged on the traced FWHM rather than the slit-limited one. */
+export function bandpassIsTraced(requirements: Requirements): boolean {
+  return requirements.bandpassBasis === 'traced';
+}
+
 /** Relative match for "is this one of the listed wavelengths": a plot's sweep may carry rounding. */
 const SAME_WAVELENGTH = 1e-9;
 
@@ -186,7 +194,8 @@ function ruleFails(rule: PointRule, limit: number, point: WavelengthPoint, desig
  * `atWavelengthsNm` are judged only at those wavelengths; an unreachable point fails every
  * wavelength requirement that applies there (and that the design can be judged on: pixels per
  * bandpass needs a detector, blaze efficiency a blaze wavelength); `orderOverlap: 'forbidden'` fails where another
- * order lands.
+ * order lands. A traced bandpass limit is left out: the sweep's points carry no traced figure
+ * (tracing every point would cost the edit its frame), so only `checkRequirements` judges it.
  */
 export function requirementFailsAt(
   requirements: Requirements,
@@ -197,6 +206,7 @@ export function requirementFailsAt(
   for (const rule of POINT_RULES) {
     const limit = rule.limit(requirements);
     if (limit === undefined || !appliesAt(rule, requirements, point.wavelengthNm)) continue;
+    if (rule.id === 'maxBandpassNm' && bandpassIsTraced(requirements)) continue;
     if (rule.missing?.(design, requirements)) continue;
     if (ruleFails(rule, limit, point, design, requirements)) failing.add(rule.id);
   }
@@ -244,7 +254,7 @@ function spansText(spans: readonly (readonly [number, number])[]): string {
 }
 
 /** Contiguous runs of failing points, in the order given (sorted by wavelength). */
-export function failingSpans(points: readonly WavelengthPoint[], fails: (p: WavelengthPoint) => boolean): [number, number][] {
+export function failingSpans<T extends { wavelengthNm: number }>(points: readonly T[], fails: (p: T) => boolean): [number, number][] {
   const spans: [number, number][] = [];
   let open: [number, number] | null = null;
   for (const point of points) {
@@ -528,6 +538,70 @@ function overlapCheck(policy: NonNullable<Requirements['orderOverlap']>, points:
   };
 }
 
+/**
+ * `maxBandpassNm` against the exact trace's FWHM at the listed wavelengths, or at the range's
+ * start, quarter points, centre and end. A wavelength the trace cannot send through, or whose
+ * traced line shape has no half-maximum width, fails with the reason: it never passes unseen.
+ */
+function tracedBandpassCheck(limit: number, design: Design, r: Requirements): RequirementCheck {
+  const text = `traced bandpass ≤ ${valueText(limit, 'nm')}`;
+  const fixPath = 'slits.exitWidthUm';
+  const wavelengthsNm = r.atWavelengthsNm
+    ? [...r.atWavelengthsNm].sort((a, b) => a - b)
+    : tracedRequirementWavelengthsNm(design);
+  const traced = tracedBandpassesAt(design, wavelengthsNm);
+  if (!traced.ok) return unknownCheck('maxBandpassNm', text, limit, `the ray trace could not run: ${traced.reason}`, fixPath);
+  const { points } = traced;
+  const fails = (p: (typeof points)[number]) => !p.reachable || p.fwhmNm === null || p.fwhmNm > limit;
+  const spans = failingSpans(points, fails);
+  let worst: (typeof points)[number] | null = null;
+  for (const point of points) {
+    if (point.fwhmNm !== null && (worst === null || point.fwhmNm > worst.fwhmNm!)) worst = point;
+  }
+  const base = { id: 'maxBandpassNm' as const, limitText: text, limit, failingSpansNm: spans, fixPath };
+  const atWorst =
+    worst === null
+      ? ''
+      : ` (traced bandpass ${valueText(worst.fwhmNm!, 'nm')} at worst where traced, at ${valueText(worst.wavelengthNm, 'nm')})`;
+  const unreachable = points.filter((p) => !p.reachable);
+  if (unreachable.length > 0) {
+    return {
+      ...base,
+      status: 'fail',
+      worst: null,
+      worstWavelengthNm: unreachable[0]!.wavelengthNm,
+      margin: null,
+      message: `traced bandpass unreachable at ${unreachable.map((p) => valueText(p.wavelengthNm, 'nm')).join(', ')}${atWorst}`,
+    };
+  }
+  const unmeasured = points.filter((p) => p.fwhmNm === null);
+  if (unmeasured.length > 0) {
+    return {
+      ...base,
+      status: 'fail',
+      worst: null,
+      worstWavelengthNm: unmeasured[0]!.wavelengthNm,
+      margin: null,
+      message:
+        `the traced line shape has no half-maximum width at ${unmeasured.map((p) => valueText(p.wavelengthNm, 'nm')).join(', ')} ` +
+        `(too little light reaches the exit slit to measure it)${atWorst}`,
+    };
+  }
+  const found = worst!;
+  const margin = requirementMargin('max', found.fwhmNm!, limit);
+  const passes = spans.length === 0;
+  const place = passes ? `at worst (${valueText(found.wavelengthNm, 'nm')})` : `at ${valueText(found.wavelengthNm, 'nm')}`;
+  const slitLimited = found.slitLimitedNm === null ? '' : `; slit-limited ${valueText(found.slitLimitedNm, 'nm')}`;
+  return {
+    ...base,
+    status: passes ? 'pass' : 'fail',
+    worst: found.fwhmNm,
+    worstWavelengthNm: found.wavelengthNm,
+    margin,
+    message: `traced bandpass ${valueText(found.fwhmNm!, 'nm')} ${place}, ${marginWords(margin, 'max')}${slitLimited}`,
+  };
+}
+
 function tally(checks: RequirementCheck[]): RequirementsReport {
   return {
     checks,
@@ -558,7 +632,9 @@ export function checkRequirements(design: Design, options: CheckOptions = {}): R
   for (const id of present) {
     const rule = POINT_RULES.find((candidate) => candidate.id === id);
     const limit = rule?.limit(requirements);
-    if (rule && limit !== undefined) {
+    if (id === 'maxBandpassNm' && limit !== undefined && bandpassIsTraced(requirements)) {
+      checks.push(tracedBandpassCheck(limit, design, requirements));
+    } else if (rule && limit !== undefined) {
       checks.push(pointCheck(rule, limit, rule.scope === 'listed' ? listed : sweep, design, requirements));
     } else if (id === 'maxFNumber' && requirements.maxFNumber !== undefined) {
       checks.push(fNumberCheck(requirements.maxFNumber, summary));

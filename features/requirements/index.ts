@@ -5,6 +5,7 @@
 
 export * from './types';
 export * from './check';
+export * from './traced-bandpass';
 export * from './footprint';
 export * from './design-change';
 export * from './solve-for';

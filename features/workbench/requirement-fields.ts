@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { parseQuantity } from '@/features/solver';
 import type { Requirements } from '@/shared/requirements';
-import { ORDER_OVERLAP_POLICIES, requirementWords } from '@/shared/requirements';
+import { BANDPASS_BASES, ORDER_OVERLAP_POLICIES, requirementWords } from '@/shared/requirements';
 import { formatMachineNumber } from '@/shared/format';
 import type { FieldErrors } from '@/shared/validation';
 
@@ -12,6 +12,8 @@ import type { FieldErrors } from '@/shared/validation';
  */
 export type RequirementsText = {
   maxBandpassNm: string;
+  /** '' is "slit-limited" (the default); a stored 'slit-limited' is kept as typed. */
+  bandpassBasis: '' | (typeof BANDPASS_BASES)[number];
   minResolvingPower: string;
   atWavelengthsNm: string;
   minBlazeEfficiency: string;
@@ -50,7 +52,7 @@ function spec(key: RequirementFieldSpec['key'], reading: RequirementReading, hel
 
 /** The typed requirement fields in the editor's order; the two choices are shown on their own. */
 export const requirementTextFields: readonly RequirementFieldSpec[] = [
-  spec('maxBandpassNm', 'nm', 'Largest slit-limited FWHM bandpass, e.g. 0.5 nm or 5 Å.', 'nm'),
+  spec('maxBandpassNm', 'nm', 'Largest FWHM bandpass, e.g. 0.5 nm or 5 Å; slit-limited or traced as chosen below.', 'nm'),
   spec('minResolvingPower', 'number', 'Smallest λ/Δλ, e.g. 2000.'),
   spec(
     'atWavelengthsNm',
@@ -88,6 +90,16 @@ export const oneShotOptions = [
   { value: 'on', label: 'On', description: 'the detector records the whole range at one grating setting' },
 ] as const;
 
+/** What the bandpass limit is judged on; '' (not stored) shows as slit-limited. */
+export const bandpassBasisOptions = [
+  { value: 'slit-limited', label: 'Slit-limited', description: 'the closed-form FWHM of the slit images, at every checked wavelength' },
+  {
+    value: 'traced',
+    label: 'Traced',
+    description: 'the FWHM of the exact ray trace’s line shape, mirror aberrations included, at the listed wavelengths or five across the range',
+  },
+] as const;
+
 /** The order-overlap policy; '' is "not checked". */
 export const orderOverlapOptions = [
   { value: 'none', label: 'Not checked', description: 'other orders are not looked at' },
@@ -99,6 +111,7 @@ export const orderOverlapOptions = [
 export function blankRequirementsText(): RequirementsText {
   return {
     maxBandpassNm: '',
+    bandpassBasis: '',
     minResolvingPower: '',
     atWavelengthsNm: '',
     minBlazeEfficiency: '',
@@ -126,6 +139,8 @@ type FieldUnit = Parameters<typeof parseQuantity>[1];
 export const requirementsTextSchema = z
   .object({
     maxBandpassNm: text,
+    // Drafts typed before the traced bandpass existed have no such key: slit-limited.
+    bandpassBasis: z.enum(['', ...BANDPASS_BASES]).default(''),
     minResolvingPower: text,
     atWavelengthsNm: text,
     minBlazeEfficiency: text,
@@ -251,6 +266,7 @@ export function requirementsFromText(values: RequirementsText | undefined): {
   }
   if (source.oneShotCoverage !== '') out.oneShotCoverage = source.oneShotCoverage === 'true';
   if (source.orderOverlap !== '') out.orderOverlap = source.orderOverlap;
+  if (source.bandpassBasis !== '') out.bandpassBasis = source.bandpassBasis;
   const empty = Object.keys(out).length === 0;
   return { requirements: empty ? undefined : out, errors };
 }
@@ -264,6 +280,7 @@ export function requirementsToText(requirements: Requirements | undefined): Requ
   const text = blankRequirementsText();
   if (!requirements) return text;
   text.maxBandpassNm = numberText(requirements.maxBandpassNm);
+  text.bandpassBasis = requirements.bandpassBasis ?? '';
   text.minResolvingPower = numberText(requirements.minResolvingPower);
   text.atWavelengthsNm = requirements.atWavelengthsNm?.map((nm) => formatMachineNumber(nm)).join(', ') ?? '';
   text.minBlazeEfficiency = numberText(requirements.minBlazeEfficiency);

@@ -1,4 +1,4 @@
-import { memo, useState } from 'react';
+import { Fragment, memo, useState } from 'react';
 import { useController, type Control } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { Text, TextField } from '@/features/ui';
@@ -6,6 +6,7 @@ import { formatTypedNumber } from '@/shared/format';
 import type { FormValues } from '../form-model';
 import { markEditStart } from '../perf-marks';
 import {
+  bandpassBasisOptions,
   oneShotOptions,
   orderOverlapOptions,
   requirementTextFields,
@@ -105,10 +106,30 @@ function OverlapPicker({ control, readOnly }: { control: Control<FormValues>; re
   );
 }
 
+function BandpassBasisPicker({ control, readOnly }: { control: Control<FormValues>; readOnly: boolean }) {
+  const { field } = useController({ control, name: 'requirements.bandpassBasis' });
+  return (
+    <ChoiceRow
+      label="Bandpass judged on"
+      options={bandpassBasisOptions}
+      value={field.value === 'traced' ? 'traced' : 'slit-limited'}
+      disabled={readOnly}
+      testID="field-requirements.bandpassBasis"
+      onChange={(choice) => {
+        markEditStart();
+        // Slit-limited is the default: the block keeps no basis unless a stored version named one.
+        field.onChange(choice === 'traced' ? 'traced' : field.value === 'slit-limited' ? 'slit-limited' : '');
+      }}
+    />
+  );
+}
+
 /** "bandpass ≤ 0.5 nm · R ≥ 2000 · +3 more" while folded. */
 export function requirementsSummary(text: RequirementsText): string {
   const parts: string[] = [];
-  if (text.maxBandpassNm.trim()) parts.push(`bandpass ≤ ${formatTypedNumber(text.maxBandpassNm)}`);
+  if (text.maxBandpassNm.trim()) {
+    parts.push(`${text.bandpassBasis === 'traced' ? 'traced bandpass' : 'bandpass'} ≤ ${formatTypedNumber(text.maxBandpassNm)}`);
+  }
   if (text.minResolvingPower.trim()) parts.push(`R ≥ ${formatTypedNumber(text.minResolvingPower)}`);
   const typed = requirementTextFields.filter((f) => {
     const value = f.key.startsWith('maxFootprintMm.')
@@ -155,13 +176,15 @@ export const RequirementsEditor = memo(function RequirementsEditor({
         the range beside the results.
       </Text>
       {requirementTextFields.map((field) => (
-        <RequirementInput
-          key={field.path}
-          control={control}
-          field={field}
-          highlighted={highlightedPath === field.path}
-          readOnly={readOnly}
-        />
+        <Fragment key={field.path}>
+          <RequirementInput
+            control={control}
+            field={field}
+            highlighted={highlightedPath === field.path}
+            readOnly={readOnly}
+          />
+          {field.key === 'maxBandpassNm' ? <BandpassBasisPicker control={control} readOnly={readOnly} /> : null}
+        </Fragment>
       ))}
       <OneShotPicker control={control} readOnly={readOnly} />
       <OverlapPicker control={control} readOnly={readOnly} />

@@ -3,7 +3,7 @@ import { formatStoredValue } from '../../../shared/design-values';
 import { formatInteger, formatNumber, formatPercent, formatQuantity } from '../../../shared/format';
 import { formatRequirementsMet, requirementNames } from '../../../shared/notebooks/figure-labels';
 import type { RequirementId } from '../../../shared/requirements';
-import { REQUIREMENT_POINTS, checkRequirements, hasRequirements, type RequirementCheck } from '../../../features/requirements/index';
+import { REQUIREMENT_POINTS, TRACED_REQUIREMENT_RAYS, checkRequirements, hasRequirements, type RequirementCheck } from '../../../features/requirements/index';
 import type { SheetSection } from '../section';
 import { spanTable, spanTableHeight, type SpanTableRow } from '../sheet-text';
 import { margins, sheetColors, textSize, type TableColumn } from '../writer';
@@ -33,7 +33,9 @@ export function limitCell(id: RequirementId, requirements: NonNullable<Design['r
   if (id === 'oneShotCoverage') return 'whole range at one setting';
   if (id === 'orderOverlap') return `other orders ${requirements.orderOverlap}`;
   const sign = id.startsWith('max') ? '≤' : '≥';
-  return `${sign} ${formatStoredValue(path(id), requirements[id])}`;
+  // The basis is part of the limit: a traced 0.5 nm is a different promise from a slit-limited one.
+  const basis = id === 'maxBandpassNm' && requirements.bandpassBasis === 'traced' ? ' traced' : '';
+  return `${sign} ${formatStoredValue(path(id), requirements[id])}${basis}`;
 }
 
 /**
@@ -124,6 +126,14 @@ function scopeLine(params: Design): string {
         `${formatStoredValue(path('atWavelengthsNm'), requirements.atWavelengthsNm)}; wavelength error and overlapping orders over ${sweep}.`
       : `Checked over ${sweep}, with the workbench's solver.`,
   ];
+  if (requirements.maxBandpassNm !== undefined) {
+    lines.push(
+      requirements.bandpassBasis === 'traced'
+        ? `Bandpass basis: traced, the FWHM of the exact ray trace's line shape at ${formatInteger(TRACED_REQUIREMENT_RAYS)} rays per wavelength, ` +
+            `${requirements.atWavelengthsNm ? 'at the listed wavelengths' : "at the range's start, quarter points, centre and end"}.`
+        : 'Bandpass basis: slit-limited, the closed-form FWHM of the slit images.',
+    );
+  }
   if (requirements.driveStepArcsec !== undefined) {
     lines.push(`Wavelength error: one drive step of ${formatStoredValue(path('driveStepArcsec'), requirements.driveStepArcsec)} times the scan sensitivity.`);
   }

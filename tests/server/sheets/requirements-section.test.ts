@@ -120,6 +120,24 @@ describe('the design sheet’s Requirements section', () => {
   });
 });
 
+describe('the Requirements section’s bandpass basis', () => {
+  it('prints the basis: slit-limited by default, traced when asked, beside the limit and in the scope line', async () => {
+    // The scope line wraps: read the section as one run of words.
+    const slitLines = await sectionLines(withRequirements);
+    expect(slitLines.join(' ')).toContain('Bandpass basis: slit-limited, the closed-form FWHM of the slit images.');
+    expect(slitLines).toContainEqual(expect.stringMatching(/^Bandpass Fail ≤ 0\.25 nm /));
+
+    // A generous 10 nm limit so the section is drawn whatever the trace finds: only the words are checked here.
+    const traced: Design = {
+      ...structuredClone(withRequirements),
+      requirements: { maxBandpassNm: 10, atWavelengthsNm: [404.7], bandpassBasis: 'traced' },
+    };
+    const lines = await sectionLines(traced);
+    expect(lines).toContainEqual(expect.stringMatching(/^Bandpass \w+ ≤ 10 nm traced /));
+    expect(lines.join(' ')).toContain("Bandpass basis: traced, the FWHM of the exact ray trace's line shape at 1500 rays per wavelength, at the listed wavelengths.");
+  });
+});
+
 describe('the compare sheet with requirements', () => {
   it('lists the requirements under their own heading, the wavelength list as its items, and the met count with its change in words', async () => {
     const after: Design = {

@@ -1,0 +1,76 @@
+/**
+ * The traced FWHM bandpass a `bandpassBasis: 'traced'` requirement is judged on. Tracing costs far
+ * more than the closed forms (the check runs on every edit), so it is done at few wavelengths with
+ * a modest ray count: at `atWavelengthsNm` when listed, else at the range's start, quarter points,
+ * centre and end — never the whole sweep.
+ */
+
+import type { Design } from '../../shared/design';
+import { TRACE_LIMITS } from '../../shared/trace';
+import { traceDesign } from '../trace/index';
+
+/**
+ * Rays per traced wavelength for the requirement: enough for the line shape's half-maximum to
+ * settle to a few per cent, a fraction of the trace card's default (TRACE_LIMITS.defaultRays).
+ */
+export const TRACED_REQUIREMENT_RAYS = 1500;
+
+/** One wavelength's traced bandpass; `fwhmNm` null where the trace finds no half-maximum width. */
+export interface TracedBandpass {
+  wavelengthNm: number;
+  reachable: boolean;
+  fwhmNm: number | null;
+  slitLimitedNm: number | null;
+}
+
+export type TracedBandpasses = { ok: true; points: TracedBandpass[] } | { ok: false; reason: string };
+
+/** Range start, quarter points, centre and end: the shape of the blur across the range at five traces. */
+export function tracedRequirementWavelengthsNm(design: Design): number[] {
+  const { startNm, endNm } = design.range;
+  return [0, 0.25, 0.5, 0.75, 1].map((share) => startNm + share * (endNm - startNm));
+}
+
+/** Relative match for "the traced wavelength is this one": the engine may carry rounding. */
+const SAME_WAVELENGTH = 1e-9;
+
+/**
+ * The traced FWHM at `wavelengthsNm` (ascending order kept as given), or why the trace could not
+ * run. The engine adds the range's start, centre and end to what it is asked for and takes at
+ * most `TRACE_LIMITS.maxWavelengths` extra ones per call, so longer lists are traced in chunks.
+ */
+export function tracedBandpassesAt(
+  design: Design,
+  wavelengthsNm: readonly number[],
+  rays = TRACED_REQUIREMENT_RAYS,
+): TracedBandpasses {
+  const { startNm, endNm } = design.range;
+  const centreNm = (startNm + endNm) / 2;
+  const isAlwaysTraced = (nm: number) => [startNm, centreNm, endNm].some((at) => Math.abs(at - nm) <= SAME_WAVELENGTH * at);
+  const asked = wavelengthsNm.filter((nm) => !isAlwaysTraced(nm));
+  const chunks: number[][] = [];
+  for (let i = 0; i < asked.length; i += TRACE_LIMITS.maxWavelengths) chunks.push(asked.slice(i, i + TRACE_LIMITS.maxWavelengths));
+  if (chunks.length === 0) chunks.push([]);
+  const traced: TracedBandpass[] = [];
+  try {
+    for (const atNm of chunks) {
+      const report = traceDesign(design, { rays, ...(atNm.length > 0 ? { atNm } : {}) });
+      for (const w of report.wavelengths) {
+        traced.push({
+          wavelengthNm: w.wavelengthNm,
+          reachable: w.reachable,
+          fwhmNm: w.reachable && w.tracedFwhmNm !== null && Number.isFinite(w.tracedFwhmNm) ? w.tracedFwhmNm : null,
+          slitLimitedNm: w.reachable && Number.isFinite(w.slitLimitedFwhmNm) ? w.slitLimitedFwhmNm : null,
+        });
+      }
+    }
+  } catch (error) {
+    return { ok: false, reason: error instanceof Error ? error.message : String(error) };
+  }
+  const points = wavelengthsNm.map((nm): TracedBandpass => {
+    const found = traced.find((t) => Math.abs(t.wavelengthNm - nm) <= SAME_WAVELENGTH * Math.max(nm, 1));
+    // A wavelength the engine did not answer for is not silently dropped: it reads as untraced.
+    return found ? { ...found, wavelengthNm: nm } : { wavelengthNm: nm, reachable: true, fwhmNm: null, slitLimitedNm: null };
+  });
+  return { ok: true, points };
+}
