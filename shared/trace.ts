@@ -41,6 +41,8 @@ export type TraceOptions = z.infer<typeof traceOptionsSchema>;
  * slit's plane, or the detector's): x along the dispersion, positive toward longer wavelengths;
  * y along the slit, positive toward the top of the entrance slit's image; both in mm from the
  * exit slit's centre. `bestFocusShiftMm` is along the chief ray, positive away from the camera.
+ * The counts and the centroid are of the whole entrance slit's image; the RMS width and height are
+ * of the spot from the slit's centre point (the blur the optics add to a point).
  */
 export const tracedWavelengthSchema = z.strictObject({
   wavelengthNm: z.number(),

@@ -1,10 +1,420 @@
-import type { Design } from '../../shared/design';
-import type { TraceOptions } from '../../shared/trace';
-import type { TraceReport } from './types';
+/**
+ * The exact trace of a design at a few wavelengths: spot diagrams from three points of the
+ * entrance slit, the whole slit's image scanned by the exit slit (the traced line shape and its
+ * FWHM), the slit image's bow, the foci, coma, the dispersion as traced, and for a spectrograph
+ * the detector tilt that follows the foci.
+ *
+ * Monochromator (no detector): the grating is turned to each traced wavelength, which then lands
+ * on the exit slit. Spectrograph (a detector): the grating stays at the range centre and the
+ * wavelengths spread across the detector.
+ *
+ * Rays are spread by a Halton sequence (bases 2, 3, 5, 7: slit across, slit along, pupil across,
+ * pupil along), so a trace is repeatable and smooth with few rays; the pupil is the grating's
+ * ruled area as the collimator sees it (`W cos α` across, `H` along), filled to 98 %.
+ */
 
-/** Being written by the lead: traces `design` (placeholder until the engine lands). */
-export function traceDesign(design: Design, options: TraceOptions = {}): TraceReport {
-  void design;
-  void options;
-  throw new Error('the ray trace is not written yet');
+import type { Design } from '../../shared/design';
+import { TRACE_LIMITS, type TraceOptions } from '../../shared/trace';
+import { UM_PER_MM, evaluatePoint, prepareDesign, summarizeDesign } from '../solver';
+import { tracedLineShape } from './line-shape';
+import {
+  add3,
+  buildMount,
+  cross3,
+  gratingAt,
+  norm3,
+  scale3,
+  sub3,
+  unit3,
+  v3,
+  type GratingSurface,
+  type ImagePlane,
+  type Mount,
+} from './optical-system';
+import { rmsWidthAt, spotMoments } from './spot-statistics';
+import { FATE, allocateBundle, traceBundle, traceChief, type RayBundle } from './trace-bundle';
+import type { DetectorTilt, SlitHeightRole, Spot, TraceReport, TracedWavelength } from './types';
+
+/** Share of the grating's projected area the launched pupil covers, per side. */
+const PUPIL_FILL = 0.98;
+/** Through-focus samples. */
+const FOCUS_SAMPLES = 21;
+/** A bow below this (mm) needs no curved slit. */
+const STRAIGHT_ENOUGH_MM = 1e-6;
+
+function radicalInverse(index: number, base: number): number {
+  let f = 1;
+  let r = 0;
+  let i = index;
+  while (i > 0) {
+    f /= base;
+    r += f * (i % base);
+    i = Math.floor(i / base);
+  }
+  return r;
 }
+
+/** How the trace is set up for one grating setting. */
+interface Setting {
+  mount: Mount;
+  grating: GratingSurface;
+  image: ImagePlane;
+  /** Entrance-slit offset across the slit at height t (the curved slit), mm. */
+  curve: (heightMm: number) => number;
+}
+
+/** Points on the entrance slit (across s, along t) and on the pupil (a, b) into a bundle. */
+function launch(setting: Setting, count: number, point: (i: number) => { s: number; t: number; a: number; b: number }): RayBundle {
+  const { launch: L } = setting.mount;
+  const bundle = allocateBundle(count);
+  const cosAlpha = Math.cos(setting.grating.incidenceRad);
+  const pupilWidth = setting.mount.ruledWidthMm * cosAlpha * PUPIL_FILL;
+  const pupilHeight = setting.mount.ruledHeightMm * PUPIL_FILL;
+  for (let i = 0; i < count; i++) {
+    const { s, t, a, b } = point(i);
+    const across = s + setting.curve(t);
+    const ox = L.slitCentre.x + across * L.slitAcross.x + t * L.slitAlong.x;
+    const oy = L.slitCentre.y + across * L.slitAcross.y + t * L.slitAlong.y;
+    const oz = L.slitCentre.z + across * L.slitAcross.z + t * L.slitAlong.z;
+    const tx = L.pupilCentre.x + a * pupilWidth * L.pupilAcross.x;
+    const ty = L.pupilCentre.y + a * pupilWidth * L.pupilAcross.y;
+    const tz = L.pupilCentre.z + a * pupilWidth * L.pupilAcross.z + b * pupilHeight;
+    const ex = tx - ox;
+    const ey = ty - oy;
+    const ez = tz - oz;
+    const k = 1 / Math.sqrt(ex * ex + ey * ey + ez * ez);
+    bundle.ox[i] = ox;
+    bundle.oy[i] = oy;
+    bundle.oz[i] = oz;
+    bundle.dx[i] = ex * k;
+    bundle.dy[i] = ey * k;
+    bundle.dz[i] = ez * k;
+  }
+  return bundle;
+}
+
+/** One ray from the slit point (s, t) through the pupil's centre, to the image plane: its x and y, or null. */
+function chiefXY(setting: Setting, wavelengthNm: number, s: number, t: number): { x: number; y: number; distanceMm: number } | null {
+  const bundle = launch(setting, 1, () => ({ s, t, a: 0, b: 0 }));
+  if (traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, bundle) !== 1) return null;
+  const { point, xAxis, yAxis } = setting.image;
+  const crossing = add3(point, add3(scale3(xAxis, bundle.x[0]!), scale3(yAxis, bundle.y[0]!)));
+  const distanceMm = norm3(sub3(crossing, v3(bundle.ox[0]!, bundle.oy[0]!, bundle.oz[0]!)));
+  return { x: bundle.x[0]!, y: bundle.y[0]!, distanceMm };
+}
+
+/**
+ * The image plane: normal to the centre wavelength's chief ray off the camera, at the camera's
+ * tangential focus `(R/2) cos θ₂` from it; x toward longer wavelengths, y toward the image of the
+ * slit's top. Null when the centre wavelength cannot be traced.
+ */
+function imagePlaneOf(mount: Mount, grating: GratingSurface, centreNm: number): ImagePlane | null {
+  const { slitCentre, pupilCentre } = mount.launch;
+  const chief = traceChief(mount, grating, centreNm, slitCentre, pupilCentre);
+  if (!chief) return null;
+  const normal = unit3(chief.direction);
+  const distance = (mount.camera.radiusMm / 2) * Math.cos(chief.cameraIncidenceRad);
+  const point = add3(chief.cameraHit, scale3(normal, distance));
+  let xAxis = unit3(cross3(v3(0, 0, 1), normal));
+  let yAxis = cross3(normal, xAxis);
+  const plane = (): ImagePlane => ({ point, normal, xAxis, yAxis });
+  const probe: Setting = { mount, grating, image: plane(), curve: () => 0 };
+  const dλ = centreNm * 1e-4;
+  const longer = chiefXY(probe, centreNm + dλ, 0, 0);
+  const shorter = chiefXY(probe, centreNm - dλ, 0, 0);
+  if (longer && shorter && longer.x < shorter.x) xAxis = scale3(xAxis, -1);
+  yAxis = cross3(normal, xAxis);
+  const top = chiefXY({ ...probe, image: plane() }, centreNm, 0, mount.launch.slitHeightMm / 2);
+  if (top && top.y < 0) yAxis = scale3(yAxis, -1);
+  return plane();
+}
+
+function spotOf(bundle: RayBundle, role: SlitHeightRole, slitHeightMm: number): Spot {
+  const m = spotMoments(bundle);
+  const n = m.n;
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  let k = 0;
+  for (let i = 0; i < bundle.count; i++) {
+    if (bundle.fate[i] !== FATE.arrived) continue;
+    x[k] = bundle.x[i]!;
+    y[k] = bundle.y[i]!;
+    k++;
+  }
+  return {
+    role,
+    slitHeightMm,
+    x,
+    y,
+    centroidMm: { x: m.meanX, y: m.meanY },
+    rmsWidthMm: m.rmsX,
+    rmsHeightMm: m.rmsY,
+    comaSkew: m.rmsXAtFocus > 0 ? m.thirdX / m.rmsXAtFocus ** 3 : 0,
+    comaMm: Math.cbrt(m.thirdX),
+    raysLaunched: bundle.count,
+    raysVignetted: bundle.count - n,
+  };
+}
+
+/** A wavelength that cannot be traced: marked, with nothing measured. */
+function unreachable(wavelengthNm: number, role: TracedWavelength['role'], slitLimitedFwhmNm: number): TracedWavelength {
+  const empty = new Float64Array(0);
+  return {
+    wavelengthNm,
+    role,
+    reachable: false,
+    spots: [],
+    raysLaunched: 0,
+    raysTraced: 0,
+    raysVignetted: 0,
+    centroidMm: { x: 0, y: 0 },
+    rmsWidthMm: 0,
+    rmsHeightMm: 0,
+    lineShape: { offsetNm: empty, traced: empty, closedForm: empty },
+    tracedFwhmNm: null,
+    slitLimitedFwhmNm,
+    curvatureSagittaMm: 0,
+    tracedLinearDispersionMmPerNm: 0,
+    cameraToImageMm: 0,
+    bestFocusShiftMm: 0,
+    tangentialFocusShiftMm: 0,
+    sagittalFocusShiftMm: 0,
+    astigmatismMm: 0,
+    throughFocus: { shiftMm: empty, rmsWidthMm: empty },
+  };
+}
+
+function traceWavelength(
+  design: Design,
+  setting: Setting,
+  wavelengthNm: number,
+  role: TracedWavelength['role'],
+  rays: number,
+): TracedWavelength {
+  const point = evaluatePoint(prepareDesign(design), wavelengthNm);
+  const slitLimitedFwhmNm = point.bandpassNm ?? 0;
+  const chief = chiefXY(setting, wavelengthNm, 0, 0);
+  if (!chief || !point.slitFunction) return unreachable(wavelengthNm, role, slitLimitedFwhmNm);
+
+  // Spots: a point at the slit's centre line, at its middle and both ends.
+  const h = setting.mount.launch.slitHeightMm;
+  const spotRays = Math.max(50, Math.round(rays / 4));
+  const pupil = (i: number) => ({ a: radicalInverse(i + 1, 2) - 0.5, b: radicalInverse(i + 1, 3) - 0.5 });
+  const heights: [SlitHeightRole, number][] = [
+    ['centre', 0],
+    ['top', h / 2],
+    ['bottom', -h / 2],
+  ];
+  let centreMoments: ReturnType<typeof spotMoments> | null = null;
+  const spots = heights.map(([spotRole, t]) => {
+    const bundle = launch(setting, spotRays, (i) => ({ s: 0, t, ...pupil(i) }));
+    traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, bundle);
+    if (spotRole === 'centre') centreMoments = spotMoments(bundle);
+    return spotOf(bundle, spotRole, t);
+  });
+  const centre = centreMoments as ReturnType<typeof spotMoments> | null;
+
+  // The whole slit, for the line shape.
+  const w = setting.mount.launch.slitWidthMm;
+  const whole = launch(setting, rays, (i) => ({
+    s: (radicalInverse(i + 1, 5) - 0.5) * w,
+    t: (radicalInverse(i + 1, 7) - 0.5) * h,
+    a: radicalInverse(i + 1, 2) - 0.5,
+    b: radicalInverse(i + 1, 3) - 0.5,
+  }));
+  const arrived = traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, whole);
+  const wholeMoments = spotMoments(whole);
+  const xs = new Float64Array(arrived);
+  for (let i = 0, k = 0; i < whole.count; i++) if (whole.fate[i] === FATE.arrived) xs[k++] = whole.x[i]!;
+
+  // Traced dispersion: the chief ray at λ ± δ through the same grating setting.
+  const dλ = wavelengthNm * 1e-5;
+  const up = chiefXY(setting, wavelengthNm + dλ, 0, 0);
+  const down = chiefXY(setting, wavelengthNm - dλ, 0, 0);
+  const dispersion = up && down ? (up.x - down.x) / (2 * dλ) : 0;
+  const exitWidthMm = design.slits.exitWidthUm / UM_PER_MM;
+  const { lineShape, fwhmNm } =
+    dispersion !== 0 && arrived > 0
+      ? tracedLineShape(xs, exitWidthMm, dispersion, point.slitFunction)
+      : { lineShape: unreachable(wavelengthNm, role, 0).lineShape, fwhmNm: null };
+
+  const [mid, top, bottom] = spots as [Spot, Spot, Spot];
+  const sagitta = top.raysLaunched > top.raysVignetted && bottom.raysLaunched > bottom.raysVignetted
+    ? (top.centroidMm.x + bottom.centroidMm.x) / 2 - mid.centroidMm.x
+    : 0;
+  const tangential = centre?.focusShiftX ?? 0;
+  const sagittal = centre?.focusShiftY ?? 0;
+  const span = Math.max(2 * Math.abs(tangential), 2 * Math.abs(sagittal), 1e-3 * setting.mount.camera.radiusMm);
+  const shiftMm = new Float64Array(FOCUS_SAMPLES);
+  const rmsWidthMm = new Float64Array(FOCUS_SAMPLES);
+  for (let k = 0; k < FOCUS_SAMPLES; k++) {
+    shiftMm[k] = -span + (2 * span * k) / (FOCUS_SAMPLES - 1);
+    rmsWidthMm[k] = centre ? rmsWidthAt(centre, shiftMm[k]!) : 0;
+  }
+  return {
+    wavelengthNm,
+    role,
+    reachable: true,
+    spots,
+    raysLaunched: whole.count,
+    raysTraced: arrived,
+    raysVignetted: whole.count - arrived,
+    centroidMm: { x: wholeMoments.meanX, y: wholeMoments.meanY },
+    rmsWidthMm: mid.rmsWidthMm,
+    rmsHeightMm: mid.rmsHeightMm,
+    lineShape,
+    tracedFwhmNm: fwhmNm,
+    slitLimitedFwhmNm,
+    curvatureSagittaMm: sagitta,
+    tracedLinearDispersionMmPerNm: dispersion,
+    cameraToImageMm: chief.distanceMm,
+    bestFocusShiftMm: tangential,
+    tangentialFocusShiftMm: tangential,
+    sagittalFocusShiftMm: sagittal,
+    astigmatismMm: sagittal - tangential,
+    throughFocus: { shiftMm, rmsWidthMm },
+  };
+}
+
+/** The wavelengths to trace: the range's start, centre and end, then those asked for, in order, no repeats. */
+export function traceWavelengths(design: Design, atNm: readonly number[] = []): { wavelengthNm: number; role: TracedWavelength['role'] }[] {
+  const { startNm, endNm } = design.range;
+  const list: { wavelengthNm: number; role: TracedWavelength['role'] }[] = [
+    { wavelengthNm: startNm, role: 'start' },
+    { wavelengthNm: (startNm + endNm) / 2, role: 'centre' },
+    { wavelengthNm: endNm, role: 'end' },
+  ];
+  for (const nm of atNm.slice(0, TRACE_LIMITS.maxWavelengths)) {
+    if (!list.some((w) => Math.abs(w.wavelengthNm - nm) < 1e-9)) list.push({ wavelengthNm: nm, role: 'asked' });
+  }
+  return list.sort((a, b) => a.wavelengthNm - b.wavelengthNm);
+}
+
+/**
+ * The straightening curve: the entrance slit bent so its image's bow at the centre wavelength is
+ * undone. The image bows by `c (2t/h)²` at slit height t; a slit point moved across by `u` moves
+ * its image by `M u` (M the traced width magnification, signed), so each point moves by
+ * `−c (2t/h)² / M`: a parabola of radius `(h/2)² M / (2c)` in magnitude.
+ */
+function straightening(setting: Setting, centreNm: number, sagittaMm: number): { radiusMm: number | null; curve: (t: number) => number } {
+  const h = setting.mount.launch.slitHeightMm;
+  const eps = Math.max(1e-4, setting.mount.launch.slitWidthMm / 4);
+  const plus = chiefXY(setting, centreNm, eps, 0);
+  const minus = chiefXY(setting, centreNm, -eps, 0);
+  const magnification = plus && minus ? (plus.x - minus.x) / (2 * eps) : 0;
+  if (Math.abs(sagittaMm) < STRAIGHT_ENOUGH_MM || magnification === 0 || h <= 0) return { radiusMm: null, curve: () => 0 };
+  const k = -sagittaMm / magnification;
+  return {
+    radiusMm: ((h / 2) ** 2) / (2 * Math.abs(k)),
+    curve: (t: number) => k * ((2 * t) / h) ** 2,
+  };
+}
+
+/** Wavelengths spread over the detector at the centre setting (inside the range) for its tilt. */
+const TILT_SAMPLES = 5;
+
+/**
+ * The flat detector's best tilt: the grating at the range centre, point sources at the slit's
+ * centre at five wavelengths spread over the detector (inside the range), and the least-squares
+ * line through their tangential foci against their x.
+ */
+function detectorTiltOf(design: Design, setting: Setting, rays: number): DetectorTilt | null {
+  const coverage = summarizeDesign(design).detector;
+  if (!coverage) return null;
+  const lo = Math.max(design.range.startNm, coverage.startNm ?? design.range.startNm);
+  const hi = Math.min(design.range.endNm, coverage.endNm ?? design.range.endNm);
+  if (!(hi > lo)) return null;
+  const spotRays = Math.max(50, Math.round(rays / 4));
+  const pts: { x: number; moments: ReturnType<typeof spotMoments> }[] = [];
+  for (let k = 0; k < TILT_SAMPLES; k++) {
+    const nm = lo + ((hi - lo) * (k + 0.5)) / TILT_SAMPLES;
+    const bundle = launch(setting, spotRays, (i) => ({ s: 0, t: 0, a: radicalInverse(i + 1, 2) - 0.5, b: radicalInverse(i + 1, 3) - 0.5 }));
+    traceBundle(setting.mount, setting.grating, setting.image, nm, bundle);
+    const moments = spotMoments(bundle);
+    if (moments.n > 0) pts.push({ x: moments.meanX, moments });
+  }
+  if (pts.length < 2) return null;
+  const xs = pts.map((p) => p.x);
+  const zs = pts.map((p) => p.moments.focusShiftX);
+  const n = xs.length;
+  const mx = xs.reduce((a, b) => a + b, 0) / n;
+  const mz = zs.reduce((a, b) => a + b, 0) / n;
+  let sxx = 0;
+  let sxz = 0;
+  for (let i = 0; i < n; i++) {
+    sxx += (xs[i]! - mx) ** 2;
+    sxz += (xs[i]! - mx) * (zs[i]! - mz);
+  }
+  if (sxx === 0) return null;
+  const slope = sxz / sxx;
+  const flat = pts.reduce((sum, p) => sum + rmsWidthAt(p.moments, 0), 0) / n;
+  const tilted = pts.reduce((sum, p, i) => sum + rmsWidthAt(p.moments, mz + slope * (xs[i]! - mx)), 0) / n;
+  return {
+    bestTiltDeg: (Math.atan(slope) * 180) / Math.PI,
+    rmsWidthFlatMm: flat,
+    rmsWidthTiltedMm: tilted,
+    gain: flat > 0 ? 1 - tilted / flat : 0,
+  };
+}
+
+/**
+ * Traces `design` at its range's start, centre and end and at `options.atNm`. Never throws on a
+ * schema-valid design: a wavelength that cannot be traced is marked unreachable.
+ */
+export function traceDesign(design: Design, options: TraceOptions = {}): TraceReport {
+  const rays = Math.min(TRACE_LIMITS.maxRays, Math.max(TRACE_LIMITS.minRays, Math.round(options.rays ?? TRACE_LIMITS.defaultRays)));
+  // A detector that holds the whole range at one setting makes a spectrograph: the grating stays
+  // at the range centre. Otherwise the grating turns to each wavelength, as a scanning instrument's does.
+  const mode: TraceReport['mode'] = summarizeDesign(design).detector?.coversRange ? 'spectrograph' : 'monochromator';
+  const mount = buildMount(design);
+  const centreNm = (design.range.startNm + design.range.endNm) / 2;
+  const wanted = traceWavelengths(design, options.atNm);
+  const exitSlit = { widthMm: design.slits.exitWidthUm / UM_PER_MM, heightMm: design.slits.heightMm };
+  const pixel = design.detector ? { widthMm: design.detector.pixelPitchUm / UM_PER_MM } : null;
+  const base = {
+    imagePlane:
+      mount.kind === 'littrow'
+        ? 'normal to the centre wavelength’s chief ray, at the mirror’s tangential focus (R/2)·cos θ below the grating'
+        : 'normal to the centre wavelength’s chief ray, at the camera’s tangential focus f₂·cos θ₂',
+    mode,
+    raysPerWavelength: rays,
+    exitSlit,
+    pixel,
+  };
+  const centreGrating = gratingAt(design, centreNm);
+  const image = centreGrating ? imagePlaneOf(mount, centreGrating, centreNm) : null;
+  if (!centreGrating || !image) {
+    return {
+      ...base,
+      wavelengths: wanted.map((w) => unreachable(w.wavelengthNm, w.role, evaluatePoint(prepareDesign(design), w.wavelengthNm).bandpassNm ?? 0)),
+      straighteningRadiusMm: null,
+      curvedEntrance: false,
+      detectorTilt: null,
+    };
+  }
+  const straight: Setting = { mount, grating: centreGrating, image, curve: () => 0 };
+  // The centre's bow, from two point sources at the slit's ends, sets the straightening curve.
+  const h = mount.launch.slitHeightMm;
+  const topX = chiefXY(straight, centreNm, 0, h / 2);
+  const bottomX = chiefXY(straight, centreNm, 0, -h / 2);
+  const midX = chiefXY(straight, centreNm, 0, 0);
+  const chiefSagitta = topX && bottomX && midX ? (topX.x + bottomX.x) / 2 - midX.x : 0;
+  const { radiusMm, curve } = straightening(straight, centreNm, chiefSagitta);
+  const curvedEntrance = options.curvedEntrance === true && radiusMm !== null;
+
+  const traced = wanted.map(({ wavelengthNm, role }) => {
+    const grating = mode === 'monochromator' ? gratingAt(design, wavelengthNm) : centreGrating;
+    if (!grating) {
+      return unreachable(wavelengthNm, role, evaluatePoint(prepareDesign(design), wavelengthNm).bandpassNm ?? 0);
+    }
+    return traceWavelength(design, { mount, grating, image, curve: curvedEntrance ? curve : () => 0 }, wavelengthNm, role, rays);
+  });
+  return {
+    ...base,
+    wavelengths: traced,
+    straighteningRadiusMm: radiusMm,
+    curvedEntrance,
+    detectorTilt: design.detector ? detectorTiltOf(design, straight, rays) : null,
+  };
+}
+

@@ -47,11 +47,13 @@ export interface TracedWavelength {
   /** False when the grating cannot send it through the mount (nothing else is filled in then). */
   reachable: boolean;
   spots: Spot[];
-  /** Rays over the whole entrance slit (width × height) for the line shape. */
+  /** Rays over the whole entrance slit (width × height) for the line shape, the counts and the centroid. */
   raysLaunched: number;
   raysTraced: number;
   raysVignetted: number;
+  /** Centroid of the whole slit's image. */
   centroidMm: { x: number; y: number };
+  /** RMS width and height of the centre spot (a point at the slit's centre): the blur the optics add. */
   rmsWidthMm: number;
   rmsHeightMm: number;
   lineShape: LineShape;
@@ -72,7 +74,10 @@ export interface TracedWavelength {
   throughFocus: { shiftMm: Float64Array; rmsWidthMm: Float64Array };
 }
 
-/** A spectrograph's flat detector: the tilt that follows the tangential foci across the range. */
+/**
+ * A design's flat detector (grating at the range centre): the tilt that follows the tangential
+ * foci across the detector, from five wavelengths spread over it inside the range.
+ */
 export interface DetectorTilt {
   /** Rotation of the detector about the slit direction, degrees; positive turns its long-wavelength end away from the camera. */
   bestTiltDeg: number;
@@ -86,6 +91,11 @@ export interface DetectorTilt {
 export interface TraceReport {
   /** What the image plane is, in words (e.g. the camera's tangential focus f₂ cos θ₂). */
   imagePlane: string;
+  /**
+   * 'spectrograph' when a detector holds the whole range at one grating setting (the grating stays
+   * at the range centre); otherwise 'monochromator' (the grating turns to each traced wavelength,
+   * which then lands on the exit slit's centre).
+   */
   mode: 'monochromator' | 'spectrograph';
   raysPerWavelength: number;
   wavelengths: TracedWavelength[];
