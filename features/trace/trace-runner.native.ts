@@ -1,0 +1,1 @@
+export { createMainThreadTraceRunner as createTraceRunner, type TraceRunner } from './trace-main-thread';
