@@ -29,10 +29,13 @@ export const USAGE = `usage: npm run --silent trace -- <design.json | -> [--at 4
   --rays             rays per wavelength, ${TRACE_LIMITS.minRays} to ${TRACE_LIMITS.maxRays} (default ${TRACE_LIMITS.defaultRays}), spread over the
                      entrance slit and the collimator's aperture
   --curved-entrance  bend the entrance slit to the arc that straightens its image
-The design is the JSON POST /api/solve takes as "design". Prints POST /api/trace's answer:
+The design is the JSON POST /api/solve takes as "design"; with a detector that holds the whole
+range it is traced as a spectrograph (the grating stays at the range's centre), otherwise as a
+monochromator turned to each wavelength. Prints POST /api/trace's answer:
   wavelengths   per traced wavelength:
     wavelengthNm, raysTraced, raysVignetted   raysTraced + raysVignetted = rays launched
-    centroidMm { x, y }, rmsWidthMm (x), rmsHeightMm (y)
+    centroidMm { x, y }             the centroid of the whole entrance slit's image
+    rmsWidthMm, rmsHeightMm         RMS spread in x and in y of the spot from the slit's centre point
     tracedFwhmNm                    FWHM of the traced line shape (null: no clear peak)
     curvatureSagittaMm              x at the slit image's ends minus x at its centre
     tracedLinearDispersionMmPerNm   the traced linear dispersion, mm per nm

@@ -5,11 +5,12 @@ import { defaultRateLimits, type RateLimits } from '../auth/rate-limit';
 
 /**
  * `POST /api/trace` calls per IP per `solveWindowMs`. The largest request traces 50,000 rays at
- * each of up to 11 wavelengths (8 asked for and the range's start, centre and end); 30 a minute
- * keeps one address to a small share of the server's one thread (`npm run bench:trace` times the
- * rays), and a lab script sweeping designs rarely traces more than once every two seconds.
+ * each of 11 wavelengths (8 asked for and the range's start, centre and end; 1.75 × that with the
+ * spots): measured on this shared 2-core machine, 1.0–2.4 s of the thread (median 1.7 s of 5, under
+ * a load of 7; the default 4,000 rays take a tenth of that). 10 a minute holds one address to about
+ * the solver's share (120 × < 0.1 s); revisit once `npm run bench:trace` shows the engine faster.
  */
-export const TRACE_PER_IP = 30;
+export const TRACE_PER_IP = 10;
 
 /**
  * The limits the trace route reads: the app's (`AppDeps.rateLimits`) and its own `tracePerIp`,

@@ -59,8 +59,9 @@ export const trace = {
       'Axes in the image plane (`imagePlane` says which: the exit slit, or a spectrograph’s detector): x along the dispersion, ' +
       'positive toward longer wavelengths; y along the slit, positive toward the top of the entrance slit’s image; both in mm from ' +
       'the exit slit’s centre. `bestFocusShiftMm` is along the chief ray, positive away from the camera mirror. ' +
+      '`centroidMm` is the whole entrance slit’s image; `rmsWidthMm` and `rmsHeightMm` the spot from the slit’s centre point. ' +
       '`raysTraced + raysVignetted` is every ray launched for the wavelength.\n\n' +
-      'A bad field is a 400 naming it (`rays`, `atNm.0`, `design.slits.heightMm`). 30 calls a minute per address, then 429 `rate_limited`.',
+      'A bad field is a 400 naming it (`rays`, `atNm.0`, `design.slits.heightMm`). 10 calls a minute per address, then 429 `rate_limited`.',
     access: { kind: 'anyone' },
     originExempt: true,
     body: traceRequestSchema,

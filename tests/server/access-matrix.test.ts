@@ -125,6 +125,7 @@ const matrix: Record<string, Row> = {
       },
     }),
   },
+  'trace.run': { prepare: async () => ({ body: { design: exampleDesign, atNm: [500], rays: 200 } }) },
   'selectors.run': { prepare: async () => ({ body: { kind: 'prism', material: 'fused-silica', apexDeg: 60, baseMm: 50, wavelengthsNm: [587.6] } }) },
 
   'accounts.session': {},

@@ -4,6 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../shared/api-error';
 import { exampleDesign } from '../../shared/design';
+import type { TraceRateLimits } from '../../server/trace/rate-limit';
 import { listRoutes } from '../support/routes';
 import { testOrigin } from '../support/test-app';
 import { createNotebookFixture, type NotebookFixture } from './notebooks/fixture';
@@ -113,6 +114,9 @@ function bodies(base: unknown): fc.Arbitrary<unknown> {
 
 type Target = { params?: Record<string, string>; body: unknown; as: 'owner' | 'reviewer' | 'anonymous' };
 
+/** The trace's allowance, kept beside its route until `RateLimits` holds it. */
+const unlimitedTraces: TraceRateLimits = { tracePerIp: 1e9 };
+
 let fx: NotebookFixture;
 let server: Server;
 const cookies: Record<'owner' | 'reviewer', string> = { owner: '', reviewer: '' };
@@ -120,7 +124,7 @@ let targets: Record<string, Target>;
 
 beforeAll(async () => {
   fx = await createNotebookFixture({
-    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9, curveUploadsPerIp: 1e9 },
+    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9, curveUploadsPerIp: 1e9, ...unlimitedTraces },
   });
   server = createServer(fx.ctx.app).listen(0, '127.0.0.1');
   for (const who of ['owner', 'reviewer'] as const) {
@@ -167,6 +171,8 @@ beforeAll(async () => {
         exitWidthUm: 50,
       },
     },
+    // Few rays and a curved entrance slit, so a thousand bodies that pass stay quick and reach the arc's code.
+    'POST /api/trace': { as: 'anonymous', body: { design: filteredDesign, atNm: [450], rays: 200, curvedEntrance: true } },
     'POST /api/auth/sign-up': { as: 'anonymous', body: { email: 'fuzz@example.com', displayName: 'Fuzz', password: 'a long enough password' } },
     'POST /api/auth/sign-in': { as: 'anonymous', body: { email: fx.viewer.user.email, password: fx.viewer.password } },
     'POST /api/auth/password-reset': { as: 'anonymous', body: { email: fx.viewer.user.email } },
@@ -237,6 +243,7 @@ describe.each([
   'POST /api/solve',
   'POST /api/search',
   'POST /api/selectors',
+  'POST /api/trace',
   'POST /api/auth/sign-up',
   'POST /api/auth/sign-in',
   'POST /api/auth/password-reset',
