@@ -1,5 +1,6 @@
 import Ajv2020 from 'ajv/dist/2020.js';
 import addFormats from 'ajv-formats';
+import * as fc from 'fast-check';
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import request from 'supertest';
@@ -28,6 +29,9 @@ afterAll(() => database?.close());
 
 /** The example design as a monochromator: without a detector, an exit slit. */
 const { detector: _detector, ...monochromator } = exampleDesign;
+
+/** A spectrograph: 2048 pixels of 25 µm (51.2 mm) hold 560–640 nm, about 29 mm at 0.36 mm/nm. */
+const spectrograph = { ...exampleDesign, range: { startNm: 560, endNm: 640 }, detector: { pixelPitchUm: 25, pixelCount: 2048 } };
 
 /** The answer's wavelength nearest `nm`. */
 function at(answer: TraceAnswer, nm: number) {
@@ -144,7 +148,6 @@ describe('POST /api/trace', () => {
     // at 580 nm sin β = 580 / 833.333 − 0.600172 = 0.095828, β = 5.499°, so the chief ray turns by
     // Δβ = −1.383° from the centre's 6.882°; a camera of f = 300 mm puts it at f tan Δβ = −7.244 mm
     // (−7.134 mm at f cos 10°, 1.5 % nearer: 3 % covers either plane).
-    const spectrograph = { ...exampleDesign, range: { startNm: 560, endNm: 640 }, detector: { pixelPitchUm: 25, pixelCount: 2048 } };
     const answer = traceAnswerSchema.parse((await post({ design: spectrograph, atNm: [580], rays: RAYS }).expect(200)).body);
     expect(answer.mode).toBe('spectrograph');
     expect(answer.detectorTilt).not.toBeNull();
@@ -209,6 +212,54 @@ describe('POST /api/trace', () => {
     expect(errorBodySchema.safeParse(res.body).success).toBe(true);
     expect(ctx.errors).toEqual([]);
   });
+
+  // hostile-bodies.property.test.ts throws poisoned JSON at the route; here the design's numbers
+  // (and the options') are replaced by any double the schema might let through, and an accepted
+  // body's answer must hold only what its schema documents: a NaN or an infinity from the trace
+  // would reach the JSON as null and fail it.
+  it.each([
+    ['monochromator', monochromator],
+    ['spectrograph', spectrograph],
+  ] as const)('%s: any numbers get an answer its schema documents or a 400 naming a field, never a 500', async (_kind, design) => {
+    const base = { design, atNm: [450], rays: 200 };
+    const numericPaths: (string | number)[][] = [];
+    const walk = (value: unknown, path: (string | number)[]) => {
+      if (typeof value === 'number') numericPaths.push(path);
+      else if (Array.isArray(value)) value.forEach((v, i) => walk(v, [...path, i]));
+      else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) walk(v, [...path, k]);
+    };
+    walk(base, []);
+    const extreme = fc.oneof(
+      fc.double({ noNaN: true, noDefaultInfinity: true }),
+      fc.constantFrom(5e-324, 1e-300, 0.001, 0.5, 1, 2, 45, 89, 89.999, 179.999, 1e4, 1e7, 1e308, -1, -89),
+    );
+    let answered = 0;
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.tuple(fc.constantFrom(...numericPaths), extreme), { minLength: 1, maxLength: 3 }), async (changes) => {
+        const body = structuredClone(base) as Record<string | number, unknown>;
+        for (const [path, value] of changes) {
+          let node = body;
+          for (const key of path.slice(0, -1)) node = node[key] as Record<string | number, unknown>;
+          node[path[path.length - 1]!] = value;
+        }
+        const res = await post(body);
+        expect(res.status, `${JSON.stringify(changes)} → ${res.text.slice(0, 300)}`).toBeLessThan(500);
+        if (res.status === 200) {
+          answered += 1;
+          const parsed = traceAnswerSchema.safeParse(res.body);
+          expect(parsed.success, `${JSON.stringify(changes)} → ${res.text.slice(0, 300)}`).toBe(true);
+          for (const w of parsed.data!.wavelengths) expect(w.raysTraced + w.raysVignetted).toBe(parsed.data!.raysPerWavelength);
+        } else {
+          expect(res.status).toBe(400);
+          expect(errorBodySchema.parse(res.body).error.fields).toBeDefined();
+        }
+      }),
+      { numRuns: 200 },
+    );
+    // Not vacuous: some of the changed bodies got past the schema and were traced.
+    expect(answered).toBeGreaterThan(10);
+    expect(ctx.errors).toEqual([]);
+  }, 120_000);
 
   it('answers a body over 1 MB with a 413 in the error shape, before reading it', async () => {
     const big = JSON.stringify({ design: exampleDesign, rays: RAYS, note: 'x'.repeat(1024 * 1024) });
