@@ -54,6 +54,31 @@ function radicalInverse(index: number, base: number): number {
   return r;
 }
 
+/** The first `count` Halton points in `base`, centred on 0 (−½ … ½); kept, since every wavelength reuses them. */
+const haltonTables = new Map<string, Float64Array>();
+function halton(count: number, base: number): Float64Array {
+  const key = `${base}:${count}`;
+  let table = haltonTables.get(key);
+  if (!table) {
+    table = new Float64Array(count);
+    for (let i = 0; i < count; i++) table[i] = radicalInverse(i + 1, base) - 0.5;
+    if (haltonTables.size > 32) haltonTables.clear();
+    haltonTables.set(key, table);
+  }
+  return table;
+}
+
+/**
+ * Where a bundle's rays start and aim: across the slit `s` and along it `t` (mm; a number is the
+ * same for every ray), and across `a` and along `b` the pupil (−½ … ½ of it).
+ */
+interface LaunchPoints {
+  s: Float64Array | number;
+  t: Float64Array | number;
+  a: Float64Array;
+  b: Float64Array;
+}
+
 /** How the trace is set up for one grating setting. */
 interface Setting {
   mount: Mount;
@@ -63,25 +88,24 @@ interface Setting {
   curve: (heightMm: number) => number;
 }
 
-/** Points on the entrance slit (across s, along t) and on the pupil (a, b) into a bundle. */
-function launch(setting: Setting, count: number, point: (i: number) => { s: number; t: number; a: number; b: number }): RayBundle {
+/** Rays from points on the entrance slit toward points on the pupil, as a bundle. */
+function launch(setting: Setting, count: number, points: LaunchPoints): RayBundle {
   const { launch: L } = setting.mount;
   const bundle = allocateBundle(count);
   const cosAlpha = Math.cos(setting.grating.incidenceRad);
   const pupilWidth = setting.mount.ruledWidthMm * cosAlpha * PUPIL_FILL;
   const pupilHeight = setting.mount.ruledHeightMm * PUPIL_FILL;
+  const { s: sAt, t: tAt, a: aAt, b: bAt } = points;
   for (let i = 0; i < count; i++) {
-    const { s, t, a, b } = point(i);
-    const across = s + setting.curve(t);
+    const t = typeof tAt === 'number' ? tAt : tAt[i]!;
+    const across = (typeof sAt === 'number' ? sAt : sAt[i]!) + setting.curve(t);
+    const a = aAt[i]! * pupilWidth;
     const ox = L.slitCentre.x + across * L.slitAcross.x + t * L.slitAlong.x;
     const oy = L.slitCentre.y + across * L.slitAcross.y + t * L.slitAlong.y;
     const oz = L.slitCentre.z + across * L.slitAcross.z + t * L.slitAlong.z;
-    const tx = L.pupilCentre.x + a * pupilWidth * L.pupilAcross.x;
-    const ty = L.pupilCentre.y + a * pupilWidth * L.pupilAcross.y;
-    const tz = L.pupilCentre.z + a * pupilWidth * L.pupilAcross.z + b * pupilHeight;
-    const ex = tx - ox;
-    const ey = ty - oy;
-    const ez = tz - oz;
+    const ex = L.pupilCentre.x + a * L.pupilAcross.x - ox;
+    const ey = L.pupilCentre.y + a * L.pupilAcross.y - oy;
+    const ez = L.pupilCentre.z + a * L.pupilAcross.z + bAt[i]! * pupilHeight - oz;
     const k = 1 / Math.sqrt(ex * ex + ey * ey + ez * ez);
     bundle.ox[i] = ox;
     bundle.oy[i] = oy;
@@ -93,9 +117,12 @@ function launch(setting: Setting, count: number, point: (i: number) => { s: numb
   return bundle;
 }
 
+/** A point source at (s, t) on the slit, filling the pupil. */
+const pointSource = (count: number, s: number, t: number): LaunchPoints => ({ s, t, a: halton(count, 2), b: halton(count, 3) });
+
 /** One ray from the slit point (s, t) through the pupil's centre, to the image plane: its x and y, or null. */
 function chiefXY(setting: Setting, wavelengthNm: number, s: number, t: number): { x: number; y: number; distanceMm: number } | null {
-  const bundle = launch(setting, 1, () => ({ s, t, a: 0, b: 0 }));
+  const bundle = launch(setting, 1, { s, t, a: Float64Array.of(0), b: Float64Array.of(0) });
   if (traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, bundle) !== 1) return null;
   const { point, xAxis, yAxis } = setting.image;
   const crossing = add3(point, add3(scale3(xAxis, bundle.x[0]!), scale3(yAxis, bundle.y[0]!)));
@@ -199,7 +226,6 @@ function traceWavelength(
   // Spots: a point at the slit's centre line, at its middle and both ends.
   const h = setting.mount.launch.slitHeightMm;
   const spotRays = Math.max(50, Math.round(rays / 4));
-  const pupil = (i: number) => ({ a: radicalInverse(i + 1, 2) - 0.5, b: radicalInverse(i + 1, 3) - 0.5 });
   const heights: [SlitHeightRole, number][] = [
     ['centre', 0],
     ['top', h / 2],
@@ -207,7 +233,7 @@ function traceWavelength(
   ];
   let centreMoments: ReturnType<typeof spotMoments> | null = null;
   const spots = heights.map(([spotRole, t]) => {
-    const bundle = launch(setting, spotRays, (i) => ({ s: 0, t, ...pupil(i) }));
+    const bundle = launch(setting, spotRays, pointSource(spotRays, 0, t));
     traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, bundle);
     if (spotRole === 'centre') centreMoments = spotMoments(bundle);
     return spotOf(bundle, spotRole, t);
@@ -216,12 +242,14 @@ function traceWavelength(
 
   // The whole slit, for the line shape.
   const w = setting.mount.launch.slitWidthMm;
-  const whole = launch(setting, rays, (i) => ({
-    s: (radicalInverse(i + 1, 5) - 0.5) * w,
-    t: (radicalInverse(i + 1, 7) - 0.5) * h,
-    a: radicalInverse(i + 1, 2) - 0.5,
-    b: radicalInverse(i + 1, 3) - 0.5,
-  }));
+  const across = halton(rays, 5);
+  const along = halton(rays, 7);
+  const whole = launch(setting, rays, {
+    s: across.map((u) => u * w),
+    t: along.map((u) => u * h),
+    a: halton(rays, 2),
+    b: halton(rays, 3),
+  });
   const arrived = traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, whole);
   const wholeMoments = spotMoments(whole);
   const xs = new Float64Array(arrived);
@@ -328,7 +356,7 @@ function detectorTiltOf(design: Design, setting: Setting, rays: number): Detecto
   const pts: { x: number; moments: ReturnType<typeof spotMoments> }[] = [];
   for (let k = 0; k < TILT_SAMPLES; k++) {
     const nm = lo + ((hi - lo) * (k + 0.5)) / TILT_SAMPLES;
-    const bundle = launch(setting, spotRays, (i) => ({ s: 0, t: 0, a: radicalInverse(i + 1, 2) - 0.5, b: radicalInverse(i + 1, 3) - 0.5 }));
+    const bundle = launch(setting, spotRays, pointSource(spotRays, 0, 0));
     traceBundle(setting.mount, setting.grating, setting.image, nm, bundle);
     const moments = spotMoments(bundle);
     if (moments.n > 0) pts.push({ x: moments.meanX, moments });
