@@ -6,9 +6,9 @@ import { defaultRateLimits, type RateLimits } from '../auth/rate-limit';
 /**
  * `POST /api/trace` calls per IP per `solveWindowMs`. The largest request traces 50,000 rays at
  * each of 11 wavelengths (8 asked for and the range's start, centre and end; 1.75 × that with the
- * spots): measured on this shared 2-core machine, 1.0–2.4 s of the thread (median 1.7 s of 5, under
- * a load of 7; the default 4,000 rays take a tenth of that). 10 a minute holds one address to about
- * the solver's share (120 × < 0.1 s); revisit once `npm run bench:trace` shows the engine faster.
+ * spots): measured on this shared 2-core machine under a load of 8, 0.7–1.4 s of the thread (median
+ * 0.9 s of 7; the default 4,000 rays at 3 wavelengths, 45–75 ms). 10 a minute holds one address to
+ * about the solver's share of each minute (120 × < 0.1 s), and a lab script rarely traces more often.
  */
 export const TRACE_PER_IP = 10;
 
