@@ -4,6 +4,7 @@ import { compareFiguresSection } from './sections/compare-figures';
 import { compareParametersSection } from './sections/compare-parameters';
 import { compareSketchSection } from './sections/compare-sketch';
 import { compareTitleSection } from './sections/compare-title';
+import { imageQualitySection } from './sections/image-quality';
 import { lightBudgetSection } from './sections/light-budget';
 import { notesSection } from './sections/notes';
 import { orderSortingSection } from './sections/order-sorting';
@@ -35,6 +36,7 @@ export const sheetSections: readonly SheetSection[] = [
   warningsSection,
   lightBudgetSection,
   calibrationLinesSection,
+  imageQualitySection,
   notesSection,
   reviewSection,
   cautionsSection,
