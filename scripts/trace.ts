@@ -12,7 +12,7 @@ import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { traceAnswer } from '../server/trace/answer';
-import { TRACE_PER_IP } from '../server/trace/rate-limit';
+import { defaultRateLimits } from '../server/auth/rate-limit';
 import { traceRequestSchema, type TraceAnswer } from '../shared/contract/trace';
 import { designSchema } from '../shared/design';
 import { TRACE_LIMITS } from '../shared/trace';
@@ -47,7 +47,7 @@ Signs and axes, in the image plane (imagePlane names it: the exit slit's plane, 
   y  along the slit, positive toward the top of the entrance slit's image
   both in mm from the exit slit's centre; bestFocusShiftMm is along the chief ray, positive away
   from the camera mirror
-The same limits as POST /api/trace, which also allows ${TRACE_PER_IP} calls a minute per address.`;
+The same limits as POST /api/trace, which also allows ${defaultRateLimits.tracePerIp} calls a minute per address.`;
 
 export { UsageError };
 

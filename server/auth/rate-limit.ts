@@ -24,6 +24,8 @@ export type RateLimits = {
   selectorsPerIp: number;
   /** Curve file previews and uploads together per IP per `solveWindowMs`. */
   curveUploadsPerIp: number;
+  /** `POST /api/trace` calls per IP per `solveWindowMs`. */
+  tracePerIp: number;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -57,6 +59,11 @@ export const defaultRateLimits: RateLimits = {
   // previews, corrects a unit and uploads a handful a minute; 20 a minute keeps one address to a
   // few seconds of the thread and 40 MB read a minute at worst.
   curveUploadsPerIp: 20,
+  // The largest trace (50,000 rays at each of 11 wavelengths, 1.75 × that with the spots) holds the
+  // thread for 0.7–1.4 s on a shared 2-core machine under load (median 0.9 s of 7; the default
+  // 4,000 rays at 3 wavelengths, 45–75 ms): 10 a minute keeps one address to about the solver's
+  // share of each minute, and a lab script rarely traces more often.
+  tracePerIp: 10,
 };
 
 type KeyBy = 'ip' | 'email' | 'email-and-ip';

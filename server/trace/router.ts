@@ -1,7 +1,8 @@
 import type { apiContract } from '../../shared/contract/index';
 import type { Implementation } from '../http/contract';
 import { traceAnswer } from './answer';
-import { createTraceRateLimiter, type TraceRateLimits } from './rate-limit';
+import type { RateLimits } from '../auth/rate-limit';
+import { createTraceRateLimiter } from './rate-limit';
 
 /**
  * `POST /api/trace`: the exact ray trace for scripts, no sign-in needed; the engine the workbench
@@ -11,7 +12,7 @@ import { createTraceRateLimiter, type TraceRateLimits } from './rate-limit';
  * naming the field before any ray is traced, and each address may trace `tracePerIp` times a
  * minute (then 429 `rate_limited`).
  */
-export function traceRoute(rateLimits: TraceRateLimits = {}): Implementation<typeof apiContract.trace.run> {
+export function traceRoute(rateLimits: Partial<RateLimits> = {}): Implementation<typeof apiContract.trace.run> {
   return {
     use: [createTraceRateLimiter(rateLimits)],
     handle: ({ body }) => traceAnswer(body),

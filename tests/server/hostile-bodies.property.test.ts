@@ -4,7 +4,6 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../shared/api-error';
 import { exampleDesign } from '../../shared/design';
-import type { TraceRateLimits } from '../../server/trace/rate-limit';
 import { listRoutes } from '../support/routes';
 import { testOrigin } from '../support/test-app';
 import { createNotebookFixture, type NotebookFixture } from './notebooks/fixture';
@@ -115,7 +114,6 @@ function bodies(base: unknown): fc.Arbitrary<unknown> {
 type Target = { params?: Record<string, string>; body: unknown; as: 'owner' | 'reviewer' | 'anonymous' };
 
 /** The trace's allowance, kept beside its route until `RateLimits` holds it. */
-const unlimitedTraces: TraceRateLimits = { tracePerIp: 1e9 };
 
 let fx: NotebookFixture;
 let server: Server;
@@ -124,7 +122,7 @@ let targets: Record<string, Target>;
 
 beforeAll(async () => {
   fx = await createNotebookFixture({
-    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9, curveUploadsPerIp: 1e9, ...unlimitedTraces },
+    rateLimits: { signInPerIp: 1e9, signInFailuresPerEmailPerIp: 1e9, signInFailuresPerIp: 1e9, signUpPerIp: 1e9, resetPerIp: 1e9, resetPerEmail: 1e9, solvePerIp: 1e9, searchPerIp: 1e9, selectorsPerIp: 1e9, curveUploadsPerIp: 1e9, tracePerIp: 1e9 },
   });
   server = createServer(fx.ctx.app).listen(0, '127.0.0.1');
   for (const who of ['owner', 'reviewer'] as const) {

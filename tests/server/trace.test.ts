@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DatabaseHandle } from '../../db/client';
-import { TRACE_PER_IP, type TraceRateLimits } from '../../server/trace/rate-limit';
+import { defaultRateLimits, type RateLimits } from '../../server/auth/rate-limit';
 import { errorBodySchema } from '../../shared/api-error';
 import { traceAnswerSchema, type TraceAnswer } from '../../shared/contract/trace';
 import { exampleDesign } from '../../shared/design';
@@ -41,7 +41,7 @@ function at(answer: TraceAnswer, nm: number) {
 describe('POST /api/trace', () => {
   let ctx: Awaited<ReturnType<typeof createTestApp>>;
   // The cases below send more than a minute's allowance; the limit has its own test.
-  const limits: TraceRateLimits = { tracePerIp: 1e9 };
+  const limits: Partial<RateLimits> = { tracePerIp: 1e9 };
   beforeAll(async () => {
     ctx = await createTestApp({ database, rateLimits: limits });
   });
@@ -119,7 +119,7 @@ describe('POST /api/trace', () => {
       expect(op.operationId).toBe('trace.run');
       expect(op.security).toBeUndefined();
       // The contract (in shared/, which cannot import the server) states the server's default limit.
-      expect(op.description).toContain(`${TRACE_PER_IP} calls a minute per address`);
+      expect(op.description).toContain(`${defaultRateLimits.tracePerIp} calls a minute per address`);
       const ajv = new Ajv2020({ strict: false, allErrors: true });
       addFormats(ajv);
       ajv.addSchema({ $id: 'doc', components: document.components });
@@ -276,7 +276,7 @@ describe('POST /api/trace', () => {
 
 describe('POST /api/trace rate limit', () => {
   it('answers the call past tracePerIp with 429, on its own counter apart from solving', async () => {
-    const limits: TraceRateLimits = { tracePerIp: 2, solvePerIp: 1, solveWindowMs: 60_000 };
+    const limits: Partial<RateLimits> = { tracePerIp: 2, solvePerIp: 1, solveWindowMs: 60_000 };
     const ctx = await createTestApp({ database, rateLimits: limits });
     try {
       // Refused bodies count too: the limit guards the thread before the body is read.
