@@ -5,6 +5,7 @@ import { compareParametersSection } from './sections/compare-parameters';
 import { compareSketchSection } from './sections/compare-sketch';
 import { compareTitleSection } from './sections/compare-title';
 import { imageQualitySection } from './sections/image-quality';
+import { compareSpotsSection } from './sections/image-quality-compare';
 import { lightBudgetSection } from './sections/light-budget';
 import { notesSection } from './sections/notes';
 import { orderSortingSection } from './sections/order-sorting';
@@ -48,4 +49,5 @@ export const compareSheetSections: readonly CompareSheetSection[] = [
   compareFiguresSection,
   compareParametersSection,
   compareSketchSection,
+  compareSpotsSection,
 ];

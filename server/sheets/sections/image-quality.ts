@@ -113,12 +113,22 @@ function drawDots(writer: SheetWriter, window: SpotWindow, spot: Spot): number {
   return dots;
 }
 
-/** One spot diagram in a `side`-point square at (x, y): frame, aperture tint and edges, dots, scale bar. */
-function drawSpot(writer: SheetWriter, report: TraceReport, spot: Spot, at: { x: number; y: number; side: number }): void {
+/**
+ * One spot diagram in a `side`-point square at (x, y): frame, aperture tint and edges, dots, scale
+ * bar. `halfMm` sets the scale (half the square's side in the image plane); by default the spot's
+ * own window (features/trace/spot-figure.ts), so the compare sheet can draw two at one scale.
+ */
+export function drawSpotDiagram(
+  writer: SheetWriter,
+  spot: Spot,
+  aperture: { widthMm: number; heightMm: number },
+  at: { x: number; y: number; side: number },
+  halfMm?: number,
+): void {
   const { doc } = writer;
-  const aperture = apertureOf(report);
   const sizePx = at.side * DOTS_PER_PT;
-  const window = spotWindow(spot.x, spot.y, spot.centroidMm, { centreXMm: 0, widthMm: aperture.widthMm }, sizePx);
+  const own = spotWindow(spot.x, spot.y, spot.centroidMm, { centreXMm: 0, widthMm: aperture.widthMm }, sizePx);
+  const window = halfMm === undefined ? own : { ...own, halfMm };
   const clamp = (v: number) => Math.min(sizePx, Math.max(0, v));
   const leftEdge = toPx(window, -aperture.widthMm / 2, aperture.heightMm / 2);
   const rightEdge = toPx(window, aperture.widthMm / 2, -aperture.heightMm / 2);
@@ -144,6 +154,9 @@ function drawSpot(writer: SheetWriter, report: TraceReport, spot: Spot, at: { x:
   doc.fillColor(sheetColors.ink);
 }
 
+/** Room a diagram takes under its square for the scale bar, pt. */
+export const SPOT_SCALE_PT = SCALE_PT;
+
 /** The spot diagrams, `PER_ROW` to a row, each under its wavelength's label. */
 function drawSpotGrid(writer: SheetWriter, report: TraceReport): void {
   const cellWidth = writer.contentWidth / PER_ROW;
@@ -162,7 +175,7 @@ function drawSpotGrid(writer: SheetWriter, report: TraceReport): void {
         writer.use('regular', textSize.small).doc.fillColor(sheetColors.muted).text(w.reachable ? 'no rays arrive' : 'out of reach', x, box.y + LABEL_PT + side / 2, { width: side, align: 'center', lineBreak: false });
         return;
       }
-      drawSpot(writer, report, spot, { x, y: box.y + LABEL_PT, side });
+      drawSpotDiagram(writer, spot, apertureOf(report), { x, y: box.y + LABEL_PT, side });
     });
     doc.fillColor(sheetColors.ink);
     doc.x = cursor.x;
