@@ -19,6 +19,7 @@ import {
   wavelengthLabel,
 } from '../image-quality-words';
 import type { TraceReport, TracedWavelength } from '../types';
+import { lineShapeWindow } from '../line-shape-window';
 import { traceWarnings } from '../warnings';
 import { SmallPlot } from './small-plot';
 import { SpotStrip } from './spot-strip';
@@ -56,16 +57,18 @@ function defaultDetail(report: TraceReport): TracedWavelength | null {
 
 function Details({ report, w, width, curved, onCurved }: { report: TraceReport; w: TracedWavelength; width: number; curved: boolean; onCurved: (on: boolean) => void }) {
   const centre = w.spots.find((s) => s.role === 'centre') ?? w.spots[0];
-  const lineShape = useMemo(
-    () => ({
-      xs: Array.from(w.lineShape.offsetNm),
+  const lineShape = useMemo(() => {
+    const { offsetNm, traced, closedForm } = w.lineShape;
+    const { from, to } = lineShapeWindow(offsetNm, [traced, closedForm]);
+    const cut = (a: Float64Array) => Array.from(a.subarray(from, to + 1));
+    return {
+      xs: cut(offsetNm),
       series: [
-        { label: 'Traced', values: Array.from(w.lineShape.traced), color: colors.accent },
-        { label: 'Slit-limited trapezoid', values: Array.from(w.lineShape.closedForm), color: colors.primary, dash: '5 4' },
+        { label: 'Traced', values: cut(traced), color: colors.accent },
+        { label: 'Slit-limited trapezoid', values: cut(closedForm), color: colors.primary, dash: '5 4' },
       ],
-    }),
-    [w],
-  );
+    };
+  }, [w]);
   const focus = useMemo(
     () => ({
       xs: Array.from(w.throughFocus.shiftMm),
@@ -204,6 +207,9 @@ function Body({ design, readoutNm, strip }: { design: Design; readoutNm: number 
             </View>
           ) : null}
           <Heading3>Spot diagrams</Heading3>
+          <Text variant="caption" tone="muted">
+            {`Where the rays from one point of the entrance slit land, x and y to the same scale; the band between the blue lines is ${report.mode === 'spectrograph' && report.pixel ? 'one pixel' : 'the exit slit'}${report.mode === 'monochromator' && report.pixel ? ', the dark mark on top one pixel' : ''}. A spot drawn out along the slit is astigmatism; a one-sided flare is coma.`}
+          </Text>
           {width > 0 ? <SpotStrip report={report} width={width} strip={strip} /> : null}
           {detail ? (
             <>

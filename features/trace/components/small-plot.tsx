@@ -40,8 +40,8 @@ export function SmallPlot({ testID, summary, width, height = 150, xs, xTitle, yT
     return {
       x,
       y,
-      xTicks: valueTicks(x, '~g'),
-      yTicks: valueTicks(y, '~g'),
+      xTicks: valueTicks(x),
+      yTicks: valueTicks(y),
       paths: series.map((s) => linePath(xs, s.values, x, y)),
       bottom: MARGIN.top + innerH,
     };
@@ -56,12 +56,12 @@ export function SmallPlot({ testID, summary, width, height = 150, xs, xTitle, yT
             <Line x1={MARGIN.left} x2={MARGIN.left} y1={MARGIN.top} y2={bottom} stroke={colors.line} />
             {xTicks.values.map((v, i) => (
               <SvgText key={`x${v}`} x={x(v)} y={bottom + 12} fontSize={TICK_FONT} fontFamily={fonts.mono} fill={colors.inkMuted} textAnchor="middle">
-                {xTicks.labels[i]?.replace('-', '−')}
+                {xTicks.labels[i]}
               </SvgText>
             ))}
             {yTicks.values.map((v, i) => (
               <SvgText key={`y${v}`} x={MARGIN.left - 4} y={y(v) + 3} fontSize={TICK_FONT} fontFamily={fonts.mono} fill={colors.inkMuted} textAnchor="end">
-                {yTicks.labels[i]?.replace('-', '−')}
+                {yTicks.labels[i]}
               </SvgText>
             ))}
             <SvgText x={MARGIN.left + (width - MARGIN.left - MARGIN.right) / 2} y={height - 4} fontSize={TICK_FONT + 1} fontFamily={fonts.regular} fill={colors.inkMuted} textAnchor="middle">

@@ -11,6 +11,8 @@ type Props = {
   spot: Spot;
   /** The exit slit (at x = 0) or, on a detector, one pixel about the spot: drawn to scale. */
   aperture: { centreXMm: number; widthMm: number; label: string };
+  /** One pixel's width, marked at the top about the spot (a monochromator that names a detector); null for none. */
+  pixelMm?: number | null;
   sizePx: number;
   testID: string;
 };
@@ -19,14 +21,15 @@ type Props = {
 const SCALE_BAND_PX = 16;
 
 /** One spot at the image plane: its rays, the slit or pixel to the same scale along x and y, a scale bar. */
-export const SpotDiagram = memo(function SpotDiagram({ wavelength, spot, aperture, sizePx, testID }: Props) {
+export const SpotDiagram = memo(function SpotDiagram({ wavelength, spot, aperture, pixelMm = null, sizePx, testID }: Props) {
   const drawn = useMemo(() => {
     const window = spotWindow(spot.x, spot.y, spot.centroidMm, aperture, sizePx);
     const left = toPx(window, aperture.centreXMm - aperture.widthMm / 2, 0).px;
     const right = toPx(window, aperture.centreXMm + aperture.widthMm / 2, 0).px;
-    return { window, dots: spotDots(window, spot.x, spot.y), left, right, bar: scaleBar(window) };
-  }, [spot, aperture, sizePx]);
-  const { dots, left, right, bar } = drawn;
+    const pixelPx = pixelMm === null ? null : pixelMm * (sizePx / (2 * window.halfMm));
+    return { window, dots: spotDots(window, spot.x, spot.y), left, right, bar: scaleBar(window), pixelPx };
+  }, [spot, aperture, pixelMm, sizePx]);
+  const { dots, left, right, bar, pixelPx } = drawn;
   const clampedLeft = Math.max(0, Math.min(sizePx, left));
   const clampedRight = Math.max(0, Math.min(sizePx, right));
   const barY = sizePx + 6;
@@ -35,7 +38,7 @@ export const SpotDiagram = memo(function SpotDiagram({ wavelength, spot, apertur
       <Text variant="caption" tone="muted">
         {heightLabel(spot.role)}
       </Text>
-      <View role="img" aria-label={`${spotWords(wavelength, spot)} ${aperture.label} drawn to scale; scale bar ${bar.label}.`} testID={testID}>
+      <View role="img" aria-label={`${spotWords(wavelength, spot)} ${aperture.label}${pixelPx !== null ? ' and one pixel' : ''} drawn to scale; scale bar ${bar.label}.`} testID={testID}>
         <Svg width={sizePx} height={sizePx + SCALE_BAND_PX}>
           <Rect x={0} y={0} width={sizePx} height={sizePx} fill={colors.paper} />
           {clampedRight > clampedLeft ? (
@@ -46,6 +49,7 @@ export const SpotDiagram = memo(function SpotDiagram({ wavelength, spot, apertur
           <Path d={dots.d} fill={colors.accent} testID={`${testID}-rays`} />
           <Line x1={sizePx / 2 - 4} x2={sizePx / 2 + 4} y1={sizePx / 2} y2={sizePx / 2} stroke={colors.ink} strokeWidth={1} />
           <Line x1={sizePx / 2} x2={sizePx / 2} y1={sizePx / 2 - 4} y2={sizePx / 2 + 4} stroke={colors.ink} strokeWidth={1} />
+          {pixelPx !== null ? <Rect x={sizePx / 2 - Math.max(1, pixelPx) / 2} y={0} width={Math.max(1, pixelPx)} height={4} fill={colors.ink} /> : null}
           <Rect x={0} y={0} width={sizePx} height={sizePx} fill="none" stroke={colors.line} />
           <Line x1={2} x2={2 + bar.lengthPx} y1={barY} y2={barY} stroke={colors.ink} strokeWidth={2} />
           <SvgText x={6 + bar.lengthPx} y={barY + 4} fontSize={10} fontFamily={fonts.mono} fill={colors.inkMuted}>

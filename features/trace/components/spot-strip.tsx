@@ -13,10 +13,16 @@ const GAP = space.md;
 const MAX_SIZE = 150;
 
 function apertureFor(report: TraceReport, spot: Spot) {
-  // A detector has no slit: a pixel drawn about the spot shows the sampling; else the exit slit where it is.
-  return report.pixel
+  // A spectrograph's detector has no slit: a pixel drawn about the spot shows the sampling; a
+  // monochromator's exit slit stays where it is, at x = 0.
+  return report.mode === 'spectrograph' && report.pixel
     ? { centreXMm: spot.centroidMm.x, widthMm: report.pixel.widthMm, label: 'One pixel' }
     : { centreXMm: 0, widthMm: report.exitSlit.widthMm, label: 'The exit slit' };
+}
+
+/** A monochromator that also names a detector: one pixel marked above the spot, for scale. */
+function pixelMarkFor(report: TraceReport): number | null {
+  return report.mode === 'monochromator' && report.pixel ? report.pixel.widthMm : null;
 }
 
 function Column({ report, w, size, snap }: { report: TraceReport; w: TracedWavelength; size: number; snap?: boolean }) {
@@ -33,6 +39,7 @@ function Column({ report, w, size, snap }: { report: TraceReport; w: TracedWavel
             wavelength={w}
             spot={spot}
             aperture={apertureFor(report, spot)}
+            pixelMm={pixelMarkFor(report)}
             sizePx={size}
             testID={`trace-spot-${w.role}-${spot.role}`}
           />
@@ -63,6 +70,10 @@ export function SpotStrip({ report, width, strip }: Props) {
         decelerationRate="fast"
         showsHorizontalScrollIndicator
         style={stripSnap.strip}
+        // A keyboard reaches the strip and scrolls it with the arrow keys (WCAG 2.1.1).
+        focusable
+        role="group"
+        aria-label="Spot diagrams by wavelength, scroll sideways for more"
         contentContainerStyle={styles.row}
         testID="trace-spot-strip"
       >

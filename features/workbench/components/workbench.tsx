@@ -20,6 +20,7 @@ import { PerformancePlots } from '@/features/plots';
 import { TradeStudyCard } from '@/features/selectors';
 import { CautionsCard } from '@/features/safety';
 import { RaySketch, SaveSketchButton } from '@/features/sketch';
+import { ImageQualityCard } from '@/features/trace/ui';
 import { Card, colors, space, useLayout } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import type { OrderSortingFilter } from '@/shared/filters';
@@ -351,6 +352,15 @@ export function Workbench({
   );
   // The lamp lines the design will be calibrated with.
   const calibration = <CalibrationCard design={bench.design} collapsedAtFirst={layout === 'phone'} />;
+  // The exact ray trace of the design, at the range's ends and centre and the read-out wavelength.
+  const imageQuality = (
+    <ImageQualityCard
+      design={bench.design}
+      readoutNm={selectedNm}
+      collapsedAtFirst={layout === 'phone'}
+      strip={layout === 'phone'}
+    />
+  );
   const table = <RangeTable points={deferredTable} dimmed={dimmed} />;
   // Last in every layout: what to take care of at the bench, for this design's range and source.
   const cautions = <CautionsCard design={bench.design} />;
@@ -374,6 +384,7 @@ export function Workbench({
           {calibration}
           {readout}
           {graphics}
+          {imageQuality}
           {table}
           {cautions}
         </ScrollView>
@@ -409,6 +420,7 @@ export function Workbench({
           {lightBudget}
           {calibration}
           {readout}
+          {imageQuality}
           {table}
           {cautions}
         </ScrollView>
@@ -425,6 +437,8 @@ export function Workbench({
       <ScrollView style={styles.flexPane} contentContainerStyle={[styles.column, pad]}>
         {blocked}
         {graphics}
+        {/* Beside the plots, where the spot grid has the width. */}
+        {imageQuality}
       </ScrollView>
       <ScrollView style={styles.resultsPane} contentContainerStyle={[styles.column, pad]}>
         {warnings}

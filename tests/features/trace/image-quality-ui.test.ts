@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { bandpassWords, comaWords, focusWords, micrometres, traceStatusWords } from '../../../features/trace/image-quality-words';
 import { scaleBar, spotDots, spotWindow, toPx } from '../../../features/trace/spot-figure';
 import { latestOnly } from '../../../features/trace/trace-queue';
+import { lineShapeWindow } from '../../../features/trace/line-shape-window';
 
 /** A promise with its resolve handed out, to finish runs in the order a test chooses. */
 function deferred<T>() {
@@ -128,3 +129,16 @@ describe('the image quality in words', () => {
   });
 });
 
+
+describe('the line shape plot', () => {
+  it('draws the stretch where either curve shows, with a margin, not the whole sampled range', () => {
+    // 21 samples; the traced line is above the floor at 9–11, the trapezoid at 8–12: 5 samples,
+    // padded by ceil(5 × 0.3) = 2 on each side → samples 6 to 14.
+    const offsets = Array.from({ length: 21 }, (_, i) => i - 10);
+    const traced = offsets.map((o) => (Math.abs(o) <= 1 ? 1 - Math.abs(o) / 2 : 0));
+    const trapezoid = offsets.map((o) => (Math.abs(o) <= 2 ? 1 - Math.abs(o) / 4 : 0));
+    expect(lineShapeWindow(offsets, [traced, trapezoid])).toEqual({ from: 6, to: 14 });
+    // Nothing above the floor: the whole range, rather than nothing.
+    expect(lineShapeWindow(offsets, [offsets.map(() => 0)])).toEqual({ from: 0, to: 20 });
+  });
+});
