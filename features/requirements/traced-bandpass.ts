@@ -31,6 +31,21 @@ export function tracedRequirementWavelengthsNm(design: Design): number[] {
   return [0, 0.25, 0.5, 0.75, 1].map((share) => startNm + share * (endNm - startNm));
 }
 
+/**
+ * Recent answers by the optics they were traced for (the design without its requirements), the
+ * wavelengths and the ray count: typing a limit, or a second check of the same design on one
+ * screen, does not trace again (about 10 ms a trace on this machine, inside an edit's frame).
+ * A Map in insertion order dropping its oldest, not lru-cache: this module ships in the web
+ * bundle, and 32 entries need no more.
+ */
+const recent = new Map<string, TracedBandpasses>();
+const RECENT_MAX = 32;
+
+/** Forgets the remembered traces (for tests that stand in for the engine). */
+export function clearTracedBandpassCache(): void {
+  recent.clear();
+}
+
 /** Relative match for "the traced wavelength is this one": the engine may carry rounding. */
 const SAME_WAVELENGTH = 1e-9;
 
@@ -44,6 +59,21 @@ export function tracedBandpassesAt(
   wavelengthsNm: readonly number[],
   rays = TRACED_REQUIREMENT_RAYS,
 ): TracedBandpasses {
+  const { requirements: _requirements, ...optics } = design;
+  void _requirements;
+  const key = JSON.stringify([optics, wavelengthsNm, rays]);
+  const known = recent.get(key);
+  if (known) return known;
+  const answer = traceAt(design, wavelengthsNm, rays);
+  // A failure is not kept: an engine that could not run this time is asked again next time.
+  if (answer.ok) {
+    recent.set(key, answer);
+    if (recent.size > RECENT_MAX) recent.delete(recent.keys().next().value!);
+  }
+  return answer;
+}
+
+function traceAt(design: Design, wavelengthsNm: readonly number[], rays: number): TracedBandpasses {
   const { startNm, endNm } = design.range;
   const centreNm = (startNm + endNm) / 2;
   const isAlwaysTraced = (nm: number) => [startNm, centreNm, endNm].some((at) => Math.abs(at - nm) <= SAME_WAVELENGTH * at);

@@ -1,5 +1,11 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { checkRequirements, requirementFailsAt, tracedRequirementWavelengthsNm, TRACED_REQUIREMENT_RAYS } from '@/features/requirements';
+import {
+  checkRequirements,
+  clearTracedBandpassCache,
+  requirementFailsAt,
+  tracedRequirementWavelengthsNm,
+  TRACED_REQUIREMENT_RAYS,
+} from '@/features/requirements';
 import { evaluateDesign } from '@/features/solver';
 import { traceDesign, type TraceReport, type TracedWavelength } from '@/features/trace';
 import type { Design } from '@/shared/design';
@@ -18,6 +24,7 @@ vi.mock('@/features/trace/index', async (importOriginal) => {
 
 afterEach(() => {
   vi.mocked(traceDesign).mockClear();
+  clearTracedBandpassCache();
 });
 
 /**
@@ -166,6 +173,16 @@ describe('the traced check’s own rules', () => {
     const check = checkRequirements(design).checks[0]!;
     expect(check.status).toBe('unknown');
     expect(check.message).toBe('the ray trace could not run: the mount has no camera');
+  });
+
+  it('does not trace again when only a limit changes, and does when the optics do', () => {
+    const at = (limit: number, exitWidthUm = 10) =>
+      checkRequirements({ ...fastCzernyTurner({ maxBandpassNm: limit, atWavelengthsNm: [500], bandpassBasis: 'traced' }), slits: { entranceWidthUm: 10, exitWidthUm, heightMm: 2 } });
+    at(0.5);
+    at(0.6);
+    expect(vi.mocked(traceDesign).mock.calls).toHaveLength(1);
+    at(0.6, 20);
+    expect(vi.mocked(traceDesign).mock.calls).toHaveLength(2);
   });
 
   it('traces a long wavelength list in chunks the engine accepts (at most 8 asked per call)', () => {
