@@ -22,6 +22,7 @@ import {
   requirementsMetLabel,
 } from '../format';
 import { useCompareQuery, useNotebookQuery } from '../queries';
+import { CompareSpots } from './compare-spots';
 import { VersionPicker } from './version-picker';
 
 const BEFORE = { color: colors.inkMuted, dash: '6 4' };
@@ -384,6 +385,11 @@ export function CompareScreen() {
               testID="compare-sketch-overlay"
             />
           </Card>
+          <CompareSpots
+            before={{ number: data.a.number, params: data.a.params, when: 'before' }}
+            after={{ number: data.b.number, params: data.b.params, when: 'after' }}
+            width={width - 2 * space.lg - 2}
+          />
           <Card title="Across the range" testID="compare-plots">
             <Text variant="small" tone="muted">
               Dashed grey: v{data.a.number}; copper: v{data.b.number}. Both on one scale, each only over its
