@@ -55,7 +55,8 @@ function defaultDetail(report: TraceReport): TracedWavelength | null {
   return reachable.find((w) => w.role === 'asked') ?? reachable.find((w) => w.role === 'centre') ?? reachable[0] ?? null;
 }
 
-function Details({ report, w, width, curved, onCurved }: { report: TraceReport; w: TracedWavelength; width: number; curved: boolean; onCurved: (on: boolean) => void }) {
+/** Memoised, as the spots are: redrawn for a new trace, not for the status line. */
+const Details = memo(function Details({ report, w, width, curved, onCurved }: { report: TraceReport; w: TracedWavelength; width: number; curved: boolean; onCurved: (on: boolean) => void }) {
   const centre = w.spots.find((s) => s.role === 'centre') ?? w.spots[0];
   const lineShape = useMemo(() => {
     const { offsetNm, traced, closedForm } = w.lineShape;
@@ -150,7 +151,7 @@ function Details({ report, w, width, curved, onCurved }: { report: TraceReport; 
       </View>
     </View>
   );
-}
+});
 
 function Body({ design, readoutNm, strip }: { design: Design; readoutNm: number | null; strip: boolean }) {
   const [rays, setRays] = useState<RayChoice>(String(TRACE_LIMITS.defaultRays) as RayChoice);
@@ -194,6 +195,12 @@ function Body({ design, readoutNm, strip }: { design: Design; readoutNm: number 
       </Text>
       {report ? (
         <>
+          {/* The spots first: on a phone they are what the card is opened for. */}
+          <Heading3>Spot diagrams</Heading3>
+          <Text variant="caption" tone="muted">
+            {`Where the rays from one point of the entrance slit land, x and y to the same scale; the band between the blue lines is ${report.mode === 'spectrograph' && report.pixel ? 'one pixel' : 'the exit slit'}${report.mode === 'monochromator' && report.pixel ? ', the dark mark on top one pixel' : ''}. A spot drawn out along the slit is astigmatism; a one-sided flare is coma.`}
+          </Text>
+          {width > 0 ? <SpotStrip report={report} width={width} strip={strip} /> : null}
           <Text variant="caption" tone="muted" testID="trace-image-plane">
             {`Image plane: ${report.imagePlane}. x along the dispersion (right: longer wavelengths), y along the slit (up: its top), to the same scale.`}
           </Text>
@@ -206,11 +213,6 @@ function Body({ design, readoutNm, strip }: { design: Design; readoutNm: number 
               ))}
             </View>
           ) : null}
-          <Heading3>Spot diagrams</Heading3>
-          <Text variant="caption" tone="muted">
-            {`Where the rays from one point of the entrance slit land, x and y to the same scale; the band between the blue lines is ${report.mode === 'spectrograph' && report.pixel ? 'one pixel' : 'the exit slit'}${report.mode === 'monochromator' && report.pixel ? ', the dark mark on top one pixel' : ''}. A spot drawn out along the slit is astigmatism; a one-sided flare is coma.`}
-          </Text>
-          {width > 0 ? <SpotStrip report={report} width={width} strip={strip} /> : null}
           {detail ? (
             <>
               <RadioGroup

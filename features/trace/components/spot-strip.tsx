@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { StyleSheet, ScrollView, View } from 'react-native';
 import { Text, space } from '@/features/ui';
 import { wavelengthLabel } from '../image-quality-words';
@@ -56,9 +57,10 @@ function Column({ report, w, size, snap }: { report: TraceReport; w: TracedWavel
 /**
  * The spot diagrams, one column per wavelength (shorter to the left, as along the dispersion) with
  * the slit's top, centre and bottom stacked as on the image plane. Phones swipe a strip that stops
- * at each column; wider screens fit the columns side by side.
+ * at each column; wider screens fit the columns side by side. Memoised: the card's status line
+ * changing as a trace starts must not redraw every spot.
  */
-export function SpotStrip({ report, width, strip }: Props) {
+export const SpotStrip = memo(function SpotStrip({ report, width, strip }: Props) {
   const columns = [...report.wavelengths].sort((a, b) => a.wavelengthNm - b.wavelengthNm);
   if (strip) {
     // About two columns and a glimpse of the third, so the strip invites a swipe.
@@ -92,7 +94,7 @@ export function SpotStrip({ report, width, strip }: Props) {
       ))}
     </View>
   );
-}
+});
 
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', gap: GAP },
