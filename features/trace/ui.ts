@@ -4,3 +4,4 @@
  */
 export { ImageQualityCard, type ImageQualityCardProps } from './components/image-quality-card';
 export { useTrace, type TraceState } from './hooks/use-trace';
+export { SpotDiagram } from './components/spot-diagram';
