@@ -272,11 +272,17 @@ function traceWavelength(
     : 0;
   const tangential = centre?.focusShiftX ?? 0;
   const sagittal = centre?.focusShiftY ?? 0;
-  const span = Math.max(2 * Math.abs(tangential), 2 * Math.abs(sagittal), 1e-3 * setting.mount.camera.radiusMm);
+  // Through focus about the tangential focus, out to where the width has grown to twice its least
+  // (|s − s*| = √3 · r₀ / σ(x′), r₀ the least width, σ(x′) the spread of slopes) three times over,
+  // and always reaching the image plane itself (shift 0).
+  const grow = centre && centre.varSlopeX > 0 ? (3 * Math.sqrt(3) * centre.rmsXAtFocus) / Math.sqrt(centre.varSlopeX) : 0;
+  const reach = Math.max(grow, 1e-4 * setting.mount.camera.radiusMm);
+  const from = Math.min(0, tangential - reach);
+  const to = Math.max(0, tangential + reach);
   const shiftMm = new Float64Array(FOCUS_SAMPLES);
   const rmsWidthMm = new Float64Array(FOCUS_SAMPLES);
   for (let k = 0; k < FOCUS_SAMPLES; k++) {
-    shiftMm[k] = -span + (2 * span * k) / (FOCUS_SAMPLES - 1);
+    shiftMm[k] = from + ((to - from) * k) / (FOCUS_SAMPLES - 1);
     rmsWidthMm[k] = centre ? rmsWidthAt(centre, shiftMm[k]!) : 0;
   }
   return {

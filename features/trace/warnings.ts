@@ -26,7 +26,7 @@ export function traceWarnings(report: TraceReport): TraceWarning[] {
           message:
             `At ${w.wavelengthNm.toFixed(1)} nm the traced bandpass is ${w.tracedFwhmNm.toPrecision(3)} nm, ` +
             `${Math.round(Math.abs(ratio - 1) * 100)} % ${ratio > 1 ? 'wider' : 'narrower'} than the slit-limited ` +
-            `${w.slitLimitedFwhmNm.toPrecision(3)} nm: the mirrors' aberrations ${ratio > 1 ? 'blur the slit image' : 'narrow the image'}.`,
+            `${w.slitLimitedFwhmNm.toPrecision(3)} nm: the mirrors’ aberrations ${ratio > 1 ? 'blur the slit image' : 'narrow the image'}.`,
         });
       }
     }

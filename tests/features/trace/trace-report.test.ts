@@ -110,3 +110,19 @@ describe('the API summary', () => {
     expect(JSON.parse(JSON.stringify(summary))).toEqual(summary);
   });
 });
+
+describe('through focus', () => {
+  it('spans the tangential focus and the image plane, and its least width is at the focus it reports', () => {
+    const report = traceDesign(exampleDesign, { rays: 1500 });
+    for (const w of report.wavelengths) {
+      const { shiftMm, rmsWidthMm } = w.throughFocus;
+      expect(shiftMm[0]).toBeLessThanOrEqual(Math.min(0, w.tangentialFocusShiftMm));
+      expect(shiftMm[shiftMm.length - 1]).toBeGreaterThanOrEqual(Math.max(0, w.tangentialFocusShiftMm));
+      // A dip the eye can find: the far end has grown well past the least width (to about twice it,
+      // three times over, by construction: the width is the root of a quadratic in the shift).
+      const least = Math.min(...rmsWidthMm);
+      const ends = Math.max(rmsWidthMm[0]!, rmsWidthMm[rmsWidthMm.length - 1]!);
+      expect(ends).toBeGreaterThan(1.5 * least);
+    }
+  });
+});
