@@ -3,9 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import type { Design } from '@/shared/design';
 import { formatQuantity } from '@/shared/format';
 import type { TraceOptions } from '@/shared/trace';
-import { useTrace, type TraceState } from '@/features/trace/ui';
-// The image-quality card's diagram, reused as it is (features/trace/ui.ts does not list it yet).
-import { SpotDiagram } from '@/features/trace/components/spot-diagram';
+import { SpotDiagram, useTrace, type TraceState } from '@/features/trace/ui';
 import { Card, Text, space } from '@/features/ui';
 import { centreWavelengthSpot, spotChangeWords, type ComparedSpot } from '../compare-spots';
 
