@@ -2,6 +2,7 @@ export { Button } from './components/button';
 export { Card } from './components/card';
 export { Heading } from './components/heading';
 export { RadioGroup } from './components/radio-group';
+export { SwitchRow } from './components/switch-row';
 export type { RadioOption } from './components/radio-group';
 export { Screen } from './components/screen';
 export { Text } from './components/text';

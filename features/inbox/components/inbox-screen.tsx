@@ -3,10 +3,9 @@ import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { formatWhen } from '@/shared/format';
 import { inboxKindLabels, type InboxItem } from '@/shared/reviews';
-import { Button, Heading, Screen, Text, colors, fonts, radius, space, type, useDocumentTitle } from '@/features/ui';
+import { Button, Heading, Screen, SwitchRow, Text, colors, fonts, radius, space, type, useDocumentTitle } from '@/features/ui';
 import { inboxItemPath, inboxItemSubject } from '../links';
 import { useInboxQuery, useMarkReadMutation } from '../queries';
-import { SwitchRow } from './switch-row';
 
 function InboxRow({ item, onOpen }: { item: InboxItem; onOpen: (item: InboxItem) => void }) {
   const unread = item.readAt === null;

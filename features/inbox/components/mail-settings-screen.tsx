@@ -1,10 +1,9 @@
 import { Link, type Href } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { mailSettingsLabels, type MailSettings } from '@/shared/reviews';
-import { Button, Card, Heading, Screen, Text, colors, radius, space, useDocumentTitle } from '@/features/ui';
+import { Button, Card, Heading, Screen, SwitchRow, Text, colors, radius, space, useDocumentTitle } from '@/features/ui';
 import { useMailSettingsQuery, useUpdateMailSettingsMutation } from '../queries';
 
-import { SwitchRow } from './switch-row';
 
 const kinds = Object.keys(mailSettingsLabels) as (keyof MailSettings)[];
 

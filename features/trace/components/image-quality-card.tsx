@@ -1,8 +1,7 @@
 import { memo, useCallback, useMemo, useState } from 'react';
 import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 // The inbox's switch: the kit has none yet.
-import { SwitchRow } from '@/features/inbox/components/switch-row';
-import { Button, Card, RadioGroup, Text, colors, radius, space } from '@/features/ui';
+import { Button, Card, RadioGroup, SwitchRow, Text, colors, radius, space } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import { formatQuantity } from '@/shared/format';
 import { TRACE_LIMITS, TRACE_RAY_CHOICES, type TraceOptions } from '@/shared/trace';

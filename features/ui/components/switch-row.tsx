@@ -1,5 +1,6 @@
 import { Pressable, StyleSheet, View } from 'react-native';
-import { Text, colors, minTouch, radius, space } from '@/features/ui';
+import { colors, minTouch, radius, space } from '../theme';
+import { Text } from './text';
 import { switchKeyProps } from '../switch-keys';
 
 type Props = {
