@@ -6,8 +6,7 @@
  */
 
 import type { Design } from '../../shared/design';
-import { TRACE_LIMITS } from '../../shared/trace';
-import { traceDesign } from '../trace/index';
+import { tracedBandpasses } from '../trace/index';
 
 /**
  * Rays per traced wavelength for the requirement: enough for the line shape's half-maximum to
@@ -46,13 +45,10 @@ export function clearTracedBandpassCache(): void {
   recent.clear();
 }
 
-/** Relative match for "the traced wavelength is this one": the engine may carry rounding. */
-const SAME_WAVELENGTH = 1e-9;
-
 /**
- * The traced FWHM at `wavelengthsNm` (ascending order kept as given), or why the trace could not
- * run. The engine adds the range's start, centre and end to what it is asked for and takes at
- * most `TRACE_LIMITS.maxWavelengths` extra ones per call, so longer lists are traced in chunks.
+ * The traced FWHM at `wavelengthsNm` (order kept as given), or why the trace could not run. The
+ * engine's lean path traces only the whole slit at each wavelength (no spots, foci or tilt), with
+ * the same rays `traceDesign` uses at this ray count, so the figure is the card's.
  */
 export function tracedBandpassesAt(
   design: Design,
@@ -74,33 +70,23 @@ export function tracedBandpassesAt(
 }
 
 function traceAt(design: Design, wavelengthsNm: readonly number[], rays: number): TracedBandpasses {
-  const { startNm, endNm } = design.range;
-  const centreNm = (startNm + endNm) / 2;
-  const isAlwaysTraced = (nm: number) => [startNm, centreNm, endNm].some((at) => Math.abs(at - nm) <= SAME_WAVELENGTH * at);
-  const asked = wavelengthsNm.filter((nm) => !isAlwaysTraced(nm));
-  const chunks: number[][] = [];
-  for (let i = 0; i < asked.length; i += TRACE_LIMITS.maxWavelengths) chunks.push(asked.slice(i, i + TRACE_LIMITS.maxWavelengths));
-  if (chunks.length === 0) chunks.push([]);
-  const traced: TracedBandpass[] = [];
   try {
-    for (const atNm of chunks) {
-      const report = traceDesign(design, { rays, ...(atNm.length > 0 ? { atNm } : {}) });
-      for (const w of report.wavelengths) {
-        traced.push({
-          wavelengthNm: w.wavelengthNm,
-          reachable: w.reachable,
-          fwhmNm: w.reachable && w.tracedFwhmNm !== null && Number.isFinite(w.tracedFwhmNm) ? w.tracedFwhmNm : null,
-          slitLimitedNm: w.reachable && Number.isFinite(w.slitLimitedFwhmNm) ? w.slitLimitedFwhmNm : null,
-        });
-      }
-    }
+    const traced = tracedBandpasses(design, wavelengthsNm, rays);
+    return {
+      ok: true,
+      points: wavelengthsNm.map((wavelengthNm, i): TracedBandpass => {
+        const found = traced[i];
+        // A wavelength the engine did not answer for is not silently dropped: it reads as untraced.
+        if (!found) return { wavelengthNm, reachable: true, fwhmNm: null, slitLimitedNm: null };
+        return {
+          wavelengthNm,
+          reachable: found.reachable,
+          fwhmNm: found.reachable && found.fwhmNm !== null && Number.isFinite(found.fwhmNm) ? found.fwhmNm : null,
+          slitLimitedNm: found.reachable && found.slitLimitedNm !== null && Number.isFinite(found.slitLimitedNm) ? found.slitLimitedNm : null,
+        };
+      }),
+    };
   } catch (error) {
     return { ok: false, reason: error instanceof Error ? error.message : String(error) };
   }
-  const points = wavelengthsNm.map((nm): TracedBandpass => {
-    const found = traced.find((t) => Math.abs(t.wavelengthNm - nm) <= SAME_WAVELENGTH * Math.max(nm, 1));
-    // A wavelength the engine did not answer for is not silently dropped: it reads as untraced.
-    return found ? { ...found, wavelengthNm: nm } : { wavelengthNm: nm, reachable: true, fwhmNm: null, slitLimitedNm: null };
-  });
-  return { ok: true, points };
 }

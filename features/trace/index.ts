@@ -4,6 +4,6 @@
  * workbench's Web Worker does).
  */
 export type * from './types';
-export { traceDesign } from './trace-design';
+export { traceDesign, tracedBandpasses } from './trace-design';
 export { summarizeTrace } from './summary';
 export { traceWarnings, type TraceWarning } from './warnings';

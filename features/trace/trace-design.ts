@@ -15,7 +15,7 @@
 
 import type { Design } from '../../shared/design';
 import { TRACE_LIMITS, type TraceOptions } from '../../shared/trace';
-import { UM_PER_MM, evaluatePoint, prepareDesign, summarizeDesign } from '../solver';
+import { UM_PER_MM, evaluatePoint, prepareDesign, summarizeDesign, type SlitFunction } from '../solver';
 import { tracedLineShape } from './line-shape';
 import {
   add3,
@@ -211,6 +211,36 @@ function unreachable(wavelengthNm: number, role: TracedWavelength['role'], slitL
   };
 }
 
+/**
+ * The whole entrance slit (width × height, Halton-spread) traced at one wavelength, the traced
+ * dispersion from chief rays at λ ± 10⁻⁵λ through the same setting, and the traced line shape
+ * with its FWHM against the solver's trapezoid.
+ */
+function wholeSlit(design: Design, setting: Setting, wavelengthNm: number, rays: number, closedForm: SlitFunction) {
+  const w = setting.mount.launch.slitWidthMm;
+  const h = setting.mount.launch.slitHeightMm;
+  const whole = launch(setting, rays, {
+    s: halton(rays, 5).map((u) => u * w),
+    t: halton(rays, 7).map((u) => u * h),
+    a: halton(rays, 2),
+    b: halton(rays, 3),
+  });
+  const arrived = traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, whole);
+  const xs = new Float64Array(arrived);
+  for (let i = 0, k = 0; i < whole.count; i++) if (whole.fate[i] === FATE.arrived) xs[k++] = whole.x[i]!;
+  const dλ = wavelengthNm * 1e-5;
+  const up = chiefXY(setting, wavelengthNm + dλ, 0, 0);
+  const down = chiefXY(setting, wavelengthNm - dλ, 0, 0);
+  const dispersion = up && down ? (up.x - down.x) / (2 * dλ) : 0;
+  const exitWidthMm = design.slits.exitWidthUm / UM_PER_MM;
+  const empty = new Float64Array(0);
+  const { lineShape, fwhmNm } =
+    dispersion !== 0 && arrived > 0
+      ? tracedLineShape(xs, exitWidthMm, dispersion, closedForm)
+      : { lineShape: { offsetNm: empty, traced: empty, closedForm: empty }, fwhmNm: null };
+  return { whole, arrived, dispersion, lineShape, fwhmNm };
+}
+
 function traceWavelength(
   design: Design,
   setting: Setting,
@@ -240,31 +270,8 @@ function traceWavelength(
   });
   const centre = centreMoments as ReturnType<typeof spotMoments> | null;
 
-  // The whole slit, for the line shape.
-  const w = setting.mount.launch.slitWidthMm;
-  const across = halton(rays, 5);
-  const along = halton(rays, 7);
-  const whole = launch(setting, rays, {
-    s: across.map((u) => u * w),
-    t: along.map((u) => u * h),
-    a: halton(rays, 2),
-    b: halton(rays, 3),
-  });
-  const arrived = traceBundle(setting.mount, setting.grating, setting.image, wavelengthNm, whole);
+  const { whole, arrived, dispersion, lineShape, fwhmNm } = wholeSlit(design, setting, wavelengthNm, rays, point.slitFunction);
   const wholeMoments = spotMoments(whole);
-  const xs = new Float64Array(arrived);
-  for (let i = 0, k = 0; i < whole.count; i++) if (whole.fate[i] === FATE.arrived) xs[k++] = whole.x[i]!;
-
-  // Traced dispersion: the chief ray at λ ± δ through the same grating setting.
-  const dλ = wavelengthNm * 1e-5;
-  const up = chiefXY(setting, wavelengthNm + dλ, 0, 0);
-  const down = chiefXY(setting, wavelengthNm - dλ, 0, 0);
-  const dispersion = up && down ? (up.x - down.x) / (2 * dλ) : 0;
-  const exitWidthMm = design.slits.exitWidthUm / UM_PER_MM;
-  const { lineShape, fwhmNm } =
-    dispersion !== 0 && arrived > 0
-      ? tracedLineShape(xs, exitWidthMm, dispersion, point.slitFunction)
-      : { lineShape: unreachable(wavelengthNm, role, 0).lineShape, fwhmNm: null };
 
   const [mid, top, bottom] = spots as [Spot, Spot, Spot];
   const sagitta = top.raysLaunched > top.raysVignetted && bottom.raysLaunched > bottom.raysVignetted
@@ -352,8 +359,7 @@ const TILT_SAMPLES = 5;
  * centre at five wavelengths spread over the detector (inside the range), and the least-squares
  * line through their tangential foci against their x.
  */
-function detectorTiltOf(design: Design, setting: Setting, rays: number): DetectorTilt | null {
-  const coverage = summarizeDesign(design).detector;
+function detectorTiltOf(design: Design, coverage: Prepared['detector'], setting: Setting, rays: number): DetectorTilt | null {
   if (!coverage) return null;
   const lo = Math.max(design.range.startNm, coverage.startNm ?? design.range.startNm);
   const hi = Math.min(design.range.endNm, coverage.endNm ?? design.range.endNm);
@@ -391,17 +397,72 @@ function detectorTiltOf(design: Design, setting: Setting, rays: number): Detecto
   };
 }
 
+/** What every trace of one design shares: its mount, mode, the grating at the centre and the image plane. */
+interface Prepared {
+  mount: Mount;
+  mode: TraceReport['mode'];
+  centreNm: number;
+  /** Null when the centre wavelength cannot be traced (then nothing can be). */
+  straight: Setting | null;
+  detector: ReturnType<typeof summarizeDesign>['detector'];
+}
+
+function prepare(design: Design): Prepared {
+  const mount = buildMount(design);
+  const centreNm = (design.range.startNm + design.range.endNm) / 2;
+  const detector = summarizeDesign(design).detector;
+  // A detector that holds the whole range at one setting makes a spectrograph: the grating stays
+  // at the range centre. Otherwise the grating turns to each wavelength, as a scanning instrument's does.
+  const mode: TraceReport['mode'] = detector?.coversRange ? 'spectrograph' : 'monochromator';
+  const centreGrating = gratingAt(design, centreNm);
+  const image = centreGrating ? imagePlaneOf(mount, centreGrating, centreNm) : null;
+  const straight = centreGrating && image ? { mount, grating: centreGrating, image, curve: () => 0 } : null;
+  return { mount, mode, centreNm, straight, detector };
+}
+
+/** The setting a wavelength is traced with: the grating turned to it (monochromator) or at the centre. */
+function settingFor(design: Design, prepared: Prepared, straight: Setting, wavelengthNm: number, curve: (t: number) => number): Setting | null {
+  const grating = prepared.mode === 'monochromator' ? gratingAt(design, wavelengthNm) : straight.grating;
+  return grating ? { ...straight, grating, curve } : null;
+}
+
+/**
+ * Only the traced FWHM at each of `wavelengthsNm` (with the slit-limited one beside it), for a
+ * requirement judged on the traced bandpass: the same whole-slit rays as `traceDesign` at the same
+ * ray count (so the same figure the card shows), without the spots, foci or detector tilt.
+ */
+export function tracedBandpasses(
+  design: Design,
+  wavelengthsNm: readonly number[],
+  rays: number = TRACE_LIMITS.defaultRays,
+): { wavelengthNm: number; reachable: boolean; fwhmNm: number | null; slitLimitedNm: number | null }[] {
+  const count = clampRays(rays);
+  const prepared = prepare(design);
+  const plan = prepareDesign(design);
+  return wavelengthsNm.map((wavelengthNm) => {
+    const point = evaluatePoint(plan, wavelengthNm);
+    const slitLimitedNm = point.bandpassNm;
+    const setting = prepared.straight && settingFor(design, prepared, prepared.straight, wavelengthNm, () => 0);
+    if (!setting || !point.slitFunction || !chiefXY(setting, wavelengthNm, 0, 0)) {
+      return { wavelengthNm, reachable: false, fwhmNm: null, slitLimitedNm };
+    }
+    const { fwhmNm } = wholeSlit(design, setting, wavelengthNm, count, point.slitFunction);
+    return { wavelengthNm, reachable: true, fwhmNm, slitLimitedNm };
+  });
+}
+
+function clampRays(rays: number | undefined): number {
+  return Math.min(TRACE_LIMITS.maxRays, Math.max(TRACE_LIMITS.minRays, Math.round(rays ?? TRACE_LIMITS.defaultRays)));
+}
+
 /**
  * Traces `design` at its range's start, centre and end and at `options.atNm`. Never throws on a
  * schema-valid design: a wavelength that cannot be traced is marked unreachable.
  */
 export function traceDesign(design: Design, options: TraceOptions = {}): TraceReport {
-  const rays = Math.min(TRACE_LIMITS.maxRays, Math.max(TRACE_LIMITS.minRays, Math.round(options.rays ?? TRACE_LIMITS.defaultRays)));
-  // A detector that holds the whole range at one setting makes a spectrograph: the grating stays
-  // at the range centre. Otherwise the grating turns to each wavelength, as a scanning instrument's does.
-  const mode: TraceReport['mode'] = summarizeDesign(design).detector?.coversRange ? 'spectrograph' : 'monochromator';
-  const mount = buildMount(design);
-  const centreNm = (design.range.startNm + design.range.endNm) / 2;
+  const rays = clampRays(options.rays);
+  const prepared = prepare(design);
+  const { mount, mode, centreNm, straight } = prepared;
   const wanted = traceWavelengths(design, options.atNm);
   const exitSlit = { widthMm: design.slits.exitWidthUm / UM_PER_MM, heightMm: design.slits.heightMm };
   const pixel = design.detector ? { widthMm: design.detector.pixelPitchUm / UM_PER_MM } : null;
@@ -415,18 +476,17 @@ export function traceDesign(design: Design, options: TraceOptions = {}): TraceRe
     exitSlit,
     pixel,
   };
-  const centreGrating = gratingAt(design, centreNm);
-  const image = centreGrating ? imagePlaneOf(mount, centreGrating, centreNm) : null;
-  if (!centreGrating || !image) {
+  const plan = prepareDesign(design);
+  const slitLimited = (nm: number) => evaluatePoint(plan, nm).bandpassNm ?? 0;
+  if (!straight) {
     return {
       ...base,
-      wavelengths: wanted.map((w) => unreachable(w.wavelengthNm, w.role, evaluatePoint(prepareDesign(design), w.wavelengthNm).bandpassNm ?? 0)),
+      wavelengths: wanted.map((w) => unreachable(w.wavelengthNm, w.role, slitLimited(w.wavelengthNm))),
       straighteningRadiusMm: null,
       curvedEntrance: false,
       detectorTilt: null,
     };
   }
-  const straight: Setting = { mount, grating: centreGrating, image, curve: () => 0 };
   // The centre's bow, from two point sources at the slit's ends, sets the straightening curve.
   const h = mount.launch.slitHeightMm;
   const topX = chiefXY(straight, centreNm, 0, h / 2);
@@ -437,18 +497,14 @@ export function traceDesign(design: Design, options: TraceOptions = {}): TraceRe
   const curvedEntrance = options.curvedEntrance === true && radiusMm !== null;
 
   const traced = wanted.map(({ wavelengthNm, role }) => {
-    const grating = mode === 'monochromator' ? gratingAt(design, wavelengthNm) : centreGrating;
-    if (!grating) {
-      return unreachable(wavelengthNm, role, evaluatePoint(prepareDesign(design), wavelengthNm).bandpassNm ?? 0);
-    }
-    return traceWavelength(design, { mount, grating, image, curve: curvedEntrance ? curve : () => 0 }, wavelengthNm, role, rays);
+    const setting = settingFor(design, prepared, straight, wavelengthNm, curvedEntrance ? curve : () => 0);
+    return setting ? traceWavelength(design, setting, wavelengthNm, role, rays) : unreachable(wavelengthNm, role, slitLimited(wavelengthNm));
   });
   return {
     ...base,
     wavelengths: traced,
     straighteningRadiusMm: radiusMm,
     curvedEntrance,
-    detectorTilt: design.detector ? detectorTiltOf(design, straight, rays) : null,
+    detectorTilt: design.detector ? detectorTiltOf(design, prepared.detector, straight, rays) : null,
   };
 }
-

@@ -7,7 +7,7 @@ import {
   TRACED_REQUIREMENT_RAYS,
 } from '@/features/requirements';
 import { evaluateDesign } from '@/features/solver';
-import { traceDesign, type TraceReport, type TracedWavelength } from '@/features/trace';
+import { traceDesign, tracedBandpasses } from '@/features/trace';
 import type { Design } from '@/shared/design';
 import { requirementsSchema, type Requirements } from '@/shared/requirements';
 
@@ -19,11 +19,11 @@ import { requirementsSchema, type Requirements } from '@/shared/requirements';
 
 vi.mock('@/features/trace/index', async (importOriginal) => {
   const actual = await importOriginal<typeof import('@/features/trace/index')>();
-  return { ...actual, traceDesign: vi.fn(actual.traceDesign) };
+  return { ...actual, tracedBandpasses: vi.fn(actual.tracedBandpasses) };
 });
 
 afterEach(() => {
-  vi.mocked(traceDesign).mockClear();
+  vi.mocked(tracedBandpasses).mockClear();
   clearTracedBandpassCache();
 });
 
@@ -88,59 +88,35 @@ describe('a traced bandpass requirement with the real trace', () => {
     const check = checkRequirements(design).checks[0]!;
     // 100 nm is far wider than any blur of this instrument: every traced wavelength passes.
     expect(check.status).toBe('pass');
-    const calls = vi.mocked(traceDesign).mock.calls;
+    const calls = vi.mocked(tracedBandpasses).mock.calls;
     expect(calls).toHaveLength(1);
-    expect(calls[0]![1]).toEqual({ rays: TRACED_REQUIREMENT_RAYS, atNm: [450, 550] });
+    expect(calls[0]!.slice(1)).toEqual([[400, 450, 500, 550, 600], TRACED_REQUIREMENT_RAYS]);
+  });
+
+  it('judges the figure the trace card shows: the same FWHM as the whole trace at the same rays', () => {
+    const design = fastCzernyTurner({ maxBandpassNm: 100, bandpassBasis: 'traced' });
+    const lean = tracedBandpasses(design, [450, 500], TRACED_REQUIREMENT_RAYS);
+    const whole = traceDesign(design, { rays: TRACED_REQUIREMENT_RAYS, atNm: [450] }).wavelengths;
+    for (const entry of lean) {
+      const same = whole.find((w) => w.wavelengthNm === entry.wavelengthNm)!;
+      expect(entry.fwhmNm).toBe(same.tracedFwhmNm);
+      expect(entry.slitLimitedNm).toBe(same.slitLimitedFwhmNm);
+    }
   });
 });
 
-/** A reachable traced wavelength with only the figures the check reads filled in. */
-function tracedAt(wavelengthNm: number, tracedFwhmNm: number | null, reachable = true): TracedWavelength {
-  const empty = new Float64Array(0);
-  return {
-    wavelengthNm,
-    role: 'asked',
-    reachable,
-    spots: [],
-    raysLaunched: 1500,
-    raysTraced: 1500,
-    raysVignetted: 0,
-    centroidMm: { x: 0, y: 0 },
-    rmsWidthMm: 0,
-    rmsHeightMm: 0,
-    lineShape: { offsetNm: empty, traced: empty, closedForm: empty },
-    tracedFwhmNm,
-    slitLimitedFwhmNm: 0.1,
-    curvatureSagittaMm: 0,
-    tracedLinearDispersionMmPerNm: 1,
-    cameraToImageMm: 100,
-    bestFocusShiftMm: 0,
-    tangentialFocusShiftMm: 0,
-    sagittalFocusShiftMm: 0,
-    astigmatismMm: 0,
-    throughFocus: { shiftMm: empty, rmsWidthMm: empty },
-  };
-}
+type Lean = ReturnType<typeof tracedBandpasses>[number];
 
-function reportOf(wavelengths: TracedWavelength[]): TraceReport {
-  return {
-    imagePlane: 'test',
-    mode: 'monochromator',
-    raysPerWavelength: 1500,
-    wavelengths,
-    straighteningRadiusMm: null,
-    curvedEntrance: false,
-    detectorTilt: null,
-    exitSlit: { widthMm: 0.01, heightMm: 2 },
-    pixel: null,
-  };
+/** One wavelength as the engine's lean path answers it. */
+function tracedAt(wavelengthNm: number, fwhmNm: number | null, reachable = true): Lean {
+  return { wavelengthNm, reachable, fwhmNm, slitLimitedNm: reachable ? 0.1 : null };
 }
 
 describe('the traced check’s own rules', () => {
   const design = fastCzernyTurner({ maxBandpassNm: 0.5, atWavelengthsNm: [450, 550], bandpassBasis: 'traced' });
 
   it('fails a wavelength whose traced FWHM is unknown, naming it, instead of passing it', () => {
-    vi.mocked(traceDesign).mockReturnValueOnce(reportOf([tracedAt(400, 0.2), tracedAt(450, 0.3), tracedAt(500, 0.2), tracedAt(550, null), tracedAt(600, 0.2)]));
+    vi.mocked(tracedBandpasses).mockReturnValueOnce([tracedAt(450, 0.3), tracedAt(550, null)]);
     const check = checkRequirements(design).checks[0]!;
     expect(check.status).toBe('fail');
     expect(check.worstWavelengthNm).toBe(550);
@@ -151,14 +127,14 @@ describe('the traced check’s own rules', () => {
   });
 
   it('fails a listed wavelength the grating cannot send through', () => {
-    vi.mocked(traceDesign).mockReturnValueOnce(reportOf([tracedAt(450, 0.3), tracedAt(550, null, false)]));
+    vi.mocked(tracedBandpasses).mockReturnValueOnce([tracedAt(450, 0.3), tracedAt(550, null, false)]);
     const check = checkRequirements(design).checks[0]!;
     expect(check.status).toBe('fail');
     expect(check.message).toMatch(/^traced bandpass unreachable at 550\u00A0nm/);
   });
 
   it('judges the worst traced figure against the limit: 0.3 nm under 0.5 nm is 40 % to spare', () => {
-    vi.mocked(traceDesign).mockReturnValueOnce(reportOf([tracedAt(450, 0.3), tracedAt(550, 0.25)]));
+    vi.mocked(tracedBandpasses).mockReturnValueOnce([tracedAt(450, 0.3), tracedAt(550, 0.25)]);
     const check = checkRequirements(design).checks[0]!;
     expect(check.status).toBe('pass');
     // (0.5 − 0.3) / 0.5 = 0.4.
@@ -167,7 +143,7 @@ describe('the traced check’s own rules', () => {
   });
 
   it('says so when the trace cannot run, and never passes', () => {
-    vi.mocked(traceDesign).mockImplementationOnce(() => {
+    vi.mocked(tracedBandpasses).mockImplementationOnce(() => {
       throw new Error('the mount has no camera');
     });
     const check = checkRequirements(design).checks[0]!;
@@ -180,21 +156,17 @@ describe('the traced check’s own rules', () => {
       checkRequirements({ ...fastCzernyTurner({ maxBandpassNm: limit, atWavelengthsNm: [500], bandpassBasis: 'traced' }), slits: { entranceWidthUm: 10, exitWidthUm, heightMm: 2 } });
     at(0.5);
     at(0.6);
-    expect(vi.mocked(traceDesign).mock.calls).toHaveLength(1);
+    expect(vi.mocked(tracedBandpasses).mock.calls).toHaveLength(1);
     at(0.6, 20);
-    expect(vi.mocked(traceDesign).mock.calls).toHaveLength(2);
+    expect(vi.mocked(tracedBandpasses).mock.calls).toHaveLength(2);
   });
 
-  it('traces a long wavelength list in chunks the engine accepts (at most 8 asked per call)', () => {
+  it('traces a long wavelength list in one call, each listed wavelength once', () => {
     const listed = Array.from({ length: 12 }, (_, i) => 401 + i * 15);
-    vi.mocked(traceDesign).mockImplementation((_d, options) => reportOf((options?.atNm ?? []).map((nm) => tracedAt(nm, 0.2))));
-    try {
-      const check = checkRequirements(fastCzernyTurner({ maxBandpassNm: 0.5, atWavelengthsNm: listed, bandpassBasis: 'traced' })).checks[0]!;
-      expect(check.status).toBe('pass');
-      expect(vi.mocked(traceDesign).mock.calls.map((call) => call[1]?.atNm?.length)).toEqual([8, 4]);
-    } finally {
-      vi.mocked(traceDesign).mockReset();
-    }
+    vi.mocked(tracedBandpasses).mockImplementationOnce((_d, nms) => nms.map((nm) => tracedAt(nm, 0.2)));
+    const check = checkRequirements(fastCzernyTurner({ maxBandpassNm: 0.5, atWavelengthsNm: listed, bandpassBasis: 'traced' })).checks[0]!;
+    expect(check.status).toBe('pass');
+    expect(vi.mocked(tracedBandpasses).mock.calls.map((call) => call[1])).toEqual([listed]);
   });
 
   it('leaves the traced limit out of the plots’ per-point shading, which has no traced figure', () => {
