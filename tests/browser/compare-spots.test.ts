@@ -59,6 +59,9 @@ describe('compare: spot diagrams in Chromium', () => {
     for (const v of [1, 2]) expect(((await page.getByTestId(`compare-spot-v${v}-rays`).getAttribute('d')) ?? '').length).toBeGreaterThan(100);
     await expect.poll(() => page.getByTestId('compare-spots-change').textContent()).toMatch(/^From v1 to v2: RMS width \S+\sµm → \S+\sµm \(.+\); traced FWHM \S+\snm → \S+\snm \(.+\)\.$/);
     expect(await page.getByTestId('compare-spot-v1-figures').textContent()).toMatch(/^Traced FWHM \d\S*\snm \(slit-limited \d\S*\snm\)$/);
+    // Both squares at one scale: the same scale bar under each.
+    const scaleOf = async (v: number) => /scale bar ([^;.]+)/.exec((await page.getByTestId(`compare-spot-v${v}`).getAttribute('aria-label')) ?? '')?.[1];
+    await expect.poll(async () => (await scaleOf(1)) !== undefined && (await scaleOf(1)) === (await scaleOf(2))).toBe(true);
     for (const size of ['phone', 'wide'] as const) {
       await page.setViewportSize(viewports[size]);
       await page.waitForTimeout(250);

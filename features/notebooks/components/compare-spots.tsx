@@ -1,11 +1,12 @@
-import type { ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Design } from '@/shared/design';
 import { formatQuantity } from '@/shared/format';
 import type { TraceOptions } from '@/shared/trace';
 import { SpotDiagram, useTrace, type TraceState } from '@/features/trace/ui';
 import { Card, Text, space } from '@/features/ui';
-import { centreWavelengthSpot, spotChangeWords, type ComparedSpot } from '../compare-spots';
+import type { SpotWindow } from '@/features/trace/spot-figure';
+import { centreWavelengthSpot, sharedSpotWindows, spotChangeWords, type ComparedSpot } from '../compare-spots';
 
 /** The trace's defaults (rays, straight slit): the same figures the workbench's card shows first. */
 const OPTIONS: TraceOptions = {};
@@ -16,7 +17,7 @@ function pickedSpot(state: TraceState): ComparedSpot | null {
   return state.report ? centreWavelengthSpot(state.report) : null;
 }
 
-function SpotColumn({ side, state, sizePx }: { side: Side; state: TraceState; sizePx: number }) {
+function SpotColumn({ side, state, sizePx, window }: { side: Side; state: TraceState; sizePx: number; window?: SpotWindow }) {
   const spot = pickedSpot(state);
   const testID = `compare-spot-v${side.number}`;
   const head = spot?.ok
@@ -30,7 +31,7 @@ function SpotColumn({ side, state, sizePx }: { side: Side; state: TraceState; si
     const w = spot.wavelength;
     body = (
       <>
-        <SpotDiagram wavelength={w} spot={spot.spot} aperture={spot.aperture} sizePx={sizePx} testID={testID} />
+        <SpotDiagram wavelength={w} spot={spot.spot} aperture={spot.aperture} sizePx={sizePx} window={window} testID={testID} />
         <Text variant="small" testID={`${testID}-figures`}>
           {`Traced FWHM ${w.tracedFwhmNm === null ? 'none' : formatQuantity(w.tracedFwhmNm, 'nm', 3)} (slit-limited ${formatQuantity(w.slitLimitedFwhmNm, 'nm', 3)})`}
         </Text>
@@ -56,17 +57,22 @@ export function CompareSpots({ before, after, width }: { before: Side; after: Si
   const a = useTrace(before.params, OPTIONS);
   const b = useTrace(after.params, OPTIONS);
   const sizePx = Math.max(120, Math.min(260, Math.floor((width - space.lg) / 2)));
-  const spotA = pickedSpot(a);
-  const spotB = pickedSpot(b);
+  const spotA = useMemo(() => pickedSpot(a), [a]);
+  const spotB = useMemo(() => pickedSpot(b), [b]);
+  // Both at one scale once both are traced, so a sharper spot reads smaller, not magnified.
+  const windows = useMemo(
+    () => (spotA?.ok && spotB?.ok ? sharedSpotWindows([spotA, spotB], sizePx) : null),
+    [spotA, spotB, sizePx],
+  );
   return (
     <Card title="Spot diagrams at the centre wavelength" testID="compare-spots">
       <Text variant="small" tone="muted">
         The rays from the middle of each version’s entrance slit at the centre of its range, where they cross the image plane:
-        across is the dispersion, up is along the slit. Each square has its own scale bar.
+        across is the dispersion, up is along the slit. Both squares are drawn at one scale.
       </Text>
       <View style={styles.row}>
-        <SpotColumn side={before} state={a} sizePx={sizePx} />
-        <SpotColumn side={after} state={b} sizePx={sizePx} />
+        <SpotColumn side={before} state={a} sizePx={sizePx} window={windows?.[0]} />
+        <SpotColumn side={after} state={b} sizePx={sizePx} window={windows?.[1]} />
       </View>
       {spotA?.ok && spotB?.ok ? (
         <Text variant="small" weight="semibold" testID="compare-spots-change">

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import Svg, { Line, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { Text, colors, fonts, space } from '@/features/ui';
 import { heightLabel, micrometres, spotWords } from '../image-quality-words';
-import { scaleBar, spotDots, spotWindow, toPx } from '../spot-figure';
+import { scaleBar, spotDots, spotWindow, toPx, type SpotWindow } from '../spot-figure';
 import type { Spot, TracedWavelength } from '../types';
 
 type Props = {
@@ -14,6 +14,8 @@ type Props = {
   /** One pixel's width, marked at the top about the spot (a monochromator that names a detector); null for none. */
   pixelMm?: number | null;
   sizePx: number;
+  /** A window chosen elsewhere (two spots at one scale on the compare screen); by default the spot's own. */
+  window?: SpotWindow;
   testID: string;
 };
 
@@ -21,14 +23,14 @@ type Props = {
 const SCALE_BAND_PX = 16;
 
 /** One spot at the image plane: its rays, the slit or pixel to the same scale along x and y, a scale bar. */
-export const SpotDiagram = memo(function SpotDiagram({ wavelength, spot, aperture, pixelMm = null, sizePx, testID }: Props) {
+export const SpotDiagram = memo(function SpotDiagram({ wavelength, spot, aperture, pixelMm = null, sizePx, window: given, testID }: Props) {
   const drawn = useMemo(() => {
-    const window = spotWindow(spot.x, spot.y, spot.centroidMm, aperture, sizePx);
+    const window = given ?? spotWindow(spot.x, spot.y, spot.centroidMm, aperture, sizePx);
     const left = toPx(window, aperture.centreXMm - aperture.widthMm / 2, 0).px;
     const right = toPx(window, aperture.centreXMm + aperture.widthMm / 2, 0).px;
     const pixelPx = pixelMm === null ? null : pixelMm * (sizePx / (2 * window.halfMm));
     return { window, dots: spotDots(window, spot.x, spot.y), left, right, bar: scaleBar(window), pixelPx };
-  }, [spot, aperture, pixelMm, sizePx]);
+  }, [spot, aperture, pixelMm, sizePx, given]);
   const { dots, left, right, bar, pixelPx } = drawn;
   const clampedLeft = Math.max(0, Math.min(sizePx, left));
   const clampedRight = Math.max(0, Math.min(sizePx, right));
