@@ -11,7 +11,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gzipSync } from 'node:zlib';
 import { ensureWebBuild } from '../scripts/web-build';
-import { launchBrowser, startServer, viewports } from '../tests/support/browser';
+import { ensureTemplate } from '../tests/support/db-template';
+import { launchBrowser, startServer, viewports } from '../tests/support/live-server';
 
 const rootDir = fileURLToPath(new URL('..', import.meta.url));
 const EDITS = 50;
@@ -40,7 +41,7 @@ const rawSize = (list: string[]) => list.reduce((sum, file) => sum + statSync(fi
 const gzipSize = (list: string[]) =>
   list.reduce((sum, file) => sum + gzipSync(readFileSync(file), { level: 9 }).length, 0);
 
-const server = await startServer();
+const server = await startServer((await ensureTemplate()).dataDirTemplate);
 const browser = await launchBrowser();
 try {
   const loads: number[] = [];

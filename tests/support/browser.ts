@@ -1,78 +1,21 @@
-import { spawn, type ChildProcess } from 'node:child_process';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, BrowserContextOptions, Page } from 'playwright-core';
 import { afterAll, beforeAll, inject } from 'vitest';
-import { webRoot } from '../../scripts/web-build';
+import { launchBrowser, startServer as startLiveServer, type RunningServer } from './live-server';
 
 const rootDir = fileURLToPath(new URL('../..', import.meta.url));
 export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
-export const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-export const viewports = {
-  phone: { width: 390, height: 844 },
-  tablet: { width: 820, height: 1180 },
-  wide: { width: 1440, height: 900 },
-} as const;
-export type ViewportName = keyof typeof viewports;
-
-export type RunningServer = { url: string; dataDir: string; output: () => string; stop(): Promise<void> };
+export { chromiumPath, launchBrowser, viewports, type RunningServer, type ViewportName } from './live-server';
 
 /**
- * Starts the real server (`server/index.ts`) on a free port with its own temporary data directory,
- * and resolves once it prints its ready line. The directory starts as a copy of the migrated
- * template (db-template.ts), as a fresh one would be after its first start, without the initdb.
- * `node --import tsx`, as `npm start` runs it: the tsx command would add a second Node process.
+ * Starts the real server on a copy of the migrated template (db-template.ts provides it to every
+ * test project); see live-server.ts.
  */
-export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
-  const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
-  cpSync(inject('dataDirTemplate'), dataDir, { recursive: true });
-  let log = '';
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: rootDir,
-    env: {
-      ...process.env,
-      PORT: '0',
-      HOST: '127.0.0.1',
-      DATA_DIR: dataDir,
-      NODE_ENV: 'test',
-      WEB_ROOT: webRoot(rootDir),
-      ...env,
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  const url = await new Promise<string>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`Server did not start within 60 s:\n${log}`)), 60_000);
-    const onData = (chunk: Buffer) => {
-      log += chunk.toString();
-      const match = /ready at (http:\/\/\S+)/.exec(log);
-      if (match?.[1]) {
-        clearTimeout(timer);
-        resolve(match[1].replace('localhost', '127.0.0.1'));
-      }
-    };
-    child.stdout?.on('data', onData);
-    child.stderr?.on('data', (chunk: Buffer) => (log += chunk.toString()));
-    child.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`Server exited with code ${code} before it was ready:\n${log}`));
-    });
-  });
-  return {
-    url,
-    dataDir,
-    output: () => log,
-    async stop() {
-      if (child.exitCode === null) {
-        const exited = new Promise((resolve) => child.once('exit', resolve));
-        child.kill('SIGTERM');
-        await exited;
-      }
-      rmSync(dataDir, { recursive: true, force: true });
-    },
-  };
+export function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
+  return startLiveServer(inject('dataDirTemplate'), env);
 }
 
 /** Page errors and console errors as they happen: a test ends by expecting the list empty. */
@@ -83,29 +26,6 @@ export function watchConsole(page: Page): string[] {
     if (message.type() === 'error') errors.push(message.text());
   });
   return errors;
-}
-
-/** Debian's Chromium through playwright-core. Missing Chromium is a failure, never a skip. */
-export async function launchBrowser(): Promise<Browser> {
-  if (!existsSync(chromiumPath)) {
-    throw new Error(
-      `Chromium was not found at ${chromiumPath}. Browser tests need it: install it with ` +
-        '`sudo apt-get install -y chromium` (Debian), or set CHROMIUM_PATH to a Chromium binary.',
-    );
-  }
-  return chromium.launch({
-    executablePath: chromiumPath,
-    headless: true,
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-    ],
-  });
 }
 
 /** Saves a full-page screenshot to tests/artifacts/<name>.png and returns its path. */

@@ -50,7 +50,7 @@ function templateKey(): string {
  * start; a cached template costs nothing. Runs in parallel are safe: a template is built aside and
  * renamed into place whole.
  */
-export default async function setup(project: TestProject) {
+export async function ensureTemplate(): Promise<{ dbTemplatePath: string; dataDirTemplate: string }> {
   mkdirSync(cacheDir, { recursive: true });
   const key = templateKey();
   const dir = path.join(cacheDir, key);
@@ -73,6 +73,12 @@ export default async function setup(project: TestProject) {
     if (entry !== key && Date.now() - statSync(old).mtimeMs > day)
       rmSync(old, { recursive: true, force: true });
   }
-  project.provide('dbTemplatePath', path.join(dir, 'template.tar'));
-  project.provide('dataDirTemplate', path.join(dir, 'data'));
+  return { dbTemplatePath: path.join(dir, 'template.tar'), dataDirTemplate: path.join(dir, 'data') };
+}
+
+/** Vitest's global setup: the template's two forms, provided to every test of the project. */
+export default async function setup(project: TestProject) {
+  const { dbTemplatePath, dataDirTemplate } = await ensureTemplate();
+  project.provide('dbTemplatePath', dbTemplatePath);
+  project.provide('dataDirTemplate', dataDirTemplate);
 }

@@ -1,0 +1,103 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { cpSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser } from 'playwright-core';
+import { webRoot } from '../../scripts/web-build';
+
+/**
+ * The real server and Debian's Chromium, without Vitest: the browser tests use them through
+ * browser.ts, and `npm run bench:ui` (plain tsx, where Vitest cannot be imported) directly.
+ */
+
+const rootDir = fileURLToPath(new URL('../..', import.meta.url));
+export const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+export const viewports = {
+  phone: { width: 390, height: 844 },
+  tablet: { width: 820, height: 1180 },
+  wide: { width: 1440, height: 900 },
+} as const;
+export type ViewportName = keyof typeof viewports;
+
+export type RunningServer = { url: string; dataDir: string; output: () => string; stop(): Promise<void> };
+
+/**
+ * Starts the real server (`server/index.ts`) on a free port with its own temporary data directory,
+ * and resolves once it prints its ready line. The directory starts as a copy of the migrated
+ * template (db-template.ts), as a fresh one would be after its first start, without the initdb.
+ * `node --import tsx`, as `npm start` runs it: the tsx command would add a second Node process.
+ */
+export async function startServer(dataDirTemplate: string, env: Record<string, string> = {}): Promise<RunningServer> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
+  cpSync(dataDirTemplate, dataDir, { recursive: true });
+  let log = '';
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: rootDir,
+    env: {
+      ...process.env,
+      PORT: '0',
+      HOST: '127.0.0.1',
+      DATA_DIR: dataDir,
+      NODE_ENV: 'test',
+      WEB_ROOT: webRoot(rootDir),
+      ...env,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  const url = await new Promise<string>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`Server did not start within 60 s:\n${log}`)), 60_000);
+    const onData = (chunk: Buffer) => {
+      log += chunk.toString();
+      const match = /ready at (http:\/\/\S+)/.exec(log);
+      if (match?.[1]) {
+        clearTimeout(timer);
+        resolve(match[1].replace('localhost', '127.0.0.1'));
+      }
+    };
+    child.stdout?.on('data', onData);
+    child.stderr?.on('data', (chunk: Buffer) => (log += chunk.toString()));
+    child.once('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`Server exited with code ${code} before it was ready:\n${log}`));
+    });
+  });
+  return {
+    url,
+    dataDir,
+    output: () => log,
+    async stop() {
+      if (child.exitCode === null) {
+        const exited = new Promise((resolve) => child.once('exit', resolve));
+        child.kill('SIGTERM');
+        await exited;
+      }
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Debian's Chromium through playwright-core. Missing Chromium is a failure, never a skip. */
+export async function launchBrowser(): Promise<Browser> {
+  if (!existsSync(chromiumPath)) {
+    throw new Error(
+      `Chromium was not found at ${chromiumPath}. Browser tests need it: install it with ` +
+        '`sudo apt-get install -y chromium` (Debian), or set CHROMIUM_PATH to a Chromium binary.',
+    );
+  }
+  return chromium.launch({
+    executablePath: chromiumPath,
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+}
+
