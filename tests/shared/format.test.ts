@@ -140,3 +140,20 @@ describe('numbers with units', () => {
     expect(formatTypedNumber('')).toBe('');
   });
 });
+
+describe('plain figures written from Intl’s text', () => {
+  it('match Intl’s parts with a narrow space between groups and a true minus, over many values', () => {
+    // The reference reads Intl.NumberFormat's own parts (ECMA-402 formatToParts), independently of
+    // the swap of ',' and '-' the formatter does for speed.
+    const byParts = (value: number, options: Intl.NumberFormatOptions) =>
+      new Intl.NumberFormat('en-US', { useGrouping: 'min2', signDisplay: 'negative', ...options })
+        .formatToParts(value)
+        .map((part) => (part.type === 'group' ? '\u202F' : part.type === 'minusSign' ? '\u2212' : part.value))
+        .join('');
+    for (let i = -2000; i <= 2000; i++) {
+      const value = i * 37.123 * 10 ** ((i % 7) - 2);
+      if (Math.abs(value) >= 1e-3 && Math.abs(value) < 1e9) expect(formatNumber(value)).toBe(byParts(value, { maximumSignificantDigits: 4 }));
+      expect(formatFixed(value, 2)).toBe(byParts(value, { minimumFractionDigits: 2, maximumFractionDigits: 2 }));
+    }
+  });
+});
