@@ -1,15 +1,11 @@
-import { proxy, wrap, type Remote } from 'comlink';
+import { proxy } from 'comlink';
+import { lazyWorker, type MetroRequire } from '@/features/workers/lazy-worker';
 import type { SearchRequest } from '@/shared/search';
 import { createMainThreadRunner, type SearchHandle, type SearchRunner } from './main-thread-runner';
 import type { SearchService } from './search-service';
 import type { OnProgress, SearchOutcome } from './search-steps';
 
 export type { SearchHandle, SearchRunner } from './main-thread-runner';
-
-type Started = { worker: Worker; remote: Remote<SearchService>; failed: Promise<void> };
-
-/** Metro's `require`, which can name a module's worker bundle (typed here: Expo ships no declaration). */
-type MetroRequire = { unstable_resolveWorker(path: string): string };
 
 /**
  * The URL of search.worker.ts's own bundle. Metro seals it as a chunk with everything it imports
@@ -29,36 +25,17 @@ function workerUrl(): string {
  * the page a little less smooth but gives the same answer.
  */
 export function createSearchRunner(): SearchRunner {
-  let started: Started | null = null;
-  let broken = false;
+  const worker = lazyWorker<SearchService>(workerUrl);
   const mainThread = createMainThreadRunner();
-
-  function startWorker(): Started | null {
-    if (started || broken) return started;
-    try {
-      const worker = new Worker(workerUrl());
-      const failed = new Promise<void>((resolve) => worker.addEventListener('error', () => resolve(), { once: true }));
-      started = { worker, remote: wrap<SearchService>(worker), failed };
-    } catch {
-      broken = true;
-    }
-    return started;
-  }
-
-  function giveUpOnWorker() {
-    broken = true;
-    started?.worker.terminate();
-    started = null;
-  }
 
   return {
     start(request: SearchRequest, onProgress: OnProgress): SearchHandle {
-      const inWorker = startWorker();
+      const inWorker = worker.get();
       if (!inWorker) return mainThread.start(request, onProgress);
       let fallback: SearchHandle | null = null;
       let cancelled = false;
       const fallBack = (): Promise<SearchOutcome> => {
-        giveUpOnWorker();
+        worker.giveUp();
         if (cancelled) return Promise.resolve({ kind: 'cancelled', done: 0, total: 0 });
         fallback = mainThread.start(request, onProgress);
         return fallback.outcome;
@@ -78,8 +55,7 @@ export function createSearchRunner(): SearchRunner {
     },
     dispose() {
       mainThread.dispose();
-      started?.worker.terminate();
-      started = null;
+      worker.dispose();
     },
   };
 }

@@ -1,19 +1,10 @@
-import { wrap, type Remote } from 'comlink';
+import { lazyWorker, type MetroRequire } from '@/features/workers/lazy-worker';
 import { createMainThreadTraceRunner, type TraceRunner } from './trace-main-thread';
 import type { TraceService } from './trace-service';
 
 export type { TraceRunner } from './trace-main-thread';
 
-type Started = { worker: Worker; remote: Remote<TraceService>; failed: Promise<void> };
-
-/** Metro's `require`, which can name a module's worker bundle (typed here: Expo ships no declaration). */
-type MetroRequire = { unstable_resolveWorker(path: string): string };
-
-/**
- * The URL of trace.worker.ts's own bundle. Not `new Worker(new URL(…, import.meta.url))`: with
- * the optimised graph of the web export Expo 56 drops that form's chunk (see search-runner.web.ts
- * in features/candidates). The argument must stay a string literal for Metro to see it.
- */
+/** The URL of trace.worker.ts's own bundle (the argument must stay a string literal for Metro). */
 function workerUrl(): string {
   return (require as unknown as MetroRequire).unstable_resolveWorker('./trace.worker');
 }
@@ -24,43 +15,22 @@ function workerUrl(): string {
  * start or its script fails, traces run on the main thread from then on: slower frames, same answer.
  */
 export function createTraceRunner(): TraceRunner {
-  let started: Started | null = null;
-  let broken = false;
+  const worker = lazyWorker<TraceService>(workerUrl);
   const mainThread = createMainThreadTraceRunner();
-
-  function startWorker(): Started | null {
-    if (started || broken) return started;
-    try {
-      const worker = new Worker(workerUrl());
-      const failed = new Promise<void>((resolve) => worker.addEventListener('error', () => resolve(), { once: true }));
-      started = { worker, remote: wrap<TraceService>(worker), failed };
-    } catch {
-      broken = true;
-    }
-    return started;
-  }
-
-  function giveUpOnWorker() {
-    broken = true;
-    started?.worker.terminate();
-    started = null;
-  }
-
   return {
     async trace(design, options) {
-      const inWorker = startWorker();
+      const inWorker = worker.get();
       if (!inWorker) return mainThread.trace(design, options);
       const result = await Promise.race([
         inWorker.remote.trace(design, options).then((report) => ({ report })),
         inWorker.failed.then(() => 'failed' as const),
       ]);
       if (result !== 'failed') return result.report;
-      giveUpOnWorker();
+      worker.giveUp();
       return mainThread.trace(design, options);
     },
     dispose() {
-      started?.worker.terminate();
-      started = null;
+      worker.dispose();
     },
   };
 }
