@@ -1,4 +1,5 @@
 export { Button } from './components/button';
+export { DisclosureButton } from './components/disclosure-button';
 export { Card } from './components/card';
 export { Heading } from './components/heading';
 export { RadioGroup } from './components/radio-group';

@@ -1,7 +1,7 @@
 import { memo, useCallback, useDeferredValue, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, Text as RNText, View, type LayoutChangeEvent } from 'react-native';
 import { calibrationReport, type CalibrationReport } from '@/features/solver';
-import { Button, Card, Text, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
+import { Card, DisclosureButton, Text, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import { formatInteger, formatNumber } from '@/shared/format';
 import { LAMP_ELEMENTS, LAMP_ELEMENT_WORDS, LAMP_LINES_MEDIUM, LAMP_LINES_SOURCE, type LampElement } from '@/shared/lamp-lines';
@@ -258,18 +258,10 @@ export const CalibrationCard = memo(function CalibrationCard({ design, collapsed
   );
   // A sweep over every line per design: it may trail the typing by a frame.
   const deferred = useDeferredValue(design);
-  const label = open ? 'Hide the lamp lines' : 'Show the lamp lines';
   return (
     <Card title="Calibration lamp lines" testID="calibration-card">
       <View style={styles.actions}>
-        <Button
-          kind="secondary"
-          label={`${label} ${open ? '▴' : '▾'}`}
-          accessibilityLabel={label}
-          expanded={open}
-          onPress={() => setOpen((o) => !o)}
-          testID="calibration-toggle"
-        />
+        <DisclosureButton open={open} onToggle={() => setOpen((o) => !o)} what="the lamp lines" testID="calibration-toggle" />
       </View>
       {open ? <Body design={deferred} elements={elements} onToggle={onToggle} /> : null}
     </Card>

@@ -2,7 +2,7 @@ import { memo, useCallback, useMemo, useState, type ReactNode } from 'react';
 import { StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 import { XyPlot, type XySeries } from '@/features/selectors';
 import type { Evaluation } from '@/features/solver';
-import { Button, Card, RadioGroup, colors, fonts, radius, space, type } from '@/features/ui';
+import { Button, Card, DisclosureButton, RadioGroup, colors, fonts, radius, space, type } from '@/features/ui';
 import { INPUT_KIND_FIELDS, inputKindWords, type InputText, type InputTextKey } from '@/features/workbench/input-fields';
 import { MAX_DESIGN_CURVES, type DesignCurve } from '@/shared/curves';
 import type { Design } from '@/shared/design';
@@ -294,13 +294,7 @@ export const LightBudgetCard = memo(function LightBudgetCard(props: LightBudgetC
   return (
     <Card title="Light budget" testID="light-budget-card">
       <View style={styles.actions}>
-        <Button
-          kind="secondary"
-          label={open ? 'Hide the light budget' : 'Show the light budget'}
-          onPress={() => setOpen((o) => !o)}
-          expanded={open}
-          testID="light-budget-toggle"
-        />
+        <DisclosureButton open={open} onToggle={() => setOpen((o) => !o)} what="the light budget" testID="light-budget-toggle" />
       </View>
       {open ? (
         <View style={props.dimmed ? styles.dimmed : undefined}>

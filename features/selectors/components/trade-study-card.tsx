@@ -14,7 +14,7 @@ import {
   type TradeVerdict,
   type TradeVerdictStatus,
 } from '@/features/solver';
-import { Button, Card, RadioGroup, TextField, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
+import { Card, DisclosureButton, RadioGroup, TextField, colors, fonts, minTouch, radius, space, type } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import { formatNumber, formatQuantity } from '@/shared/format';
 import { PRISM_MATERIAL_IDS, type PrismMaterialId } from '@/shared/selectors';
@@ -366,12 +366,7 @@ export const TradeStudyCard = memo(function TradeStudyCard({ design, collapsedAt
   return (
     <Card title="Other wavelength selectors" testID="trade-study-card">
       <View style={styles.actions}>
-        <Button
-          kind="secondary"
-          label={open ? 'Hide the trade study' : 'Show the trade study'}
-          onPress={() => setOpen((o) => !o)}
-          testID="trade-study-toggle"
-        />
+        <DisclosureButton open={open} onToggle={() => setOpen((o) => !o)} what="the trade study" testID="trade-study-toggle" />
       </View>
       {open ? <Body design={deferred} /> : null}
       <Link href="/selectors" style={styles.link} testID="trade-study-calculators-link">

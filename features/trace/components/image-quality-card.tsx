@@ -1,7 +1,7 @@
 import { memo, useCallback, useMemo, useState } from 'react';
 import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 // The inbox's switch: the kit has none yet.
-import { Button, Card, RadioGroup, SwitchRow, Text, colors, radius, space } from '@/features/ui';
+import { Card, DisclosureButton, RadioGroup, SwitchRow, Text, colors, radius, space } from '@/features/ui';
 import type { Design } from '@/shared/design';
 import { formatQuantity } from '@/shared/format';
 import { TRACE_LIMITS, TRACE_RAY_CHOICES, type TraceOptions } from '@/shared/trace';
@@ -239,21 +239,13 @@ function Body({ design, readoutNm, strip }: { design: Design; readoutNm: number 
 /** Image quality by exact ray trace: spots, the traced line shape, curvature, astigmatism and coma. */
 export const ImageQualityCard = memo(function ImageQualityCard({ design, readoutNm, collapsedAtFirst, strip }: ImageQualityCardProps) {
   const [open, setOpen] = useState(!collapsedAtFirst);
-  const label = open ? 'Hide the image quality' : 'Show the image quality';
   return (
     <Card title="Image quality" testID="trace-card">
       <Text variant="small" tone="muted">
         Every ray traced through the mirrors and grating, as built: what the first-order figures leave out.
       </Text>
       <View style={styles.actions}>
-        <Button
-          kind="secondary"
-          label={`${label} ${open ? '▴' : '▾'}`}
-          accessibilityLabel={label}
-          expanded={open}
-          onPress={() => setOpen((o) => !o)}
-          testID="trace-toggle"
-        />
+        <DisclosureButton open={open} onToggle={() => setOpen((o) => !o)} what="the image quality" testID="trace-toggle" />
       </View>
       {open ? <Body design={design} readoutNm={readoutNm} strip={strip} /> : null}
     </Card>

@@ -1,7 +1,7 @@
 import { memo, useDeferredValue, useMemo, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { requirementSensitivities, toleranceView } from '@/features/requirements';
-import { Button, Card, colors, fonts, space, type } from '@/features/ui';
+import { Card, DisclosureButton, colors, fonts, space, type } from '@/features/ui';
 import type { Design } from '@/shared/design';
 
 /** "+10 µm exit slit → +0.017 nm bandpass" without its step, which the row already names. */
@@ -57,12 +57,7 @@ export const SensitivityCard = memo(function SensitivityCard({ design, collapsed
   return (
     <Card title="How the margins move" testID="sensitivity-card">
       <View style={styles.actions}>
-        <Button
-          kind="secondary"
-          label={open ? 'Hide the steps and tolerances' : 'Show the steps and tolerances'}
-          onPress={() => setOpen((o) => !o)}
-          testID="sensitivity-toggle"
-        />
+        <DisclosureButton open={open} onToggle={() => setOpen((o) => !o)} what="the steps and tolerances" testID="sensitivity-toggle" />
       </View>
       {open ? <Body design={deferred} /> : null}
     </Card>
