@@ -1,17 +1,13 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { checkRequirements } from '@/features/requirements';
 import { designSchema } from '@/shared/design';
 import { searchAnswerSchema } from '@/shared/search';
-import { solveInput, UsageError } from '../../scripts/solve';
+import { solveInput } from '../../scripts/solve';
 import { main, parseSearchArgs, searchInput, USAGE } from '../../scripts/search';
+import { cliHarness, usageErrorOf } from './cli-harness';
 
-const TSX = join(process.cwd(), 'node_modules/.bin/tsx');
-const SCRIPT = join(process.cwd(), 'scripts/search.ts');
-const dir = mkdtempSync(join(tmpdir(), 'blazebook-search-'));
+const { dir, file, run } = cliHarness('search');
 
 const input = {
   range: { startNm: 400, endNm: 700 },
@@ -20,29 +16,17 @@ const input = {
   search: { grooveDensitiesPerMm: [600, 1200], blazeWavelengthsNm: [500], maxOrder: 1, deviationAnglesDeg: [20], focalLengthsMm: [300], top: 2 },
 };
 
-function file(name: string, content: unknown): string {
-  const path = join(dir, name);
-  writeFileSync(path, typeof content === 'string' ? content : JSON.stringify(content));
-  return path;
-}
 
-function usageError(argv: string[]): string | null {
-  try {
-    parseSearchArgs(argv);
-    return null;
-  } catch (error) {
-    if (error instanceof UsageError) return error.message;
-    throw error;
-  }
-}
+/** The message a command line is refused with, or null when it is accepted. */
+const usageError = usageErrorOf(parseSearchArgs);
 
 describe('search CLI', () => {
   afterEach(() => vi.restoreAllMocks());
 
   it('prints the answer for a file, and its design solves with the solve command unchanged', () => {
-    const r = spawnSync(TSX, [SCRIPT, file('input.json', input)], { encoding: 'utf8', timeout: 60_000 });
+    const r = run([file('input.json', input)]);
     expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
+    expect(r.code).toBe(0);
     const answer = searchAnswerSchema.parse(JSON.parse(r.stdout));
     expect(answer.candidates.length).toBeGreaterThan(0);
     const design = answer.candidates[0]!.design;

@@ -1,41 +1,24 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { prismAnswerSchema, selectorAnswerSchema } from '@/shared/selector-answers';
 import { selectorInputSchema } from '@/shared/selectors';
-import { UsageError } from '../../scripts/solve';
 import { EXAMPLES, main, parseSelectorsArgs, selectorsInput, USAGE } from '../../scripts/selectors';
+import { cliHarness, usageErrorOf } from './cli-harness';
 
-const TSX = join(process.cwd(), 'node_modules/.bin/tsx');
-const SCRIPT = join(process.cwd(), 'scripts/selectors.ts');
-const dir = mkdtempSync(join(tmpdir(), 'blazebook-selectors-'));
+const { dir, file, run } = cliHarness('selectors');
 
-function file(name: string, content: unknown): string {
-  const path = join(dir, name);
-  writeFileSync(path, typeof content === 'string' ? content : JSON.stringify(content));
-  return path;
-}
 
-function usageError(argv: string[]): string | null {
-  try {
-    parseSelectorsArgs(argv);
-    return null;
-  } catch (error) {
-    if (error instanceof UsageError) return error.message;
-    throw error;
-  }
-}
+/** The message a command line is refused with, or null when it is accepted. */
+const usageError = usageErrorOf(parseSelectorsArgs);
 
 describe('selectors CLI', () => {
   afterEach(() => vi.restoreAllMocks());
 
   it('prints the answer for a file: fused silica n(587.6 nm) = 1.45846 (Malitson 1965)', () => {
     const input = { kind: 'prism', material: 'fused-silica', apexDeg: 60, baseMm: 50, wavelengthsNm: [587.6] };
-    const r = spawnSync(TSX, [SCRIPT, file('prism.json', input)], { encoding: 'utf8', timeout: 60_000 });
+    const r = run([file('prism.json', input)]);
     expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
+    expect(r.code).toBe(0);
     const answer = prismAnswerSchema.parse(JSON.parse(r.stdout));
     expect(answer.points).toHaveLength(1);
     expect(answer.points[0]!.index).toBeCloseTo(1.45846, 5);

@@ -1,41 +1,12 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { exampleDesign } from '@/shared/design';
-import { parseSolveArgs, solveInput, USAGE, UsageError, type SolveArgs } from '../../scripts/solve';
+import { parseSolveArgs, solveInput, USAGE, type SolveArgs } from '../../scripts/solve';
+import { cliHarness, usageErrorOf } from './cli-harness';
 
-const TSX = join(process.cwd(), 'node_modules/.bin/tsx');
-const SCRIPT = join(process.cwd(), 'scripts/solve.ts');
-const dir = mkdtempSync(join(tmpdir(), 'blazebook-solve-'));
-
-function solve(args: string[], stdin?: string) {
-  const r = spawnSync(TSX, [SCRIPT, ...args], {
-    input: stdin,
-    encoding: 'utf8',
-    timeout: 30_000,
-    maxBuffer: 64 * 1024 * 1024,
-  });
-  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-function designFile(name: string, content: unknown): string {
-  const path = join(dir, name);
-  writeFileSync(path, typeof content === 'string' ? content : JSON.stringify(content));
-  return path;
-}
+const { file: designFile, run: solve } = cliHarness('solve');
 
 /** The message a command line is refused with, or null when it is accepted. */
-function usageError(argv: string[]): string | null {
-  try {
-    parseSolveArgs(argv);
-    return null;
-  } catch (error) {
-    if (error instanceof UsageError) return error.message;
-    throw error;
-  }
-}
+const usageError = usageErrorOf(parseSolveArgs);
 
 /** Evaluates the example design (as the CLI reads it from a file) with the given flags. */
 function solveExample(flags: Omit<SolveArgs, 'input'>, design: unknown = exampleDesign) {

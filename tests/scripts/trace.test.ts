@@ -1,33 +1,16 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { traceAnswerSchema } from '@/shared/contract/trace';
 import { exampleDesign } from '@/shared/design';
 import { TRACE_LIMITS } from '@/shared/trace';
-import { main, parseTraceArgs, traceInput, USAGE, UsageError, type TraceArgs } from '../../scripts/trace';
+import { main, parseTraceArgs, traceInput, USAGE, type TraceArgs } from '../../scripts/trace';
+import { cliHarness, usageErrorOf } from './cli-harness';
 
-const TSX = join(process.cwd(), 'node_modules/.bin/tsx');
-const SCRIPT = join(process.cwd(), 'scripts/trace.ts');
-const dir = mkdtempSync(join(tmpdir(), 'blazebook-trace-'));
+const { dir, file, run } = cliHarness('trace');
 
-function file(name: string, content: unknown): string {
-  const path = join(dir, name);
-  writeFileSync(path, typeof content === 'string' ? content : JSON.stringify(content));
-  return path;
-}
 
 /** The message a command line is refused with, or null when it is accepted. */
-function usageError(argv: string[]): string | null {
-  try {
-    parseTraceArgs(argv);
-    return null;
-  } catch (error) {
-    if (error instanceof UsageError) return error.message;
-    throw error;
-  }
-}
+const usageError = usageErrorOf(parseTraceArgs);
 
 /** The example design (as the CLI reads it from a file) with the given flags. */
 function traceExample(flags: Omit<TraceArgs, 'input'>, design: unknown = exampleDesign) {
@@ -112,9 +95,9 @@ describe('trace CLI', () => {
   });
 
   it('prints the answer on stdout and exits 0, every launched ray accounted for', () => {
-    const r = spawnSync(TSX, [SCRIPT, file('ct.json', exampleDesign), '--at', '500', '--rays', '1000'], { encoding: 'utf8', timeout: 60_000 });
+    const r = run([file('ct.json', exampleDesign), '--at', '500', '--rays', '1000']);
     expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
+    expect(r.code).toBe(0);
     const answer = traceAnswerSchema.parse(JSON.parse(r.stdout));
     expect(answer.raysPerWavelength).toBe(1000);
     expect(answer.wavelengths.some((w) => w.wavelengthNm === 500)).toBe(true);
