@@ -563,29 +563,25 @@ function tracedBandpassCheck(limit: number, design: Design, r: Requirements): Re
     worst === null
       ? ''
       : ` (traced bandpass ${valueText(worst.fwhmNm!, 'nm')} at worst where traced, at ${valueText(worst.wavelengthNm, 'nm')})`;
+  // Wavelengths with no traced figure fail, named, never pass: first the unreachable, then the unmeasured.
+  const listed = (list: typeof points) => list.map((p) => valueText(p.wavelengthNm, 'nm')).join(', ');
+  const failAt = (list: typeof points, message: string): RequirementCheck => ({
+    ...base,
+    status: 'fail',
+    worst: null,
+    worstWavelengthNm: list[0]!.wavelengthNm,
+    margin: null,
+    message,
+  });
   const unreachable = points.filter((p) => !p.reachable);
-  if (unreachable.length > 0) {
-    return {
-      ...base,
-      status: 'fail',
-      worst: null,
-      worstWavelengthNm: unreachable[0]!.wavelengthNm,
-      margin: null,
-      message: `traced bandpass unreachable at ${unreachable.map((p) => valueText(p.wavelengthNm, 'nm')).join(', ')}${atWorst}`,
-    };
-  }
+  if (unreachable.length > 0) return failAt(unreachable, `traced bandpass unreachable at ${listed(unreachable)}${atWorst}`);
   const unmeasured = points.filter((p) => p.fwhmNm === null);
   if (unmeasured.length > 0) {
-    return {
-      ...base,
-      status: 'fail',
-      worst: null,
-      worstWavelengthNm: unmeasured[0]!.wavelengthNm,
-      margin: null,
-      message:
-        `the traced line shape has no half-maximum width at ${unmeasured.map((p) => valueText(p.wavelengthNm, 'nm')).join(', ')} ` +
+    return failAt(
+      unmeasured,
+      `the traced line shape has no half-maximum width at ${listed(unmeasured)} ` +
         `(too little light reaches the exit slit to measure it)${atWorst}`,
-    };
+    );
   }
   const found = worst!;
   const margin = requirementMargin('max', found.fwhmNm!, limit);
