@@ -14,6 +14,16 @@ const envSchema = z.object({
    */
   HOST: z.string().min(1).default('127.0.0.1'),
   DATA_DIR: z.string().min(1).default(`${rootDir}data`),
+  /**
+   * Set: the data lives on this PostgreSQL server instead of in DATA_DIR, and several API processes
+   * may share it (the README's operations section).
+   */
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\/\S+$/, 'must be a postgres:// or postgresql:// URL')
+    .optional(),
+  /** Connections each API process keeps open to DATABASE_URL at most. */
+  DATABASE_POOL_SIZE: z.coerce.number().int().min(1).max(100).default(10),
   WEB_ROOT: z.string().min(1).default(`${rootDir}dist`),
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   PUBLIC_URL: z.url().optional(),

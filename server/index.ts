@@ -1,6 +1,6 @@
 import type { AddressInfo } from 'node:net';
 import { DataDirInUseError } from '../db/data-dir-lock';
-import { openDatabase } from '../db/client';
+import { openDatabase, redacted } from '../db/client';
 import { createApp } from './app';
 import { systemClock } from './clock';
 import { loadConfig } from './config';
@@ -11,11 +11,15 @@ import { seedDemoData } from './seed/demo';
 import { gracefulShutdown } from './shutdown';
 
 const config = loadConfig();
-const database = await openDatabase({ dataDir: config.DATA_DIR }).catch((error: unknown) => {
-  if (!(error instanceof DataDirInUseError)) throw error;
-  console.error(error.message);
+const database = await openDatabase(
+  config.DATABASE_URL ? { url: config.DATABASE_URL, poolSize: config.DATABASE_POOL_SIZE } : { dataDir: config.DATA_DIR },
+).catch((error: unknown) => {
+  // A directory another process holds, or a server that does not answer: say so in one line.
+  if (!(error instanceof DataDirInUseError) && !config.DATABASE_URL) throw error;
+  console.error((error as Error).message);
   process.exit(1);
 });
+const dataLocation = config.DATABASE_URL ? `on ${redacted(config.DATABASE_URL)}` : `in ${config.DATA_DIR}`;
 if (config.NODE_ENV === 'development') {
   const lines = await seedDemoData({ database, clock: systemClock });
   if (lines) console.log(lines.join('\n'));
@@ -47,7 +51,7 @@ const server = app.listen(config.PORT, config.HOST, () => {
     console.log('Listening on loopback only; set HOST=0.0.0.0 (and PUBLIC_URL) to open it to your network.');
   }
   // The test helper and `npm start` wait for this exact line; it comes last.
-  console.log(`Blazebook is ready at ${url} (data in ${config.DATA_DIR})`);
+  console.log(`Blazebook is ready at ${url} (data ${dataLocation})`);
 });
 
 const backstopMs = 10_000;
