@@ -1,6 +1,7 @@
 import type { Database } from '../../db/client';
 import type { Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
+import type { Writers } from '../read-cache';
 import { createLucia } from './lucia';
 import { passwordHasher, type PasswordHasher } from './password';
 import { createRateLimiters, defaultRateLimits, type RateLimits } from './rate-limit';
@@ -13,7 +14,7 @@ export { originCheck } from './origin';
 export { createPasswordHasher, productionArgon2Cost, type PasswordHasher } from './password';
 export { defaultRateLimits, type RateLimits } from './rate-limit';
 export { currentUser, requireUser, signedIn } from './session';
-export { createToken, hashToken } from './tokens';
+export { createToken, hashToken, newRecordId } from './tokens';
 export type { AuthService } from './service';
 
 export type AuthDeps = {
@@ -25,12 +26,13 @@ export type AuthDeps = {
   rateLimits?: Partial<RateLimits>;
   /** Production's argon2id cost unless a test injects a cheaper one. */
   passwords?: PasswordHasher;
+  writers?: Writers;
 };
 
 /** Wires accounts and sessions: the service (for seeding), the session middleware and `/api/auth`. */
-export function createAuth({ db, mailer, clock, publicUrl, secureCookies, rateLimits, passwords = passwordHasher }: AuthDeps) {
+export function createAuth({ db, mailer, clock, publicUrl, secureCookies, rateLimits, passwords = passwordHasher, writers }: AuthDeps) {
   const lucia = createLucia(db, { secure: secureCookies });
-  const service = createAuthService({ repository: createAuthRepository(db), lucia, mailer, clock, publicUrl, passwords });
+  const service = createAuthService({ repository: createAuthRepository(db), lucia, mailer, clock, publicUrl, passwords, writers });
   return {
     service,
     sessions: sessionMiddleware(service),

@@ -1,16 +1,15 @@
 import { randomUUID } from 'node:crypto';
-import { generateIdFromEntropySize } from 'lucia';
 import { passwordIsEmail, passwordIsEmailReason, type SignInRequest, type SignUpRequest, type User } from '../../shared/auth';
 import type { Clock } from '../clock';
 import { HttpError, badRequest } from '../http/errors';
 import type { Mailer } from '../mail/mailer';
 import { passwordResetMessage, verifyEmailMessage } from '../mail/templates';
 import { unauthenticated } from './errors';
-import { createReadCache } from '../read-cache';
+import { createReadCache, type Writers } from '../read-cache';
 import { sessionLifetimeMs, type AppLucia } from './lucia';
 import { isCommonPassword, type PasswordHasher } from './password';
 import type { AuthRepository, UserRow } from './repository';
-import { createToken, hashToken } from './tokens';
+import { createToken, hashToken, newRecordId } from './tokens';
 
 const minute = 60_000;
 /** Lucia's ids are lower-case base32; anything else is not a session of ours. */
@@ -32,16 +31,18 @@ export type AuthServiceDeps = {
   clock: Clock;
   publicUrl: () => string;
   passwords: PasswordHasher;
+  /** `shared` (several API processes on one PostgreSQL server): checked sessions are not kept. */
+  writers?: Writers;
 };
 
 export function toUser(row: Pick<UserRow, 'id' | 'email' | 'displayName' | 'emailVerifiedAt'>): User {
   return { id: row.id, email: row.email, displayName: row.displayName, emailVerified: row.emailVerifiedAt !== null };
 }
 
-export function createAuthService({ repository, lucia, mailer, clock, publicUrl, passwords }: AuthServiceDeps) {
+export function createAuthService({ repository, lucia, mailer, clock, publicUrl, passwords, writers = 'alone' }: AuthServiceDeps) {
   // Checking a session costs a database round trip on every API request; most are repeats. Every
   // sign-out, reset and verification below forgets the sessions it touches.
-  const checkedSessions = createReadCache<SessionAuth & { expiresAt: number }>({ max: 10_000 });
+  const checkedSessions = createReadCache<SessionAuth & { expiresAt: number }>({ max: 10_000, writers });
   const forgetSessionsOf = (userId: string) => checkedSessions.forgetWhere((_id, entry) => entry.user.id === userId);
   const link = (path: string, token: string) => `${publicUrl().replace(/\/$/, '')}${path}?token=${token}`;
 
@@ -88,7 +89,7 @@ export function createAuthService({ repository, lucia, mailer, clock, publicUrl,
       const now = clock.now();
       const row = await repository.insertUserWithWorkspace(
         {
-          id: generateIdFromEntropySize(10),
+          id: newRecordId(),
           email: input.email,
           displayName: input.displayName,
           passwordHash: await passwords.hash(input.password),

@@ -1,5 +1,4 @@
 import { createHash } from 'node:crypto';
-import { generateIdFromEntropySize } from 'lucia';
 import type { User } from '../../shared/auth';
 import { describeCurveFileError, parseCurveFile, type CurveCorrections, type CurveFileError, type CurveFileParsed } from '../../shared/curve-file';
 import { CURVE_KIND_WORDS, MAX_CURVE_NAME, type CurveKind } from '../../shared/curves';
@@ -9,6 +8,7 @@ import type { Clock } from '../clock';
 import { badRequest, HttpError, notFound } from '../http/errors';
 import type { TeamAccess } from '../teams/index';
 import type { CurvesRepository } from './repository';
+import { newRecordId } from '../auth/index';
 
 /** What the router hands over from a multipart form: the file as a File and the checked fields. */
 export type CurveForm = { file: File; kind: CurveKind; name?: string } & CurveCorrections;
@@ -90,7 +90,7 @@ export function createCurvesService(deps: { repository: CurvesRepository; access
       };
       const existing = await repository.findSame(key);
       if (existing) return { curve: curveOf((await repository.get(teamId, existing))!), recognised: true };
-      const id = generateIdFromEntropySize(10);
+      const id = newRecordId();
       const name = form.name ?? (clip(fileName.trim(), MAX_CURVE_NAME).trim() || CURVE_KIND_WORDS[form.kind]);
       const stored = await repository.insert({
         ...key,

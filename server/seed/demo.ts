@@ -1,5 +1,4 @@
 import { randomUUID } from 'node:crypto';
-import { generateIdFromEntropySize } from 'lucia';
 import type { DatabaseHandle } from '../../db/client';
 import type { Role } from '../../shared/teams';
 import { passwordHasher } from '../auth/password';
@@ -9,6 +8,7 @@ import { createTeamsRepository } from '../teams/repository';
 import { demoNotebooks, seedDemoNotebooks } from './notebooks';
 import { createSeedRepository } from './repository';
 import { seedDemoReview } from './reviews';
+import { newRecordId } from '../auth/index';
 
 /** Invented people and an invented lab: any likeness to real ones is an accident. */
 export const demoTeamName = 'Quillmere Optics Teaching Lab';
@@ -35,7 +35,7 @@ export async function seedDemoData({ database, clock }: { database: DatabaseHand
   const ids: string[] = [];
   for (const person of demoUsers) {
     const row = await auth.insertUserWithWorkspace(
-      { id: generateIdFromEntropySize(10), email: person.email, displayName: person.displayName, passwordHash, createdAt: now, emailVerifiedAt: now },
+      { id: newRecordId(), email: person.email, displayName: person.displayName, passwordHash, createdAt: now, emailVerifiedAt: now },
       { id: randomUUID(), name: `${person.displayName}’s workspace` },
     );
     if (!row) return null;

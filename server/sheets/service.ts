@@ -1,4 +1,4 @@
-import type { User } from 'lucia';
+import type { User } from '../../shared/auth';
 import { storedDesignSchema, type Design } from '../../shared/design';
 import type { Notebook } from '../../shared/notebooks/index';
 import { compareSheetFileName, sheetFileName, type CompareSheetQuery, type SheetQuery } from '../../shared/sheets';
