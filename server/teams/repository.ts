@@ -113,6 +113,15 @@ function queries(db: Database) {
       return row !== undefined;
     },
 
+    /**
+     * Holds the team's row until the transaction ends: two owners demoting or removing each other
+     * at once on a PostgreSQL server would otherwise both count two owners and leave none (the
+     * embedded database runs one transaction at a time, so there it changes nothing).
+     */
+    async lockTeam(teamId: string) {
+      await db.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for('update');
+    },
+
     async countOwners(teamId: string): Promise<number> {
       const [row] = await db
         .select({ n: count() })
@@ -178,7 +187,7 @@ export type TeamQueries = ReturnType<typeof queries>;
 export function createTeamsRepository(db: Database) {
   return {
     ...queries(db),
-    /** Runs `work` on one transaction: PGlite's lock keeps check-then-write rules (last owner) whole. */
+    /** Runs `work` on one transaction; a check-then-write rule (last owner) takes `lockTeam` first. */
     inTransaction<T>(work: (repo: TeamQueries) => Promise<T>): Promise<T> {
       return db.transaction((tx) => work(queries(tx as unknown as Database)));
     },

@@ -96,6 +96,7 @@ export function createTeamsService({ repository, roles, mailer, clock, publicUrl
     async changeRole(user: User, teamId: string, memberId: string, role: Role): Promise<Member> {
       await access.require(teamId, user.id, 'members.manage');
       const changed = await repository.inTransaction(async (repo) => {
+        await repo.lockTeam(teamId);
         const member = await repo.getMember(teamId, memberId);
         if (!member) throw notFound('No such member in this team.');
         if (member.role === 'owner' && role !== 'owner' && (await repo.countOwners(teamId)) <= 1) throw lastOwner();
@@ -110,6 +111,7 @@ export function createTeamsService({ repository, roles, mailer, clock, publicUrl
     async removeMember(user: User, teamId: string, memberId: string): Promise<void> {
       await access.require(teamId, user.id, memberId === user.id ? 'team.read' : 'members.manage');
       await repository.inTransaction(async (repo) => {
+        await repo.lockTeam(teamId);
         const member = await repo.getMember(teamId, memberId);
         if (!member) throw notFound('No such member in this team.');
         if (member.role === 'owner' && (await repo.countOwners(teamId)) <= 1) throw lastOwner();
@@ -175,7 +177,10 @@ export function createTeamsService({ repository, roles, mailer, clock, publicUrl
     async acceptInvitation(user: User, token: string): Promise<Team> {
       const tokenHash = await hashToken(token);
       const teamId = await repository.inTransaction(async (repo) => {
-        const found = await repo.findInvitationByTokenHash(tokenHash);
+        // Read again once the team is held: two accepts at once must not both see it unused.
+        const seen = await repo.findInvitationByTokenHash(tokenHash);
+        if (seen) await repo.lockTeam(seen.invitation.teamId);
+        const found = seen && (await repo.findInvitationByTokenHash(tokenHash));
         const now = clock.now();
         if (!found || found.invitation.acceptedAt || found.invitation.expiresAt <= now) throw invitationGone();
         const { invitation } = found;
