@@ -10,6 +10,8 @@ import { mountContract } from './http/contract';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { webRouter } from './http/web';
 import type { Mailer } from './mail/mailer';
+import type { Writers } from './read-cache';
+import { databaseCounterStores } from './auth/counter-store';
 import { createOutboxRepository } from './mail/outbox-repository';
 import { createCurves } from './curves/index';
 import { createInbox } from './inbox/index';
@@ -100,29 +102,37 @@ export function createApp(deps: AppDeps) {
   apiRouter.use(express.json({ limit: bodyLimit }));
   apiRouter.use(originCheck({ trustedOrigin: deps.trustedOrigin, exempt: originExempt }));
   const publicUrl = deps.publicUrl ?? (() => 'http://localhost:8080');
+  // The embedded database has this process as its only writer; a PostgreSQL server may have more.
+  const writers: Writers = deps.database.engine === 'embedded' ? 'alone' : 'shared';
+  // With other writers, other processes count requests too: the counts live in the database.
+  const rateLimits: Partial<RateLimits> = {
+    ...deps.rateLimits,
+    ...(writers === 'shared' ? { counters: databaseCounterStores(deps.database.db) } : {}),
+  };
   const auth = createAuth({
     db: deps.database.db,
     mailer: deps.mailer,
     clock: deps.clock,
     publicUrl,
     secureCookies: deps.https ?? false,
-    rateLimits: deps.rateLimits,
+    rateLimits,
     passwords: deps.passwords,
+    writers,
   });
   apiRouter.use(auth.sessions);
-  const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl });
-  const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock });
+  const teams = createTeams({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl, writers });
+  const notebooks = createNotebooks({ db: deps.database.db, roles: teams.roles, clock: deps.clock, writers });
   const inbox = createInbox({ db: deps.database.db, mailer: deps.mailer, clock: deps.clock, publicUrl, log: deps.log });
   const reviews = createReviews({ db: deps.database.db, clock: deps.clock, notifier: inbox.notifier, lists: notebooks.lists });
   const sheets = createSheets({
     db: deps.database.db,
     clock: deps.clock,
     publicUrl,
-    rateLimits: deps.rateLimits,
+    rateLimits,
     notebooks: notebooks.service,
     reviews: reviews.service,
   });
-  const curves = createCurves({ db: deps.database.db, roles: teams.roles, clock: deps.clock, rateLimits: deps.rateLimits });
+  const curves = createCurves({ db: deps.database.db, roles: teams.roles, clock: deps.clock, rateLimits });
   apiRouter.use(
     mountContract(
       {
@@ -133,14 +143,14 @@ export function createApp(deps: AppDeps) {
         sheets: sheets.router,
         inbox: inbox.router,
         platform: {
-          solve: solveRoute(deps.rateLimits),
+          solve: solveRoute(rateLimits),
           health: healthRoute(deps),
           openapi: openApiRoute(deps.version),
           outbox: deps.nodeEnv === 'production' ? null : outboxRoute(createOutboxRepository(deps.database.db, deps.clock), { trustedOrigin: deps.trustedOrigin }),
         },
-        search: { run: searchRoute(deps.rateLimits) },
-        selectors: { run: selectorsRoute(deps.rateLimits) },
-        trace: { run: traceRoute(deps.rateLimits) },
+        search: { run: searchRoute(rateLimits) },
+        selectors: { run: selectorsRoute(rateLimits) },
+        trace: { run: traceRoute(rateLimits) },
         curves: curves.router,
       },
       { signedIn },

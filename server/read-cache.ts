@@ -31,7 +31,18 @@ export type ReadCache<V extends NonNullable<unknown>> = {
  */
 export const backstopTtlMs = 60_000;
 
+/**
+ * Who writes the database. `alone`: this process is its only writer (the embedded database), so
+ * forgetting on write keeps a cache exact. `shared`: other API processes write it too (a
+ * PostgreSQL server); a forget here cannot reach their memory before their next request, so a
+ * cache of rows that change stores nothing. Rows that never change (versions, a design's team)
+ * are exact either way and leave this out.
+ */
+export type Writers = 'alone' | 'shared';
+
 export type ReadCacheOptions = {
+  /** `shared`: store nothing (see Writers). Only for caches of rows that change. */
+  writers?: Writers;
   /** Entries kept at most; the least recently read or stored goes first. */
   max: number;
   /** Longest time an entry is trusted, in ms: `backstopTtlMs` unless given (Infinity for immutable rows). */
@@ -44,7 +55,13 @@ export type ReadCacheOptions = {
  * A cache bounded by `max` entries and `ttlMs`, both kept by lru-cache; this adds the guard that
  * a load which began before a `forget` stores nothing, and never stores a miss.
  */
-export function createReadCache<V extends NonNullable<unknown>>({ max, ttlMs = backstopTtlMs, now = Date.now }: ReadCacheOptions): ReadCache<V> {
+export function createReadCache<V extends NonNullable<unknown>>({
+  max,
+  ttlMs = backstopTtlMs,
+  now = Date.now,
+  writers = 'alone',
+}: ReadCacheOptions): ReadCache<V> {
+  if (writers === 'shared') return readThrough();
   const entries = new LRUCache<string, V>({
     max,
     // Every store passes its own ttl (below); a cache-wide one is what switches lru-cache's time
@@ -99,5 +116,17 @@ export function createReadCache<V extends NonNullable<unknown>>({ max, ttlMs = b
     get size() {
       return entries.size;
     },
+  };
+}
+
+/** A cache that keeps nothing: every read goes to the database. */
+function readThrough<V extends NonNullable<unknown>>(): ReadCache<V> {
+  return {
+    get: () => undefined,
+    load: (_key, fetch) => fetch(),
+    set: () => undefined,
+    forget: () => undefined,
+    forgetWhere: () => undefined,
+    size: 0,
   };
 }

@@ -14,7 +14,7 @@ import type {
 import type { ReviewState } from '../../shared/reviews';
 import type { Role } from '../../shared/teams';
 import { deepFreeze } from '../http/json';
-import { createReadCache } from '../read-cache';
+import { createReadCache, type Writers } from '../read-cache';
 import type { RoleDirectory } from '../teams/index';
 import { createWriteBatcher } from '../write-batcher';
 import type {
@@ -145,7 +145,12 @@ type Write<A extends unknown[], R> = {
   changed: (result: R, ...args: A) => Change[] | Promise<Change[]>;
 };
 
-export type NotebooksStoreDeps = { repository: NotebooksRepository; roles: Pick<RoleDirectory, 'roleOf'> };
+export type NotebooksStoreDeps = {
+  repository: NotebooksRepository;
+  roles: Pick<RoleDirectory, 'roleOf'>;
+  /** `shared` (several API processes on one PostgreSQL server): list pages are not kept. */
+  writers?: Writers;
+};
 
 /**
  * The notebooks' data with its speed machinery: the repository's reads, answered from memory
@@ -154,7 +159,7 @@ export type NotebooksStoreDeps = { repository: NotebooksRepository; roles: Pick<
  * `writes` with what it changes, and forgets that once it has committed, so a read after a write
  * is always fresh. Rules (who may do what, what a save must be based on) live in the service.
  */
-export function createNotebooksStore({ repository, roles }: NotebooksStoreDeps) {
+export function createNotebooksStore({ repository, roles, writers = 'alone' }: NotebooksStoreDeps) {
   // Per app, in process. A version never changes and a design never changes team, so those two
   // caches are never stale; a team's list pages (with its tags) are forgotten by every write that
   // names the team. Each pays, by `npm run bench:api` on the shared 2-core machine, with → without:
@@ -163,7 +168,8 @@ export function createNotebooksStore({ repository, roles }: NotebooksStoreDeps) 
   // tags had a cache of their own: it spared a list-page miss ~1 ms of ~4 ms and moved no target.
   const versions = createReadCache<{ teamId: string; answer: VersionResponse }>({ max: 2000, ttlMs: Infinity });
   const designTeams = createReadCache<string>({ max: 20_000, ttlMs: Infinity });
-  const listPages = createReadCache<DesignListResponse>({ max: 1000 });
+  // List pages change with every save anywhere: with other writers, none is kept (read-cache.ts).
+  const listPages = createReadCache<DesignListResponse>({ max: 1000, writers });
   // Saves that arrive together are written together (see write-batcher.ts).
   const saves = createWriteBatcher({
     run: (items: SaveIfLatest[]) => repository.saveManyIfLatest(items),

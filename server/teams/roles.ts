@@ -1,5 +1,5 @@
 import type { Role } from '../../shared/teams';
-import { createReadCache } from '../read-cache';
+import { createReadCache, type Writers } from '../read-cache';
 import type { TeamsRepository } from './repository';
 
 /**
@@ -8,8 +8,8 @@ import type { TeamsRepository } from './repository';
  * is committed, so a member removed a moment ago gets a 404 on their next request. Outsiders'
  * misses are never kept, so someone who just joined is let in at once.
  */
-export function createRoleDirectory(repository: Pick<TeamsRepository, 'roleOf'>) {
-  const roles = createReadCache<Role>({ max: 20_000 });
+export function createRoleDirectory(repository: Pick<TeamsRepository, 'roleOf'>, writers: Writers = 'alone') {
+  const roles = createReadCache<Role>({ max: 20_000, writers });
   const key = (teamId: string, userId: string) => `${teamId} ${userId}`;
   return {
     roleOf(teamId: string, userId: string): Promise<Role | null> {
