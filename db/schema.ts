@@ -22,6 +22,17 @@ import {
  */
 
 /** Facts about this installation, such as when demo data was seeded. One row per key. */
+/**
+ * Request counters for the rate limits, shared by every API process on one PostgreSQL server
+ * (server/auth/counter-store.ts). `key` is the limit's name and the client's key; the count starts
+ * again once `resets_at` has passed. The embedded database keeps its counters in memory instead.
+ */
+export const rateLimitCounters = pgTable('rate_limit_counters', {
+  key: text().primaryKey(),
+  hits: integer().notNull(),
+  resetsAt: timestamp({ withTimezone: true }).notNull(),
+});
+
 export const appMeta = pgTable('app_meta', {
   key: text().primaryKey(),
   value: text().notNull(),

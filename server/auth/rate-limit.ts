@@ -1,5 +1,6 @@
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { CounterStores } from './counter-store';
 import { tooManyRequests } from './errors';
 
 export type RateLimits = {
@@ -26,6 +27,12 @@ export type RateLimits = {
   curveUploadsPerIp: number;
   /** `POST /api/trace` calls per IP per `solveWindowMs`. */
   tracePerIp: number;
+  /**
+   * Where the counts live: this process's memory when left out (the embedded database, one
+   * process), or the database (`databaseCounterStores`) when several API processes share a
+   * PostgreSQL server. Set by createApp.
+   */
+  counters?: CounterStores;
 };
 
 /** Generous for people, tight for scripts guessing passwords (common practice: a few per minute). */
@@ -81,16 +88,28 @@ const keys: Record<KeyBy, (req: Request) => string> = {
   'email-and-ip': (req) => `email+ip:${ipOf(req)}:${emailOf(req)}`,
 };
 
-function limiter(
-  limit: number,
-  windowMs: number,
-  by: KeyBy,
+/** One limit: `name` keeps its counts apart from every other limit's in a shared store. */
+export function limiter({
+  name,
+  limit,
+  windowMs,
+  by,
   skipSuccessfulRequests = false,
-  message?: string,
-): RequestHandler {
+  message,
+  counters,
+}: {
+  name: string;
+  limit: number;
+  windowMs: number;
+  by: KeyBy;
+  skipSuccessfulRequests?: boolean;
+  message?: string;
+  counters: CounterStores | undefined;
+}): RequestHandler {
   return rateLimit({
     windowMs,
     limit,
+    ...(counters ? { store: counters(name) } : {}),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     skipSuccessfulRequests,
@@ -100,80 +119,96 @@ function limiter(
 }
 
 /**
- * In-memory counters, one set per app: enough for one server process. Sign-in failures are
+ * Counters per app, in memory unless `limits.counters` says where else. Sign-in failures are
  * counted per e-mail *and address*, and per address: someone guessing from elsewhere uses up their
  * own allowance, never the account owner's, so nobody can lock a colleague out by failing on
  * purpose. Successes are not counted, so a person who signs in often is never limited by them.
  */
 export function createRateLimiters(limits: RateLimits) {
+  const { windowMs, counters } = limits;
   return {
     signIn: [
-      limiter(limits.signInPerIp, limits.windowMs, 'ip'),
-      limiter(limits.signInFailuresPerIp, limits.windowMs, 'ip', true),
-      limiter(limits.signInFailuresPerEmailPerIp, limits.windowMs, 'email-and-ip', true),
+      limiter({ name: 'sign-in', limit: limits.signInPerIp, windowMs, by: 'ip', counters }),
+      limiter({ name: 'sign-in-failures', limit: limits.signInFailuresPerIp, windowMs, by: 'ip', skipSuccessfulRequests: true, counters }),
+      limiter({
+        name: 'sign-in-failures-per-email',
+        limit: limits.signInFailuresPerEmailPerIp,
+        windowMs,
+        by: 'email-and-ip',
+        skipSuccessfulRequests: true,
+        counters,
+      }),
     ],
-    signUp: [limiter(limits.signUpPerIp, limits.windowMs, 'ip')],
-    reset: [limiter(limits.resetPerIp, limits.windowMs, 'ip'), limiter(limits.resetPerEmail, limits.windowMs, 'email')],
+    signUp: [limiter({ name: 'sign-up', limit: limits.signUpPerIp, windowMs, by: 'ip', counters })],
+    reset: [
+      limiter({ name: 'reset', limit: limits.resetPerIp, windowMs, by: 'ip', counters }),
+      limiter({ name: 'reset-per-email', limit: limits.resetPerEmail, windowMs, by: 'email', counters }),
+    ],
     /** Following a reset link carries a token, not an e-mail: per IP only. */
-    resetConfirm: [limiter(limits.resetPerIp, limits.windowMs, 'ip')],
+    resetConfirm: [limiter({ name: 'reset-confirm', limit: limits.resetPerIp, windowMs, by: 'ip', counters })],
     /** Each resend is an e-mail we send: as few as reset requests. */
-    resendConfirmation: [limiter(limits.resetPerIp, limits.windowMs, 'ip')],
+    resendConfirmation: [limiter({ name: 'resend-confirmation', limit: limits.resetPerIp, windowMs, by: 'ip', counters })],
   };
 }
 
 /** `POST /api/solve` per IP: its own counters, so solving never uses up a person's sign-in allowance. */
 export function createSolveRateLimiter(
-  limits: Pick<RateLimits, 'solvePerIp' | 'solveWindowMs'>,
+  limits: Pick<RateLimits, 'solvePerIp' | 'solveWindowMs' | 'counters'>,
 ): RequestHandler {
-  return limiter(
-    limits.solvePerIp,
-    limits.solveWindowMs,
-    'ip',
-    false,
-    'Too many solve requests from this address. Wait a minute and try again.',
-  );
+  return limiter({
+    name: 'solve',
+    limit: limits.solvePerIp,
+    windowMs: limits.solveWindowMs,
+    by: 'ip',
+    message: 'Too many solve requests from this address. Wait a minute and try again.',
+    counters: limits.counters,
+  });
 }
 
 /** Design sheets per IP (the share link's route needs no session): one counter for the three routes. */
-export function createSheetRateLimiter(limits: Pick<RateLimits, 'sheetsPerIp' | 'solveWindowMs'>): RequestHandler {
-  return limiter(
-    limits.sheetsPerIp,
-    limits.solveWindowMs,
-    'ip',
-    false,
-    'Too many design sheets from this address. Wait a minute and try again.',
-  );
+export function createSheetRateLimiter(limits: Pick<RateLimits, 'sheetsPerIp' | 'solveWindowMs' | 'counters'>): RequestHandler {
+  return limiter({
+    name: 'sheets',
+    limit: limits.sheetsPerIp,
+    windowMs: limits.solveWindowMs,
+    by: 'ip',
+    message: 'Too many design sheets from this address. Wait a minute and try again.',
+    counters: limits.counters,
+  });
 }
 
 /** `POST /api/search` per IP: its own counters, apart from solving and signing in. */
-export function createSearchRateLimiter(limits: Pick<RateLimits, 'searchPerIp' | 'solveWindowMs'>): RequestHandler {
-  return limiter(
-    limits.searchPerIp,
-    limits.solveWindowMs,
-    'ip',
-    false,
-    'Too many searches from this address. Wait a minute and try again.',
-  );
+export function createSearchRateLimiter(limits: Pick<RateLimits, 'searchPerIp' | 'solveWindowMs' | 'counters'>): RequestHandler {
+  return limiter({
+    name: 'search',
+    limit: limits.searchPerIp,
+    windowMs: limits.solveWindowMs,
+    by: 'ip',
+    message: 'Too many searches from this address. Wait a minute and try again.',
+    counters: limits.counters,
+  });
 }
 
 /** `POST /api/selectors` per IP: its own counters, apart from solving and searching. */
-export function createSelectorsRateLimiter(limits: Pick<RateLimits, 'selectorsPerIp' | 'solveWindowMs'>): RequestHandler {
-  return limiter(
-    limits.selectorsPerIp,
-    limits.solveWindowMs,
-    'ip',
-    false,
-    'Too many selector calculations from this address. Wait a minute and try again.',
-  );
+export function createSelectorsRateLimiter(limits: Pick<RateLimits, 'selectorsPerIp' | 'solveWindowMs' | 'counters'>): RequestHandler {
+  return limiter({
+    name: 'selectors',
+    limit: limits.selectorsPerIp,
+    windowMs: limits.solveWindowMs,
+    by: 'ip',
+    message: 'Too many selector calculations from this address. Wait a minute and try again.',
+    counters: limits.counters,
+  });
 }
 
 /** Curve file previews and uploads per IP, one counter for both: each holds up to 2 MB in memory while it is read. */
-export function createCurveUploadRateLimiter(limits: Pick<RateLimits, 'curveUploadsPerIp' | 'solveWindowMs'>): RequestHandler {
-  return limiter(
-    limits.curveUploadsPerIp,
-    limits.solveWindowMs,
-    'ip',
-    false,
-    'Too many curve files from this address. Wait a minute and try again.',
-  );
+export function createCurveUploadRateLimiter(limits: Pick<RateLimits, 'curveUploadsPerIp' | 'solveWindowMs' | 'counters'>): RequestHandler {
+  return limiter({
+    name: 'curve-uploads',
+    limit: limits.curveUploadsPerIp,
+    windowMs: limits.solveWindowMs,
+    by: 'ip',
+    message: 'Too many curve files from this address. Wait a minute and try again.',
+    counters: limits.counters,
+  });
 }
