@@ -5,6 +5,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser } from 'playwright-core';
 import { webRoot } from '../../scripts/web-build';
+import { createTestDatabase, testEngine } from './server-databases';
 
 /**
  * The real server and Debian's Chromium, without Vitest: the browser tests use them through
@@ -32,6 +33,9 @@ export type RunningServer = { url: string; dataDir: string; output: () => string
 export async function startServer(dataDirTemplate: string, env: Record<string, string> = {}): Promise<RunningServer> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
   cpSync(dataDirTemplate, dataDir, { recursive: true });
+  // In the api-postgres project the server gets a database of its own on the PostgreSQL server.
+  const serverDatabase = testEngine() === 'server' && !env.DATABASE_URL ? await createTestDatabase() : null;
+  if (serverDatabase) env = { DATABASE_URL: serverDatabase.url, ...env };
   let log = '';
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: rootDir,
@@ -74,6 +78,7 @@ export async function startServer(dataDirTemplate: string, env: Record<string, s
         await exited;
       }
       rmSync(dataDir, { recursive: true, force: true });
+      await serverDatabase?.drop();
     },
   };
 }
