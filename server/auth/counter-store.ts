@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
 import type { Database } from '../../db/client';
@@ -20,7 +21,9 @@ export function databaseCounterStores(db: Database): CounterStores {
   let counted = 0;
   return (name) => {
     let windowMs = 60_000;
-    const keyOf = (key: string) => `${name}|${key}`;
+    // A client's key can carry whatever a body held (an e-mail of any length, a NUL PostgreSQL
+    // refuses in text): stored as its SHA-256, every key is 64 plain characters.
+    const keyOf = (key: string) => `${name}|${createHash('sha256').update(key).digest('hex')}`;
     return {
       localKeys: false,
       prefix: `${name}|`,

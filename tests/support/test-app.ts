@@ -1,6 +1,7 @@
 import express from 'express';
 import request from 'supertest';
 import type { DatabaseHandle } from '../../db/client';
+import { rateLimitCounters } from '../../db/schema';
 import { createApp, type AppDeps } from '../../server/app';
 import { createPasswordHasher } from '../../server/auth/index';
 import { createFixedClock } from '../../server/clock';
@@ -37,6 +38,9 @@ export const testPasswordHasher = createPasswordHasher({ memoryCost: 8, timeCost
 /** `createApp` on a fresh database with a still clock and an in-memory mailer, for supertest. */
 export async function createTestApp(options: TestAppOptions = {}) {
   const database: DatabaseHandle = options.database ?? (await openTestDatabase());
+  // On a PostgreSQL server the rate-limit counters live in the database, shared by every app on
+  // it as by every process; a new app starts from none, as one on the embedded database does.
+  if (database.engine === 'server') await database.db.delete(rateLimitCounters);
   const clock = createFixedClock(new Date('2026-03-14T09:00:00Z'));
   const mailer = createMemoryMailer();
   const errors: unknown[] = [];
