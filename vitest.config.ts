@@ -14,6 +14,37 @@ const alias = { '@': root };
  */
 const workers = Math.max(2, availableParallelism() - 1);
 
+// Names this run's template database on the PostgreSQL server (tests/support/server-databases.ts):
+// set here, in Vitest's own process, so its global setup and every worker read the same one.
+process.env.BLAZEBOOK_TEST_RUN ??= String(process.pid);
+
+/**
+ * The API tests, on the embedded database (always) or on the PostgreSQL server in
+ * TEST_DATABASE_URL (`api-postgres`): the same files, each opening its databases through
+ * tests/support/test-db.ts and its server processes through tests/support/live-server.ts.
+ */
+function apiProject(engine: 'embedded' | 'server') {
+  return {
+    resolve: { alias },
+    test: {
+      name: engine === 'embedded' ? 'api' : 'api-postgres',
+      environment: 'node',
+      // tests/server-postgres/ holds what needs a server the embedded database cannot be: several
+      // API processes on one database, and PostgreSQL itself stopped mid-load.
+      include: ['tests/server/**/*.test.ts', ...(engine === 'server' ? ['tests/server-postgres/**/*.test.ts'] : [])],
+      globalSetup: ['tests/support/db-template.ts', ...(engine === 'server' ? ['tests/support/server-template.ts'] : [])],
+      env: { BLAZEBOOK_TEST_ENGINE: engine },
+      maxWorkers: workers,
+      // A worker keeps the modules it loaded (Express, Drizzle, PGlite, zod) for its next file
+      // instead of loading them again: nine API files back to back, 34.7 s isolated, 20.8 s not.
+      // Safe because no API test mocks a module or stubs a global, and each closes what it opens.
+      isolate: false,
+      testTimeout: 20_000,
+      hookTimeout: 30_000,
+    },
+  };
+}
+
 /**
  * Three kinds of test, one command. Unit and API tests are fast and run in parallel workers;
  * browser tests share one exported web build and one Chromium, so they run in a single fork.
@@ -36,22 +67,9 @@ export default defineConfig({
           maxWorkers: workers,
         },
       },
-      {
-        resolve: { alias },
-        test: {
-          name: 'api',
-          environment: 'node',
-          include: ['tests/server/**/*.test.ts'],
-          globalSetup: ['tests/support/db-template.ts'],
-          maxWorkers: workers,
-          // A worker keeps the modules it loaded (Express, Drizzle, PGlite, zod) for its next file
-          // instead of loading them again: nine API files back to back, 34.7 s isolated, 20.8 s not.
-          // Safe because no API test mocks a module or stubs a global, and each closes what it opens.
-          isolate: false,
-          testTimeout: 20_000,
-          hookTimeout: 30_000,
-        },
-      },
+      apiProject('embedded'),
+      // The same API tests on a PostgreSQL server, when one is given (CI starts a throwaway cluster).
+      ...(process.env.TEST_DATABASE_URL ? [apiProject('server')] : []),
       {
         resolve: { alias },
         test: {
