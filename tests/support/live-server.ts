@@ -22,7 +22,25 @@ export const viewports = {
 } as const;
 export type ViewportName = keyof typeof viewports;
 
-export type RunningServer = { url: string; dataDir: string; output: () => string; stop(): Promise<void> };
+export type RunningServer = {
+  url: string;
+  dataDir: string;
+  output: () => string;
+  stop(): Promise<void>;
+  /** The server process's id. */
+  pid: number;
+  /** Sends `signal` (SIGKILL: a crash) and resolves once the process has exited. */
+  kill(signal: NodeJS.Signals): Promise<void>;
+};
+
+export type StartOptions = {
+  /**
+   * Start on this data directory instead of a temporary copy: it is copied from the template only
+   * when it does not exist yet, and stays where it is at stop, so a later start reopens it (a
+   * restart after a crash). The caller removes it.
+   */
+  dataDir?: string;
+};
 
 /**
  * Starts the real server (`server/index.ts`) on a free port with its own temporary data directory,
@@ -30,9 +48,13 @@ export type RunningServer = { url: string; dataDir: string; output: () => string
  * template (db-template.ts), as a fresh one would be after its first start, without the initdb.
  * `node --import tsx`, as `npm start` runs it: the tsx command would add a second Node process.
  */
-export async function startServer(dataDirTemplate: string, env: Record<string, string> = {}): Promise<RunningServer> {
-  const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
-  cpSync(dataDirTemplate, dataDir, { recursive: true });
+export async function startServer(
+  dataDirTemplate: string,
+  env: Record<string, string> = {},
+  options: StartOptions = {},
+): Promise<RunningServer> {
+  const dataDir = options.dataDir ?? mkdtempSync(path.join(tmpdir(), 'blazebook-browser-'));
+  if (!options.dataDir || !existsSync(options.dataDir)) cpSync(dataDirTemplate, dataDir, { recursive: true });
   // In the api-postgres project the server gets a database of its own on the PostgreSQL server.
   const serverDatabase = testEngine() === 'server' && !env.DATABASE_URL ? await createTestDatabase() : null;
   if (serverDatabase) env = { DATABASE_URL: serverDatabase.url, ...env };
@@ -50,6 +72,10 @@ export async function startServer(dataDirTemplate: string, env: Record<string, s
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
+  // exitCode stays null after a signal: this says whether the process is still there.
+  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  let running = true;
+  void exited.then(() => (running = false));
   const url = await new Promise<string>((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error(`Server did not start within 60 s:\n${log}`)), 60_000);
     const onData = (chunk: Buffer) => {
@@ -71,14 +97,18 @@ export async function startServer(dataDirTemplate: string, env: Record<string, s
     url,
     dataDir,
     output: () => log,
+    pid: child.pid!,
     async stop() {
-      if (child.exitCode === null) {
-        const exited = new Promise((resolve) => child.once('exit', resolve));
+      if (running) {
         child.kill('SIGTERM');
         await exited;
       }
-      rmSync(dataDir, { recursive: true, force: true });
+      if (!options.dataDir) rmSync(dataDir, { recursive: true, force: true });
       await serverDatabase?.drop();
+    },
+    async kill(signal) {
+      if (running) child.kill(signal);
+      await exited;
     },
   };
 }
