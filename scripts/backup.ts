@@ -16,6 +16,7 @@ import { dumpDataDir } from '../db/client';
 import { DataDirInUseError } from '../db/data-dir-lock';
 import { loadConfig } from '../server/config';
 import { runCommand } from './run-command';
+import { serverModeMessage } from './server-mode';
 
 const usage = `Usage: npm run backup [-- <file.tar.gz | folder>]
 
@@ -73,6 +74,7 @@ function describeSize(bytes: number): string {
   return `${(bytes / 1_048_576).toFixed(1)} MiB, ${bytes.toLocaleString('en')} bytes`;
 }
 
+
 async function main(): Promise<number> {
   const { positionals, values } = parseArgs({
     allowPositionals: true,
@@ -82,7 +84,12 @@ async function main(): Promise<number> {
     console.error(usage);
     return values.help ? 0 : 2;
   }
-  const dataDir = path.resolve(loadConfig().DATA_DIR);
+  const config = loadConfig();
+  if (config.DATABASE_URL) {
+    console.error(serverModeMessage);
+    return 2;
+  }
+  const dataDir = path.resolve(config.DATA_DIR);
   const target = targetFor(positionals[0], new Date());
   const startedAt = performance.now();
   let dump: Blob;

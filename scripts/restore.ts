@@ -4,6 +4,7 @@ import { parseArgs } from 'node:util';
 import { restoreDataDir } from '../db/client';
 import { loadConfig } from '../server/config';
 import { runCommand } from './run-command';
+import { serverModeMessage } from './server-mode';
 
 const usage = `Usage: npm run restore -- <backup.tar.gz>
 
@@ -47,12 +48,17 @@ async function main(): Promise<number> {
     console.error(usage);
     return values.help ? 0 : 2;
   }
+  const config = loadConfig();
+  if (config.DATABASE_URL) {
+    console.error(serverModeMessage);
+    return 2;
+  }
   const file = path.resolve(positionals[0]!);
   if (!existsSync(file)) {
     console.error(`There is no file ${file}.`);
     return 1;
   }
-  const dataDir = path.resolve(loadConfig().DATA_DIR);
+  const dataDir = path.resolve(config.DATA_DIR);
   const startedAt = performance.now();
   await restoreDataDir(dataDir, await openAsBlob(file));
   const files = fsyncTree(dataDir);

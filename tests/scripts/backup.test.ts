@@ -16,12 +16,12 @@ const backupsDir = path.join(scratch, 'backups');
 type Run = { code: number | null; stdout: string; stderr: string };
 
 /** Runs `npm run backup` / `npm run restore` as their scripts, with DATA_DIR set. */
-function run(script: 'backup' | 'restore', args: string[], dataDir: string): Promise<Run> {
+function run(script: 'backup' | 'restore', args: string[], dataDir: string, env: Record<string, string> = {}): Promise<Run> {
   return new Promise((resolve) => {
     execFile(
       process.execPath,
       ['--import', 'tsx', `scripts/${script}.ts`, ...args],
-      { cwd: rootDir, env: { ...process.env, DATA_DIR: dataDir }, timeout: 180_000 },
+      { cwd: rootDir, env: { ...process.env, DATA_DIR: dataDir, ...env }, timeout: 180_000 },
       (error, stdout, stderr) =>
         resolve({ code: error ? (typeof error.code === 'number' ? error.code : null) : 0, stdout, stderr }),
     );
@@ -151,5 +151,18 @@ describe('npm run backup and npm run restore', { timeout: 240_000 }, () => {
     const missing = await run('restore', [path.join(scratch, 'nope.tar.gz')], path.join(scratch, 'unused'));
     expect(missing.code).toBe(1);
     expect(missing.stderr).toContain(`There is no file ${path.join(scratch, 'nope.tar.gz')}.`);
+  });
+
+  it('leaves a PostgreSQL server to its own tools: with DATABASE_URL set, backup and restore refuse and name them', async () => {
+    const env = { DATABASE_URL: 'postgres://blazebook@127.0.0.1:1/blazebook' };
+    const dataDir = path.join(scratch, 'server-mode');
+    const backup = await run('backup', [], dataDir, env);
+    expect(backup.code).toBe(2);
+    expect(backup.stderr).toContain('pg_dump');
+    const restore = await run('restore', [path.join(scratch, 'any.tar.gz')], dataDir, env);
+    expect(restore.code).toBe(2);
+    expect(restore.stderr).toContain('pg_restore');
+    // Nothing was written where the embedded database would have been.
+    expect(existsSync(dataDir)).toBe(false);
   });
 });
