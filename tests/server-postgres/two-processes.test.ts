@@ -53,7 +53,11 @@ const listPage = async (url: string, client: Client) =>
 beforeAll(async () => {
   database = await createTestDatabase();
   const env = { DATABASE_URL: database.url, DATABASE_POOL_SIZE: '10' };
-  [a, b] = await Promise.all([startServer(inject('dataDirTemplate'), env), startServer(inject('dataDirTemplate'), env)]);
+  // Settled one by one, so that afterAll stops whichever started when the other did not.
+  const [first, second] = await Promise.allSettled([startServer(inject('dataDirTemplate'), env), startServer(inject('dataDirTemplate'), env)]);
+  if (first.status === 'fulfilled') a = first.value;
+  if (second.status === 'fulfilled') b = second.value;
+  for (const started of [first, second]) if (started.status === 'rejected') throw started.reason;
 
   // Accounts made through either process; each mailed link is read back through the other one.
   [olga, remi, dana, pat] = await Promise.all([
@@ -69,6 +73,7 @@ beforeAll(async () => {
 }, 120_000);
 
 afterAll(async () => {
+  for (const person of [olga, remi, dana, pat]) person?.client.agent.destroy();
   await Promise.all([a?.stop(), b?.stop()]);
   await database?.drop();
 });
