@@ -45,6 +45,8 @@ export type AppDeps = {
   trustedOrigin?: string;
   /** Sign-in, sign-up, reset, solve, search and selectors limits; tests inject small ones. */
   rateLimits?: Partial<RateLimits>;
+  /** Express's `trust proxy` (TRUST_PROXY): which proxies in front may name the client. */
+  trustProxy?: string | number;
   /** argon2id for account passwords; left out, OWASP's minimum cost (server/index.ts leaves it out). */
   passwords?: PasswordHasher;
 };
@@ -81,6 +83,7 @@ const apiCacheControl: RequestHandler = (_req, res, next) => {
 export function createApp(deps: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
+  if (deps.trustProxy !== undefined) app.set('trust proxy', deps.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -22,6 +22,17 @@ const envSchema = z.object({
     .string()
     .regex(/^postgres(ql)?:\/\/\S+$/, 'must be a postgres:// or postgresql:// URL')
     .optional(),
+  /**
+   * Which proxies in front may name the client (X-Forwarded-For), as Express's `trust proxy`:
+   * `loopback` for a reverse proxy on the same machine, a hop count, or addresses/subnets. Unset,
+   * the client is the socket's peer: behind a proxy, every request would then count against the
+   * proxy's own address in the rate limits.
+   */
+  TRUST_PROXY: z
+    .string()
+    .regex(/^(\d{1,2}|[\w.:/, -]+)$/, 'must be loopback, a hop count, or addresses')
+    .optional()
+    .transform((value) => (value !== undefined && /^\d+$/.test(value) ? Number(value) : value)),
   /** Connections each API process keeps open to DATABASE_URL at most. */
   DATABASE_POOL_SIZE: z.coerce.number().int().min(1).max(100).default(10),
   WEB_ROOT: z.string().min(1).default(`${rootDir}dist`),

@@ -41,6 +41,7 @@ const app = createApp({
   version: config.version,
   webRoot: config.WEB_ROOT,
   https: config.PUBLIC_URL?.startsWith('https:') ?? false,
+  trustProxy: config.TRUST_PROXY,
 });
 
 const server = app.listen(config.PORT, config.HOST, () => {

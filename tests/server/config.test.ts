@@ -31,4 +31,21 @@ describe('server configuration', () => {
   ] satisfies [string, boolean][])('counts %s as loopback: %s', (host, loopback) => {
     expect(isLoopbackListenAddress(host)).toBe(loopback);
   });
+
+  it('reads DATABASE_URL only as a postgres URL, and names it when it is not one', () => {
+    expect(loadConfig({ DATABASE_URL: 'postgres://blazebook@127.0.0.1:5432/blazebook' }).DATABASE_URL).toBe(
+      'postgres://blazebook@127.0.0.1:5432/blazebook',
+    );
+    expect(loadConfig({}).DATABASE_URL).toBeUndefined();
+    expect(() => loadConfig({ DATABASE_URL: 'mysql://root@localhost/blazebook' })).toThrow(/DATABASE_URL/);
+    expect(() => loadConfig({ DATABASE_POOL_SIZE: '0' })).toThrow(/DATABASE_POOL_SIZE/);
+  });
+
+  it('reads TRUST_PROXY as a hop count or as names and addresses, as Express takes them', () => {
+    expect(loadConfig({ TRUST_PROXY: '1' }).TRUST_PROXY).toBe(1);
+    expect(loadConfig({ TRUST_PROXY: 'loopback' }).TRUST_PROXY).toBe('loopback');
+    expect(loadConfig({ TRUST_PROXY: '10.0.0.0/8, 192.0.2.1' }).TRUST_PROXY).toBe('10.0.0.0/8, 192.0.2.1');
+    expect(loadConfig({}).TRUST_PROXY).toBeUndefined();
+    expect(() => loadConfig({ TRUST_PROXY: 'a;b' })).toThrow(/TRUST_PROXY/);
+  });
 });

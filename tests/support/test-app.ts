@@ -26,7 +26,7 @@ type TestAppOptions = {
   database?: DatabaseHandle;
   /** Hash at OWASP's cost, as every real app does, instead of the tests' cheap one. */
   productionPasswordCost?: boolean;
-} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'webRoot'>>;
+} & Partial<Pick<AppDeps, 'rateLimits' | 'nodeEnv' | 'https' | 'webRoot' | 'trustProxy'>>;
 
 /**
  * argon2id at its lowest cost (8 KiB, 1 pass: ≈ 0.3 ms against ≈ 15–45 ms). The tests check what
@@ -55,6 +55,7 @@ export async function createTestApp(options: TestAppOptions = {}) {
     publicUrl: () => testOrigin,
     trustedOrigin: options.trustedOrigin === null ? undefined : (options.trustedOrigin ?? testOrigin),
     rateLimits: options.rateLimits,
+    trustProxy: options.trustProxy,
     passwords: options.productionPasswordCost ? undefined : testPasswordHasher,
     log: options.log ?? ((error) => errors.push(error)),
   });
