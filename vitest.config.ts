@@ -61,7 +61,7 @@ export default defineConfig({
           name: 'unit',
           environment: 'node',
           include: ['tests/**/*.test.ts'],
-          exclude: ['tests/server/**', 'tests/browser/**'],
+          exclude: ['tests/server/**', 'tests/server-postgres/**', 'tests/browser/**'],
           // The backup tests start from the migrated template's data directory.
           globalSetup: ['tests/support/db-template.ts'],
           maxWorkers: workers,
