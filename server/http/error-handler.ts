@@ -63,6 +63,27 @@ function clientErrorFromStatus(error: unknown, req: Request): HttpError | null {
   return new HttpError(status, 'invalid_request', 'The request could not be read.');
 }
 
+/** PostgreSQL's connection-exception and shutdown SQLSTATEs, and the socket errors of a server that is gone. */
+const unavailableCodes = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08000', '08001', '08003', '08006']);
+
+/**
+ * The database server is down or restarting (server mode): not the request's fault and not a bug,
+ * and it passes. Drizzle wraps the driver's error, so the cause chain is searched.
+ */
+function databaseUnavailable(error: unknown): string | null {
+  for (let at: unknown = error, depth = 0; at && typeof at === 'object' && depth < 5; at = (at as { cause?: unknown }).cause, depth++) {
+    const { code, message } = at as { code?: unknown; message?: unknown };
+    const text = typeof message === 'string' ? message : '';
+    if ((typeof code === 'string' && unavailableCodes.has(code)) || /^Connection terminated/.test(text)) {
+      return `${typeof code === 'string' ? `${code} ` : ''}${text}`.trim();
+    }
+  }
+  return null;
+}
+
+/** Seconds a client is asked to wait while the database is unavailable: a restart takes a few. */
+export const unavailableRetryAfterS = 5;
+
 /**
  * The one place that turns failures into the API's error shape. Unknown errors are logged here
  * and reach the client as a bare 500: no stack, no message from inside the server.
@@ -81,6 +102,14 @@ export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler
           : (bodyParserError(error) ?? clientErrorFromStatus(error, req));
     if (known) {
       res.status(known.status).json(body(known.code, known.message, known.fields, known.details));
+      return;
+    }
+    const unavailable = databaseUnavailable(error);
+    if (unavailable) {
+      // One line, not a stack per request: an outage of a few seconds is hundreds of requests.
+      log(`Database unavailable (${req.method} ${req.path}): ${unavailable}`);
+      res.setHeader('Retry-After', String(unavailableRetryAfterS));
+      res.status(503).json(body('database_unavailable', 'The database is not answering just now. Try again in a few seconds.'));
       return;
     }
     log(error);

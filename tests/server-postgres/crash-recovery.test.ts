@@ -114,6 +114,9 @@ describe('PostgreSQL stopped with an immediate shutdown mid-load (fsync on)', ()
       const backMs = performance.now() - restarted;
       await load.stop();
       expect(load.acknowledged()).toBeGreaterThanOrEqual(beforeStart + 3);
+      // Refused as unavailable, with when to try again, never as a server bug.
+      expect(load.refused.get(500) ?? 0).toBe(0);
+      expect(load.refused.get(503) ?? 0).toBeGreaterThan(0);
       failedDuringOutage += refusedDuring;
 
       const { problems, unacknowledgedVersions } = await verify(team, ledger);
@@ -125,7 +128,7 @@ describe('PostgreSQL stopped with an immediate shutdown mid-load (fsync on)', ()
           `(${beforeStart - before} of them answered); ` +
           `immediate stop ${Math.round(crashMs)} ms, ${refusedDuring} requests refused in 300 ms without PostgreSQL; ` +
           `start with WAL replay ${Math.round(startMs)} ms, writes acknowledged again ${Math.round(backMs)} ms after the start began ` +
-          `(${load.refused.get(500) ?? 0} answered 500 in the round); all ${versions} versions, ${curves} curves and ${remarks} remarks ` +
+          `(${load.refused.get(503) ?? 0} answered 503 in the round); all ${versions} versions, ${curves} curves and ${remarks} remarks ` +
           `acknowledged so far intact, ${unacknowledgedVersions} versions present that were never answered`,
       );
     }

@@ -110,4 +110,34 @@ describe('the error middleware', () => {
     expect(res.body).toEqual({ doubled: 42 });
     expect(calls).toBe(1);
   });
+
+  it('answers 503 with Retry-After when the database server is gone, and logs one line instead of a stack', async () => {
+    const logged: unknown[] = [];
+    const app = express();
+    // As Drizzle wraps them: the driver's error is the cause of a query error.
+    const wrapped = (cause: object) => Object.assign(new Error('Failed query: select 1'), { cause });
+    app.get('/refused', () => {
+      throw wrapped(Object.assign(new Error('connect ECONNREFUSED 127.0.0.1:5432'), { code: 'ECONNREFUSED' }));
+    });
+    app.get('/shutdown', () => {
+      throw wrapped(Object.assign(new Error('terminating connection due to administrator command'), { code: '57P01' }));
+    });
+    app.get('/terminated', () => {
+      throw wrapped(new Error('Connection terminated unexpectedly'));
+    });
+    app.get('/bug', () => {
+      throw wrapped(Object.assign(new Error('column "nope" does not exist'), { code: '42703' }));
+    });
+    app.use(errorHandler((entry) => logged.push(entry)));
+    for (const path of ['/refused', '/shutdown', '/terminated']) {
+      const res = await request(app).get(path).expect(503);
+      expect(res.headers['retry-after']).toBe('5');
+      expect(errorBodySchema.parse(res.body).error.code).toBe('database_unavailable');
+    }
+    expect(logged).toHaveLength(3);
+    for (const entry of logged) expect(entry).toEqual(expect.stringMatching(/^Database unavailable \(GET \/\w+\): /));
+    // A query the database refuses for its own reasons is still our bug: a bare 500, logged whole.
+    await request(app).get('/bug').expect(500);
+    expect(logged[3]).toBeInstanceOf(Error);
+  });
 });
