@@ -9,23 +9,22 @@
  * Each is warmed up first. Prints req/s, p50, p99, bytes per answer and any non-2xx by status.
  * Targets (issue 6): reads ≥ 2,000 req/s with p99 ≤ 20 ms; saves p99 ≤ 50 ms.
  *
- * `npm run bench:api`. BENCH_API_ONLY=session,version,list,save picks scenarios ("session" is the
- * floor every signed-in request pays, not a target); BENCH_API_PROFILE=<dir> writes a CPU profile
- * of the server; BENCH_API_ECHO=1 shows the server's output.
+ * `npm run bench:api`. BENCH_API_ONLY=floor,session,version,list,save picks scenarios ("floor" is a
+ * bare Express route in a process of its own, bench/bare-express.ts; "session" is what every
+ * signed-in request pays; neither is a target); BENCH_DATABASE_URL=<a PostgreSQL superuser's URL>
+ * runs the server on a new database there (dropped afterwards) instead of PGlite;
+ * BENCH_API_PROFILE=<dir> writes a CPU profile of the server; BENCH_API_ECHO=1 shows the server's
+ * output. The rows are also written to tests/artifacts/bench-api-<engine>.json.
  */
 import autocannon from 'autocannon';
 import { spawn, type ChildProcess } from 'node:child_process';
-import { randomUUID } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { openDatabase } from '../db/client';
-import { systemClock } from '../server/clock';
-import { createNotebooksRepository } from '../server/notebooks/repository';
-import { summarizeVersion } from '../server/notebooks/summary';
-import { demoPassword, demoTeamName, demoUsers, seedDemoData } from '../server/seed/demo';
-import { exampleDesign, type Design } from '../shared/design';
+import { demoPassword, demoTeamName, demoUsers } from '../server/seed/demo';
+import { createServerDatabase, seedBenchData, withSlits } from './bench-data';
+import { writeFigures } from './figures';
 
 const rootDir = fileURLToPath(new URL('..', import.meta.url));
 const CONNECTIONS = 32;
@@ -34,73 +33,22 @@ const WARMUP_S = 3;
 const MEASURE_S = 10;
 const EXTRA_DESIGNS = 60;
 
-const withSlits = (widthUm: number): Design => ({
-  ...exampleDesign,
-  slits: { ...exampleDesign.slits, entranceWidthUm: widthUm, exitWidthUm: widthUm },
-});
-
-/** The demo data plus enough designs for a list with paging, and one design per save connection. */
-async function seed(dataDir: string): Promise<{ saveDesignIds: string[] }> {
-  const database = await openDatabase({ dataDir });
-  try {
-    await seedDemoData({ database, clock: systemClock });
-    const [team] = await database.db.query.teams.findMany({ where: (t, { eq }) => eq(t.name, demoTeamName) });
-    const owner = await database.db.query.users.findFirst({
-      where: (u, { eq }) => eq(u.email, demoUsers[0].email),
-    });
-    if (!team || !owner) throw new Error('demo data missing after seeding');
-    const repository = createNotebooksRepository(database.db);
-    const now = Date.now();
-    const saveDesignIds: string[] = [];
-    for (let i = 0; i < EXTRA_DESIGNS; i++) {
-      const id = randomUUID();
-      const params = withSlits(20 + i * 5);
-      const at = new Date(now - i * 60_000);
-      await repository.inTransaction((repo) =>
-        repo.insertDesign(
-          {
-            id,
-            teamId: team.id,
-            title: `Bench design ${String(i).padStart(2, '0')}`,
-            tags: i % 3 ? ['bench'] : ['bench', 'uv'],
-            createdBy: owner.id,
-            latestVersion: 1,
-            createdAt: at,
-            updatedAt: at,
-          },
-          [
-            {
-              id: randomUUID(),
-              designId: id,
-              number: 1,
-              params,
-              notes: 'Bench.',
-              message: 'Start',
-              authorId: owner.id,
-              parentNumber: null,
-              summary: summarizeVersion(params),
-              createdAt: at,
-            },
-          ],
-        ),
-      );
-      if (saveDesignIds.length < CONNECTIONS) saveDesignIds.push(id);
-    }
-    return { saveDesignIds };
-  } finally {
-    await database.close();
-  }
-}
-
-async function startServer(dataDir: string): Promise<{ url: string; stop(): Promise<void> }> {
+async function startServer(dataDir: string, databaseUrl?: string, entry = 'server/index.ts'): Promise<{ url: string; stop(): Promise<void> }> {
   let log = '';
   // BENCH_API_PROFILE=<dir> writes a V8 CPU profile of the server there when it stops.
   const profileDir = process.env.BENCH_API_PROFILE;
   const nodeArgs = profileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(profileDir)}`] : [];
-  const child: ChildProcess = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', 'server/index.ts'], {
+  const child: ChildProcess = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', entry], {
     cwd: rootDir,
     // production: no dev routes, no seeding on start, no per-request dev logging.
-    env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, NODE_ENV: 'production' },
+    env: {
+      ...process.env,
+      PORT: '0',
+      HOST: '127.0.0.1',
+      DATA_DIR: dataDir,
+      NODE_ENV: 'production',
+      ...(databaseUrl ? { DATABASE_URL: databaseUrl } : {}),
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   const url = await new Promise<string>((resolve, reject) => {
@@ -151,11 +99,17 @@ async function run(name: string, options: autocannon.Options, seconds: number): 
 }
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'blazebook-bench-api-'));
+// BENCH_DATABASE_URL (a PostgreSQL superuser's URL): the server runs on a new database there instead of PGlite.
+const adminUrl = process.env.BENCH_DATABASE_URL;
+const engine = adminUrl ? 'server' : 'embedded';
+let serverDatabase: Awaited<ReturnType<typeof createServerDatabase>> | undefined;
 let server: Awaited<ReturnType<typeof startServer>> | undefined;
+let floorServer: Awaited<ReturnType<typeof startServer>> | undefined;
 try {
-  console.log(`Seeding an on-disk database in ${dataDir} …`);
-  const { saveDesignIds } = await seed(dataDir);
-  server = await startServer(dataDir);
+  if (adminUrl) serverDatabase = await createServerDatabase(adminUrl, 'blazebook_bench_api');
+  console.log(serverDatabase ? `Seeding a database on the PostgreSQL server …` : `Seeding an on-disk database in ${dataDir} …`);
+  const { saveDesignIds } = await seedBenchData(serverDatabase ? { url: serverDatabase.url, poolSize: 2 } : { dataDir }, EXTRA_DESIGNS, CONNECTIONS);
+  server = await startServer(dataDir, serverDatabase?.url);
   const origin = new URL(server.url).origin;
 
   const signIn = await fetch(`${server.url}/api/auth/sign-in`, {
@@ -240,8 +194,16 @@ try {
   console.log(
     `Server at ${server.url}; ${list.total} designs in the lab team; reads at ${CONNECTIONS} connections, saves at ${SAVE_CONNECTIONS.join(', ')}; ${MEASURE_S} s each after ${WARMUP_S} s of warm-up.\n`,
   );
-  const only = new Set((process.env.BENCH_API_ONLY ?? 'session,version,list,save').split(','));
+  const only = new Set((process.env.BENCH_API_ONLY ?? 'floor,session,version,list,save').split(','));
   const rows: Row[] = [];
+  if (only.has('floor')) {
+    // The floor of the whole stack: a bare Express app answering a small JSON, as its own process.
+    floorServer = await startServer(dataDir, undefined, 'bench/bare-express.ts');
+    const bare: autocannon.Options = { url: `${floorServer.url}/floor`, headers };
+    await run('warm-up', bare, WARMUP_S);
+    rows.push(await run('GET bare Express (floor)', bare, MEASURE_S));
+    await floorServer.stop();
+  }
   if (only.has('session')) {
     // Not a target: the floor every signed-in request pays (HTTP, middleware, session).
     const sessionRead: autocannon.Options = { url: `${server.url}/api/auth/session`, headers };
@@ -277,7 +239,10 @@ try {
     );
   }
   console.log('\nTargets: reads ≥ 2000 req/s with p99 ≤ 20 ms at 32 connections; saves p99 ≤ 50 ms.');
+  writeFigures(`api-${engine}`, { engine, connections: CONNECTIONS, seconds: MEASURE_S, rows });
 } finally {
+  await floorServer?.stop();
   await server?.stop();
+  await serverDatabase?.drop();
   rmSync(dataDir, { recursive: true, force: true });
 }

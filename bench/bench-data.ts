@@ -1,12 +1,5 @@
-/**
- * What the server benchmarks share: a seeded database on either engine, and the small JSON of
- * headline figures each benchmark leaves in tests/artifacts for `npm run bench` (bench/all.bench.ts)
- * to read instead of parsing printed text.
- */
+/** What the server benchmarks share: a seeded database on either engine. */
 import { randomBytes, randomUUID } from 'node:crypto';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import pg from 'pg';
 import { openDatabase, type OpenOptions } from '../db/client';
 import { systemClock } from '../server/clock';
@@ -14,9 +7,6 @@ import { createNotebooksRepository } from '../server/notebooks/repository';
 import { summarizeVersion } from '../server/notebooks/summary';
 import { demoTeamName, demoUsers, seedDemoData } from '../server/seed/demo';
 import { exampleDesign, type Design } from '../shared/design';
-
-const rootDir = fileURLToPath(new URL('..', import.meta.url));
-export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
 
 export const withSlits = (widthUm: number): Design => ({
   ...exampleDesign,
@@ -98,14 +88,4 @@ export async function createServerDatabase(adminUrl: string, prefix: string): Pr
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
   return { url: url.toString(), drop: () => admin(`drop database if exists ${name} with (force)`) };
-}
-
-/** A benchmark's headline figures, by name: tests/artifacts/bench-<name>.json. */
-export type Figures = Record<string, number | string | null | Record<string, unknown> | unknown[]>;
-
-export function writeFigures(name: string, figures: Figures): string {
-  mkdirSync(artifactsDir, { recursive: true });
-  const file = path.join(artifactsDir, `bench-${name}.json`);
-  writeFileSync(file, `${JSON.stringify({ at: new Date().toISOString(), ...figures }, null, 2)}\n`);
-  return file;
 }

@@ -7,6 +7,7 @@
 
 import { CHECKED_POINTS, planSearch, runSearch } from '../features/search/index';
 import { SEARCH_LIMITS, searchRequestSchema, type SearchRequest } from '../shared/search';
+import { writeFigures } from './figures';
 
 const WARMUP_RUNS = 3;
 const TIMED_RUNS = 15;
@@ -167,4 +168,14 @@ console.log(`  candidates per second (whole search)        : ${Math.round(CANDID
 console.log(`  ratio whole search / bare loop              : ${(fullMs / bareMs).toFixed(2)}  (target ≤ 3)`);
 console.log(`  ratio screen / bare loop                    : ${(screenMs / bareMs).toFixed(2)}`);
 console.log(`  largest accepted search                     : ${largestTotal} candidates (cap ${SEARCH_LIMITS.maxCandidates}) in ${largestMs.toFixed(0)} ms median of 5`);
+writeFigures('search', {
+  candidates: CANDIDATES,
+  fullMs,
+  screenMs,
+  bareMs,
+  candidatesPerSecond: CANDIDATES / (fullMs / 1000),
+  ratio: fullMs / bareMs,
+  largestCandidates: largestTotal,
+  largestMs,
+});
 if (sink === 0) console.log('(unreachable: keeps the work observable)');

@@ -11,6 +11,7 @@
 
 import { buildCompareSheet, buildSheet } from '../server/sheets/build';
 import { sampleCompareSheet, sampleSheet } from '../tests/server/sheets/sample';
+import { writeFigures } from './figures';
 
 const RUNS = 15;
 const WARM_UP = 3;
@@ -42,6 +43,7 @@ const cpuMs = (since: NodeJS.CpuUsage) => {
 };
 
 console.log(['sheet', 'first ms', `median ms (${RUNS})`, 'min–max ms', 'median CPU ms', 'KB', 'pages', `≤ ${TARGET_MS} ms`, `≤ ${TARGET_KB} KB`].join('\t'));
+const rows: { name: string; firstMs: number; medianMs: number; medianCpuMs: number; kb: number; pages: number }[] = [];
 for (const { name, build } of cases) {
   let start = performance.now();
   const first = await build();
@@ -61,7 +63,9 @@ for (const { name, build } of cases) {
   const kb = bytes.length / 1024;
   // pdfkit writes one "/Type /Page" object per page (and "/Type /Pages" once for the tree).
   const pages = (bytes.toString('latin1').match(/\/Type \/Page\b(?!s)/g) ?? []).length;
+  rows.push({ name, firstMs, medianMs: ms, medianCpuMs: median(cpu), kb, pages });
   console.log(
     [name, firstMs.toFixed(0), ms.toFixed(0), `${Math.min(...times).toFixed(0)}–${Math.max(...times).toFixed(0)}`, median(cpu).toFixed(0), kb.toFixed(0), pages, mark(ms <= TARGET_MS), mark(kb <= TARGET_KB)].join('\t'),
   );
 }
+writeFigures('sheet', { runs: RUNS, targetMs: TARGET_MS, targetKb: TARGET_KB, rows });

@@ -12,9 +12,11 @@
  * keeps under them: a 429 is counted apart as an expected refusal, as is a 409 (a save on a version
  * that is no longer the latest). Each connection saves to a design of its own.
  *
+ * Before the measured SOAK_SECONDS the same traffic runs SOAK_WARMUP_SECONDS (default 20) uncounted.
  * Prints per route: count, p50, p99, max, unexpected errors; the total throughput; the server
- * process's RSS (VmRSS) at start, after warm-up and at the end, with end / start and end / warm
- * (target: flat within 20 %). Writes the same to tests/artifacts/soak-<engine>.json.
+ * process's RSS (VmRSS, from /proc) at start, after warm-up and at the end, with end / start and
+ * end / warm (target: flat within 20 %), and the medians of the first and last fifths of the
+ * samples taken every 5 s. Writes the same to tests/artifacts/soak-<engine>.json.
  *
  * `npm run bench:soak`; SOAK_SECONDS=60 for a short one; SOAK_ENGINES=embedded (or server) for one engine.
  */
@@ -29,7 +31,8 @@ import { demoPassword, demoTeamName, demoUsers } from '../server/seed/demo';
 import { exampleDesign } from '../shared/design';
 import { ensureTemplate } from '../tests/support/db-template';
 import { startServer, type RunningServer } from '../tests/support/live-server';
-import { artifactsDir, createServerDatabase, seedBenchData, withSlits } from './bench-data';
+import { createServerDatabase, seedBenchData, withSlits } from './bench-data';
+import { artifactsDir } from './figures';
 
 const SECONDS = Number(process.env.SOAK_SECONDS ?? 300);
 const CONNECTIONS = 32;
@@ -297,6 +300,16 @@ async function soak(engine: Engine, server: RunningServer): Promise<EngineResult
     rss.push({ t: Math.round(elapsedS), kb: endKb });
     const startKb = rss[0]!.kb;
     warmKb ??= startKb;
+    // A point sample rides the garbage collector's sawtooth: the medians of the measured time's first
+    // and last fifths show the trend.
+    const measured = rss.filter((r) => r.t >= WARM_S);
+    const fifth = Math.max(1, Math.floor(measured.length / 5));
+    const medianKb = (samples: { kb: number }[]) => {
+      const sorted = samples.map((r) => r.kb).sort((x, y) => x - y);
+      return sorted[sorted.length >> 1] ?? NaN;
+    };
+    const earlyKb = medianKb(measured.slice(0, fifth));
+    const lateKb = medianKb(measured.slice(-fifth));
 
     const routes = [...stats.entries()].map(([route, s]) => {
       const sorted = Float64Array.from(s.latencies).sort();
@@ -339,6 +352,9 @@ async function soak(engine: Engine, server: RunningServer): Promise<EngineResult
       rssMaxMb: Math.max(...rss.map((r) => r.kb)) / 1024,
       rssEndOverStart: endKb / startKb,
       rssEndOverWarm: endKb / warmKb,
+      rssEarlyMedianMb: earlyKb / 1024,
+      rssLateMedianMb: lateKb / 1024,
+      rssLateOverEarly: lateKb / earlyKb,
       rssTargetRatio: TARGET_RSS_RATIO,
       warmUpSeconds: WARM_S,
       warmUpRequests: warmUp.requests,
@@ -366,6 +382,9 @@ function print(result: EngineResult) {
   console.log(`throughput ${f(n('throughputPerSecond'), 0)} req/s over ${n('requests')} requests; unexpected errors ${n('errors')}; expected refusals: ${n('expected409')}×409, ${n('expected429')}×429`);
   console.log(
     `server RSS: ${f(n('rssStartMb'))} MB at start, ${f(n('rssWarmMb'))} MB after ${result.warmUpSeconds} s of warm-up, ${f(n('rssEndMb'))} MB at the end (max ${f(n('rssMaxMb'))}); end / start ${f(n('rssEndOverStart'), 2)}, end / warm ${f(n('rssEndOverWarm'), 2)} (target ≤ ${TARGET_RSS_RATIO})`,
+  );
+  console.log(
+    `server RSS medians (samples every ${RSS_SAMPLE_MS / 1000} s): first fifth ${f(n('rssEarlyMedianMb'))} MB, last fifth ${f(n('rssLateMedianMb'))} MB; last / first ${f(n('rssLateOverEarly'), 2)}`,
   );
 }
 

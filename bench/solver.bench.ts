@@ -6,6 +6,7 @@
 
 import { evaluateDesign } from '../features/solver/evaluate';
 import { exampleDesign, MAX_SOLVE_WAVELENGTHS, solveRequestSchema, type Design } from '../shared/design';
+import { writeFigures } from './figures';
 
 const POINTS = 1000;
 const WARMUP_RUNS = 300;
@@ -117,4 +118,5 @@ console.log(`  ratio full / floor     : ${(fullUs / floorUs).toFixed(2)}`);
 console.log(
   `  worst capped request   : ${(worstUs / 1000).toFixed(1)} ms median of ${WORST_RUNS} (parse + evaluate + JSON, ${MAX_SOLVE_WAVELENGTHS} wavelengths × 20 listed orders, ${(worstBytes / 1e6).toFixed(2)} MB)`,
 );
+writeFigures('solver', { points: POINTS, fullUs, floorUs, ratio: fullUs / floorUs, worstMs: worstUs / 1000, worstBytes });
 if (sink === 0) console.log('(unreachable: keeps the work observable)');

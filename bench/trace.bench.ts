@@ -10,6 +10,7 @@ import { traceDesign } from '../features/trace';
 import { buildMount, gratingAt } from '../features/trace/optical-system';
 import { allocateBundle, traceBundle, type RayBundle } from '../features/trace/trace-bundle';
 import { exampleDesign } from '../shared/design';
+import { writeFigures } from './figures';
 
 const RAYS = 100_000;
 const WARMUP_RUNS = 20;
@@ -140,4 +141,5 @@ console.log(`trace ${RAYS.toLocaleString('en')} rays (Czerny–Turner, 3 surface
 console.log(`bare structure-of-arrays loop, same maths:              median ${bare.toFixed(2)} ms`);
 console.log(`trace / bare: ${(trace / bare).toFixed(2)}×   (targets: ≤ 15 ms, ≤ 2×)`);
 console.log(`whole traceDesign (3 wavelengths × ${'default'} rays, spots, line shape, foci): median ${median(wholeTimes).toFixed(1)} ms`);
+writeFigures('trace', { rays: RAYS, arrived, traceMs: trace, bareMs: bare, ratio: trace / bare, traceDesignMs: median(wholeTimes) });
 if (sink === 42) console.log('');

@@ -13,6 +13,7 @@ import { gzipSync } from 'node:zlib';
 import { ensureWebBuild } from '../scripts/web-build';
 import { ensureTemplate } from '../tests/support/db-template';
 import { launchBrowser, startServer, viewports } from '../tests/support/live-server';
+import { writeFigures } from './figures';
 
 const rootDir = fileURLToPath(new URL('..', import.meta.url));
 const EDITS = 50;
@@ -86,6 +87,16 @@ try {
   console.log(
     `navigation → interactive workbench: median ${median(loads).toFixed(0)} ms over ${LOADS} cold loads (target ≤ 1500 ms)`,
   );
+  writeFigures('ui', {
+    editMedianMs: median(edits),
+    editP90Ms: [...edits].sort((a, b) => a - b)[Math.floor(EDITS * 0.9)]!,
+    initialRawKb: rawSize(initial) / 1024,
+    initialGzipKb: gzipSize(initial) / 1024,
+    allRawKb: rawSize(files) / 1024,
+    allGzipKb: gzipSize(files) / 1024,
+    chunks: files.length,
+    loadMedianMs: median(loads),
+  });
 } finally {
   await browser.close();
   await server.stop();
