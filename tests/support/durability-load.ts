@@ -1,6 +1,6 @@
-import http from 'node:http';
 import { isDeepStrictEqual } from 'node:util';
 import { exampleDesign, type Design } from '../../shared/design';
+import { httpRequest, parsed, sessionAfter, type Payload } from './http-request';
 
 /**
  * The durability tests' load and ledger (tests/server/durability.test.ts on both engines,
@@ -21,7 +21,7 @@ const password = 'a long enough password for crash tests';
  * so `moveTo` gives a client a fresh one for each round of load.
  */
 export class Client {
-  private cookies = new Map<string, string>();
+  private cookie: string | null = null;
   constructor(
     readonly name: string,
     private target: () => string,
@@ -33,59 +33,19 @@ export class Client {
   }
 
   /** Answers the status and parsed JSON; rejects when the server cannot be reached or hangs up. */
-  send(method: string, path: string, payload?: Json | { multipart: FormData }): Promise<Answer> {
-    return encode(payload).then(
-      ({ bytes, type }) =>
-        new Promise<Answer>((resolve, reject) => {
-          const base = this.target();
-          const headers: http.OutgoingHttpHeaders = { origin: base };
-          if (this.cookies.size > 0) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
-          if (bytes) Object.assign(headers, { 'content-type': type, 'content-length': bytes.length });
-          const req = http.request(`${base}${path}`, { method, headers, agent: false, localAddress: this.localAddress, timeout: 20_000 }, (res) => {
-            for (const line of res.headers['set-cookie'] ?? []) {
-              const [pair] = line.split(';');
-              const at = pair!.indexOf('=');
-              const value = pair!.slice(at + 1);
-              // An emptied cookie (sign-out) would say so; none of these flows signs out.
-              if (value) this.cookies.set(pair!.slice(0, at), value);
-            }
-            const chunks: Buffer[] = [];
-            res.on('data', (chunk: Buffer) => chunks.push(chunk));
-            res.on('end', () => {
-              const text = Buffer.concat(chunks).toString();
-              let body: Json = {};
-              try {
-                body = text ? (JSON.parse(text) as Json) : {};
-              } catch {
-                body = { text };
-              }
-              resolve({ status: res.statusCode ?? 0, body });
-            });
-            res.on('error', reject);
-          });
-          req.on('timeout', () => req.destroy(new Error(`${method} ${path} hung for 20 s`)));
-          req.on('error', reject);
-          req.end(bytes);
-        }),
-    );
+  async send(method: string, path: string, payload?: Payload): Promise<Answer> {
+    const reply = await httpRequest({ base: this.target(), method, path, payload, cookie: this.cookie, localAddress: this.localAddress });
+    // None of these flows signs out, so a cookie once set stays.
+    this.cookie = sessionAfter(reply.setCookie, this.cookie);
+    return { status: reply.status, body: parsed<Json>(reply.text, {}, (text) => ({ text })) };
   }
 
   /** `send`, expecting `status`: for the setup, where anything else is a broken test. */
-  async expect(status: number, method: string, path: string, payload?: Json | { multipart: FormData }): Promise<Json> {
+  async expect(status: number, method: string, path: string, payload?: Payload): Promise<Json> {
     const answer = await this.send(method, path, payload);
     if (answer.status !== status) throw new Error(`${this.name}: ${method} ${path} answered ${answer.status}, not ${status}: ${JSON.stringify(answer.body)}`);
     return answer.body;
   }
-}
-
-/** Multipart through the platform's own encoder (Response serialises a FormData, boundary included). */
-async function encode(payload: Json | { multipart: FormData } | undefined): Promise<{ bytes?: Buffer; type?: string }> {
-  if (!payload) return {};
-  if (payload.multipart instanceof FormData) {
-    const encoded = new Response(payload.multipart);
-    return { bytes: Buffer.from(await encoded.arrayBuffer()), type: encoded.headers.get('content-type')! };
-  }
-  return { bytes: Buffer.from(JSON.stringify(payload)), type: 'application/json' };
 }
 
 export type Version = { number: number; parentNumber: number | null; params: unknown; notes: string; message: string } & Json;
@@ -218,7 +178,7 @@ export function startRound(team: Team, ledger: Ledger, round: number): Round {
   const refused = new Map<number, number>();
   [...team.owners, ...team.reviewers].forEach((client, i) => client.moveTo(`127.0.${round + 1}.${i + 2}`));
 
-  async function attempt(client: Client, method: string, path: string, payload?: Json | { multipart: FormData }): Promise<Answer> {
+  async function attempt(client: Client, method: string, path: string, payload?: Payload): Promise<Answer> {
     inFlight++;
     try {
       return await client.send(method, path, payload);

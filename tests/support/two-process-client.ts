@@ -1,12 +1,11 @@
 import http from 'node:http';
-import { sessionCookieName } from '../../server/auth/lucia';
 import { outboxResponseSchema } from '../../shared/outbox';
+import { httpRequest, parsed, sessionAfter } from './http-request';
 
 /**
  * A browser reduced to what the two-process tests need: a session cookie that goes to whichever
- * API process it is sent to (as behind a load balancer), the Origin of that process (the CSRF check
- * compares it with Host), and a keep-alive connection of its own, so twenty clients are twenty
- * connections. Plain node:http: supertest's agents keep one cookie jar per base URL.
+ * API process it is sent to (as behind a load balancer), and a keep-alive connection of its own,
+ * so twenty clients are twenty connections (requests through tests/support/http-request.ts).
  */
 export type Client = { cookie: string | null; agent: http.Agent };
 
@@ -16,51 +15,11 @@ export function newClient(cookie: string | null = null): Client {
   return { cookie, agent: new http.Agent({ keepAlive: true, maxSockets: 1 }) };
 }
 
-/** The session cookie a response sets (null when it clears it), or `current` when it sets none. */
-function sessionAfter(setCookie: string[] | undefined, current: string | null): string | null {
-  for (const line of setCookie ?? []) {
-    const [pair = '', ...attributes] = line.split(';').map((part) => part.trim());
-    if (!pair.startsWith(`${sessionCookieName}=`)) continue;
-    const cleared = pair === `${sessionCookieName}=` || attributes.some((a) => /^max-age=0$/i.test(a));
-    return cleared ? null : pair;
-  }
-  return current;
-}
-
 /** One request to the process at `url` (its origin), as `client`; keeps the session cookie it is given. */
-export function send(url: string, client: Client, method: string, path: string, body?: unknown): Promise<Answer> {
-  const payload = body === undefined ? undefined : JSON.stringify(body);
-  return new Promise((resolve, reject) => {
-    const req = http.request(
-      `${url}${path}`,
-      {
-        method,
-        agent: client.agent,
-        headers: {
-          origin: url,
-          ...(client.cookie ? { cookie: client.cookie } : {}),
-          ...(payload === undefined ? {} : { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) }),
-        },
-      },
-      (res) => {
-        let text = '';
-        res.on('data', (chunk: Buffer) => (text += chunk.toString()));
-        res.on('end', () => {
-          client.cookie = sessionAfter(res.headers['set-cookie'], client.cookie);
-          let parsed: unknown = text;
-          try {
-            parsed = text ? JSON.parse(text) : null;
-          } catch {
-            // Not JSON: kept as text, for the failure message.
-          }
-          resolve({ status: res.statusCode ?? 0, body: parsed });
-        });
-        res.on('error', reject);
-      },
-    );
-    req.on('error', reject);
-    req.end(payload);
-  });
+export async function send(url: string, client: Client, method: string, path: string, body?: Record<string, unknown>): Promise<Answer> {
+  const reply = await httpRequest({ base: url, method, path, payload: body, cookie: client.cookie, agent: client.agent, timeoutMs: 60_000 });
+  client.cookie = sessionAfter(reply.setCookie, client.cookie);
+  return { status: reply.status, body: parsed<unknown>(reply.text, null, (text) => text) };
 }
 
 /** `send`, failing with the answer's body unless the status is `status`; answers the body. */
