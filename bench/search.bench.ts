@@ -8,6 +8,7 @@
 import { CHECKED_POINTS, planSearch, runSearch } from '../features/search/index';
 import { SEARCH_LIMITS, searchRequestSchema, type SearchRequest } from '../shared/search';
 import { writeFigures } from './figures';
+import { range, searchInput } from './search-input';
 
 const WARMUP_RUNS = 3;
 const TIMED_RUNS = 15;
@@ -28,23 +29,8 @@ function timeMs(run: () => unknown, runs: number): number[] {
   return samples;
 }
 
-const range = (from: number, step: number, count: number) => Array.from({ length: count }, (_, i) => from + i * step);
-
-// 5 densities × 5 blazes (each below 2d of every density) × orders ±1 × 10 deviations × 20 focal
-// lengths = 10,000 candidates, every one reaching 400–700 nm.
-const request: SearchRequest = searchRequestSchema.parse({
-  range: { startNm: 400, endNm: 700 },
-  source: { minNm: 380, maxNm: 780 },
-  detector: { pixelPitchUm: 14, pixelCount: 2048 },
-  requirements: { maxBandpassNm: 0.5, minBlazeEfficiency: 0.3, maxFocalLengthMm: 900, orderOverlap: 'forbidden' },
-  search: {
-    grooveDensitiesPerMm: [300, 600, 900, 1000, 1200],
-    blazeWavelengthsNm: [300, 400, 500, 600, 750],
-    maxOrder: 1,
-    deviationAnglesDeg: range(5, 5, 10),
-    focalLengthsMm: range(100, 50, 20),
-  },
-});
+// 10,000 candidates: 500 per focal length × 20 focal lengths.
+const request: SearchRequest = searchRequestSchema.parse(searchInput(range(100, 50, 20)));
 const CANDIDATES = planSearch(request).total;
 const POINTS = CANDIDATES * CHECKED_POINTS;
 

@@ -33,6 +33,7 @@ import { ensureTemplate } from '../tests/support/db-template';
 import { startServer, type RunningServer } from '../tests/support/live-server';
 import { createServerDatabase, seedBenchData, withSlits } from './bench-data';
 import { artifactsDir } from './figures';
+import { range, searchInput } from './search-input';
 
 const SECONDS = Number(process.env.SOAK_SECONDS ?? 300);
 const CONNECTIONS = 32;
@@ -141,21 +142,8 @@ function multipart(fields: Record<string, string>, file: { name: string; content
   return { body: Buffer.from(parts.join(''), 'utf8'), type: `multipart/form-data; boundary=${boundary}` };
 }
 
-const range = (from: number, step: number, count: number) => Array.from({ length: count }, (_, i) => from + i * step);
-// 5 densities × 5 blazes × orders ±1 × 10 deviations × 5 focal lengths: a search a person refines.
-const searchBody = JSON.stringify({
-  range: { startNm: 400, endNm: 700 },
-  source: { minNm: 380, maxNm: 780 },
-  detector: { pixelPitchUm: 14, pixelCount: 2048 },
-  requirements: { maxBandpassNm: 0.5, minBlazeEfficiency: 0.3, maxFocalLengthMm: 900, orderOverlap: 'forbidden' },
-  search: {
-    grooveDensitiesPerMm: [300, 600, 900, 1000, 1200],
-    blazeWavelengthsNm: [300, 400, 500, 600, 750],
-    maxOrder: 1,
-    deviationAnglesDeg: range(5, 5, 10),
-    focalLengthsMm: range(200, 150, 5),
-  },
-});
+// 2,500 candidates: the search input of `npm run bench:search` at 5 focal lengths.
+const searchBody = JSON.stringify(searchInput(range(200, 150, 5)));
 const traceBody = JSON.stringify({ design: exampleDesign });
 
 type RouteStats = { latencies: number[]; statuses: Map<number, number>; networkErrors: number };
