@@ -37,7 +37,8 @@ export async function buildOpenApiDocument(version: string): Promise<Document> {
       version,
       description:
         'Design notebooks and the grating-monochromator solver. Every error answers `{ error: { code, message, fields?, details? } }`; ' +
-        '`fields` maps a field path to why it was refused. State-changing calls from a browser must carry a same-site Origin.',
+        '`fields` maps a field path to why it was refused. State-changing calls from a browser must carry a same-site Origin. ' +
+        'While the database is unavailable (a PostgreSQL server restarting), any route may answer 503 `database_unavailable` with Retry-After.',
     },
     servers: [{ url: '/api' }],
     components: { securitySchemes: { [sessionScheme]: { type: 'apiKey', in: 'cookie', name: sessionCookieName } } },
