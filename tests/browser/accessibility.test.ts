@@ -157,4 +157,22 @@ describe('accessibility of every screen (axe-core, WCAG 2.2 A and AA)', () => {
     expect([...kinds]).toEqual(expect.arrayContaining(['link', 'button', 'radio', 'input']));
     expect(seen.filter((item) => item.outline !== 'solid 2px rgb(47, 127, 168)')).toEqual([]);
   });
+
+  it('fails a page with a serious violation, naming the rule, the screen and the element', async () => {
+    // The check above passing means something only if it can fail: an unnamed button (axe rule
+    // button-name, critical) and grey-on-white text at 1.6:1 (color-contrast, serious).
+    const page = await live.browser.newPage({ viewport: viewports.phone });
+    await page.setContent(
+      '<html lang="en"><head><title>t</title></head><body><main><h1>Check</h1><button id="mute"></button>' +
+        '<p id="faint" style="color:#ccc;background:#fff">Faint words</p></main></body></html>',
+    );
+    const failure = await expectAccessible(page, 'the planted page at phone').then(
+      () => null,
+      (error: Error) => error.message,
+    );
+    await page.close();
+    expect(failure).toContain('the planted page at phone');
+    expect(failure).toMatch(/button-name \(critical\).*#mute/);
+    expect(failure).toMatch(/color-contrast \(serious\).*#faint/);
+  });
 });
