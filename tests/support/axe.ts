@@ -14,6 +14,8 @@ const failing = new Set<ImpactValue>(['serious', 'critical']);
 export type AccessibilityOptions = {
   /** CSS selectors left out of the check, each with a reason in the caller's comment. */
   exclude?: readonly string[];
+  /** Check only this part of the screen (a CSS selector); the whole page when left out. */
+  include?: string;
 };
 
 /** One violation as a line a person can act on: rule, impact, where, and what to do. */
@@ -38,6 +40,7 @@ export async function expectAccessible(page: Page, label: string, options: Acces
   // screens do not have (no iframe anywhere in app/ or features/). Measured on the workbench at
   // wide size: 4.0–4.6 s a check by default, 0.74–0.85 s in legacy mode, the same violations.
   let builder = new AxeBuilder({ page }).setLegacyMode(true).options({ resultTypes: ['violations'] }).withTags([...wcagTags]);
+  if (options.include) builder = builder.include(options.include);
   for (const selector of options.exclude ?? []) builder = builder.exclude(selector);
   const results = await builder.analyze();
   const serious = results.violations.filter((violation) => violation.impact && failing.has(violation.impact));
