@@ -87,6 +87,10 @@ export default defineConfig({
           // no browser test mocks a module or stubs a global, and each file closes its own server
           // and Chromium in afterAll.
           isolate: false,
+          // After the unit and API files, as before: a project that shares its fork needs a group
+          // of its own (its one worker against their two), and the browser files alone load both
+          // cores already.
+          sequence: { groupOrder: 1 },
           testTimeout: 60_000,
           hookTimeout: 240_000,
         },
