@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
@@ -54,13 +54,42 @@ export const webExportEnv = {
   EXPO_UNSTABLE_METRO_OPTIMIZE_GRAPH: '1',
 };
 
+const exportArgs = (rootDir: string) => ['export', '-p', 'web', '--output-dir', webRoot(rootDir)];
+const expoBin = (rootDir: string) => path.join(rootDir, 'node_modules', '.bin', 'expo');
+
+/**
+ * The same export without waiting for it: resolves with its output when it has finished, and
+ * rejects with that output when it fails. Null when the export is already up to date.
+ */
+export function startWebBuild(rootDir: string): { done: Promise<string>; stop: () => void } | null {
+  const reason = staleReason(rootDir);
+  if (!reason) return null;
+  const started = Date.now();
+  const child = spawn(expoBin(rootDir), exportArgs(rootDir), {
+    cwd: rootDir,
+    stdio: ['ignore', 'pipe', 'pipe'],
+    env: { ...process.env, ...webExportEnv },
+  });
+  let output = `Exporting the web app (${reason})…\n`;
+  child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  const done = new Promise<string>((resolve, reject) => {
+    child.once('error', (error) => reject(new Error(`${output}\n${error.message}`)));
+    child.once('exit', (code, signal) => {
+      if (code === 0) resolve(`${output}Web app exported in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
+      else reject(new Error(`${output}\nexpo export failed with ${signal ?? `exit code ${code}`}`));
+    });
+  });
+  return { done, stop: () => child.kill('SIGTERM') };
+}
+
 /** Exports the web app with Expo when it is missing or older than its sources. */
 export function ensureWebBuild(rootDir: string, log: (line: string) => void = console.log): void {
   const reason = staleReason(rootDir);
   if (!reason) return;
   log(`Exporting the web app (${reason})…`);
   const started = Date.now();
-  const result = spawnSync(path.join(rootDir, 'node_modules', '.bin', 'expo'), ['export', '-p', 'web', '--output-dir', webRoot(rootDir)], {
+  const result = spawnSync(expoBin(rootDir), exportArgs(rootDir), {
     cwd: rootDir,
     stdio: ['ignore', 'inherit', 'inherit'],
     env: { ...process.env, ...webExportEnv },

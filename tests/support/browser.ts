@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import type { Browser, BrowserContext, BrowserContextOptions, Page } from 'playwright-core';
 import { afterAll, beforeAll, inject } from 'vitest';
 import { launchBrowser, startServer as startLiveServer, type RunningServer } from './live-server';
+import { webBuildReady } from './web-build';
 
 const rootDir = fileURLToPath(new URL('../..', import.meta.url));
 export const artifactsDir = path.join(rootDir, 'tests', 'artifacts');
@@ -14,7 +15,9 @@ export { chromiumPath, launchBrowser, viewports, type RunningServer, type Viewpo
  * Starts the real server on a copy of the migrated template (db-template.ts provides it to every
  * test project); see live-server.ts.
  */
-export function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
+export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
+  // The export runs beside the unit and API files (web-build.ts); the server serves what it wrote.
+  await webBuildReady(inject('webBuildOutcome'));
   return startLiveServer(inject('dataDirTemplate'), env);
 }
 
@@ -151,7 +154,8 @@ export function liveServerAndBrowser(env: Record<string, string> = {}): { readon
   beforeAll(async () => {
     live.server = await startServer(env);
     live.browser = reusingContexts(await launchBrowser(), () => new URL(live.server.url).origin);
-  });
+    // The first file may wait for the web export (up to its own 10-minute limit) before its server.
+  }, 11 * 60_000);
   afterAll(async () => {
     await live.browser?.close();
     await live.server?.stop();
