@@ -12,6 +12,12 @@ declare module 'vitest' {
   }
 }
 
+/** Whole or not at all: a reader never sees half the file. */
+function writeOutcome(file: string, outcome: { ok: boolean; log: string }): void {
+  writeFileSync(`${file}.part`, JSON.stringify(outcome));
+  renameSync(`${file}.part`, file);
+}
+
 /**
  * Browser tests run against the real export; build it once per run if the sources moved on.
  *
@@ -20,12 +26,6 @@ declare module 'vitest' {
  * waiting here held every test back that long. It runs beside the unit and API files instead,
  * and writes its outcome to a file the browser tests wait for (`webBuildReady`).
  */
-/** Whole or not at all: a reader never sees half the file. */
-function writeOutcome(file: string, outcome: { ok: boolean; log: string }): void {
-  writeFileSync(`${file}.part`, JSON.stringify(outcome));
-  renameSync(`${file}.part`, file);
-}
-
 export default function setup(project: TestProject) {
   const outcome = path.join(tmpdir(), `blazebook-web-build-${process.pid}.json`);
   rmSync(outcome, { force: true });
