@@ -1,8 +1,9 @@
 /**
  * Soak: SOAK_SECONDS (default 300) of a team's mixed traffic at 32 connections against the real
- * server (`startServer` from tests/support/live-server.ts, production mode) on each engine: PGlite,
- * then PostgreSQL (TEST_DATABASE_URL when set, else a throwaway cluster from scripts/pg-throwaway.ts,
- * fsync on, removed afterwards; skipped with the reason when PostgreSQL is not installed).
+ * server (`startServer` from tests/support/live-server.ts, production mode, its sources through tsx
+ * as `npm start` runs them) on each engine: PGlite, then PostgreSQL (TEST_DATABASE_URL when set,
+ * else a throwaway cluster from scripts/pg-throwaway.ts, fsync on, removed afterwards; skipped with
+ * the reason when PostgreSQL is not installed).
  *
  * Each connection loops without pause. The routes the server limits per address are sent on a
  * schedule at a busy team's rate, under their limits (`paced` below: sheets 12, searches 6, curve
@@ -398,7 +399,7 @@ async function runEngine(engine: Engine, template: string): Promise<EngineResult
       await seedBenchData({ url: database.url, poolSize: 2 }, EXTRA_DESIGNS, CONNECTIONS);
       env.DATABASE_URL = database.url;
     }
-    server = await startServer(seeded ?? template, env);
+    server = await startServer(seeded ?? template, env, { from: 'sources' });
     console.log(`${engine}: server ${server.pid} at ${server.url}; ${SECONDS} s of mixed traffic …`);
     const result = await soak(engine, server);
     print(result);

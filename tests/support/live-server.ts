@@ -5,6 +5,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser } from 'playwright-core';
 import { webRoot } from '../../scripts/web-build';
+import { serverBundle } from './server-bundle';
 import { createTestDatabase, testEngine } from './server-databases';
 
 /**
@@ -40,13 +41,20 @@ export type StartOptions = {
    * restart after a crash). The caller removes it.
    */
   dataDir?: string;
+  /**
+   * What the process runs: the bundle of the server's sources (server-bundle.ts, the default), or
+   * the sources through tsx as `npm start` runs them (the soak, whose memory figures should be
+   * those of the process users start).
+   */
+  from?: 'bundle' | 'sources';
 };
 
 /**
  * Starts the real server (`server/index.ts`) on a free port with its own temporary data directory,
  * and resolves once it prints its ready line. The directory starts as a copy of the migrated
  * template (db-template.ts), as a fresh one would be after its first start, without the initdb.
- * `node --import tsx`, as `npm start` runs it: the tsx command would add a second Node process.
+ * Runs `node` on the server's bundle (server-bundle.ts), or `node --import tsx` on its sources as
+ * `npm start` does (the tsx command would add a second Node process).
  */
 export async function startServer(
   dataDirTemplate: string,
@@ -59,7 +67,8 @@ export async function startServer(
   const serverDatabase = testEngine() === 'server' && !env.DATABASE_URL ? await createTestDatabase() : null;
   if (serverDatabase) env = { DATABASE_URL: serverDatabase.url, ...env };
   let log = '';
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  const entry = options.from === 'sources' ? ['--import', 'tsx', 'server/index.ts'] : ['--enable-source-maps', await serverBundle()];
+  const child: ChildProcess = spawn(process.execPath, entry, {
     cwd: rootDir,
     env: {
       ...process.env,
