@@ -238,6 +238,21 @@ if (soakE || soakS) {
     ratio: '',
     verdict: verdict(...[soakE, soakS].filter(has).map((j) => le(j!.rssLateOverEarly, 1.2))),
   });
+  // What is still reachable after a full collection, under the same load at both ends: what grows
+  // when something leaks, where the RSS also holds what the allocator keeps.
+  rows.push({
+    area: 'soak, 32 connections',
+    figure: 'server live heap after a full collection: idle, start → end of the measured time',
+    ...both((j) =>
+      j.heapEndMb === undefined
+        ? '–'
+        : `${fmt(j.heapIdleMb, 0)}; ${fmt(j.heapWarmMb, 0)} → ${fmt(j.heapEndMb, 0)} MB = ${fmt(j.heapEndOverWarm, 2)}`,
+    ),
+    target: '≤ 1.20 (flat within 20 %)',
+    floor: '',
+    ratio: '',
+    verdict: verdict(...[soakE, soakS].filter(has).map((j) => le(j!.heapEndOverWarm, 1.2))),
+  });
   const routeNames = [...new Set([soakE, soakS].flatMap((j) => ((j?.routes as SoakRoute[] | undefined) ?? []).map((r) => r.name)))];
   for (const name of routeNames) {
     const route = (j: Json) => (j.routes as SoakRoute[]).find((r) => r.name === name);

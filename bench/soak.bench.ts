@@ -17,7 +17,10 @@
  * Prints per route: count, p50, p99, max, unexpected errors; the total throughput; the server
  * process's RSS (VmRSS, from /proc) at start, after warm-up and at the end, with end / start and
  * end / warm (target: flat within 20 %), and the medians of the first and last fifths of the
- * samples taken every 5 s. Writes the same to tests/artifacts/soak-<engine>.json.
+ * samples taken every 5 s; and the live heap after a full collection (bench/live-heap.ts, through
+ * the inspector the server opens on loopback) idle, as the measured time starts and as it ends,
+ * both under the same load (target: end / start within 20 %). Writes the same to
+ * tests/artifacts/soak-<engine>.json.
  *
  * `npm run bench:soak`; SOAK_SECONDS=60 for a short one; SOAK_ENGINES=embedded (or server) for one engine.
  */
@@ -34,6 +37,7 @@ import { ensureTemplate } from '../tests/support/db-template';
 import { startServer, type RunningServer } from '../tests/support/live-server';
 import { createServerDatabase, seedBenchData, withSlits } from './bench-data';
 import { artifactsDir } from './figures';
+import { inspectorUrl, liveHeap, type LiveHeap } from './live-heap';
 import { range, searchInput } from './search-input';
 
 const SECONDS = Number(process.env.SOAK_SECONDS ?? 300);
@@ -153,6 +157,8 @@ type EngineResult = Record<string, unknown>;
 async function soak(engine: Engine, server: RunningServer): Promise<EngineResult> {
   const http1 = client(server.url);
   const rss: { t: number; kb: number }[] = [{ t: 0, kb: rssKb(server.pid) }];
+  const inspector = inspectorUrl(server.output());
+  const heapIdle = await liveHeap(inspector);
   try {
     const signIn = await http1.send('POST', '/api/auth/sign-in', JSON.stringify({ email: demoUsers[0].email, password: demoPassword }));
     if (signIn.status !== 200) throw new Error(`sign-in failed: ${signIn.status} ${signIn.body.toString()}`);
@@ -275,6 +281,14 @@ async function soak(engine: Engine, server: RunningServer): Promise<EngineResult
       }
     };
 
+    // The live heap under the same load at both ends of the measured time: 1.5 s before it starts
+    // (the collection's pause falls on uncounted warm-up requests) and 1.5 s before it ends.
+    const heapAt = (at: number) =>
+      new Promise<LiveHeap>((resolve, reject) => setTimeout(() => liveHeap(inspector).then(resolve, reject), Math.max(0, at - performance.now())));
+    const heapWarmP = heapAt(measureFrom - 1500);
+    const heapEndP = heapAt(endAt - 1500);
+    // Read after the traffic; a failure then is the soak's failure, not an unhandled rejection now.
+    for (const pending of [heapWarmP, heapEndP]) pending.catch(() => undefined);
     let warmKb: number | null = null;
     const sampler = setInterval(() => {
       const t = (performance.now() - startedAt) / 1000;
@@ -284,6 +298,7 @@ async function soak(engine: Engine, server: RunningServer): Promise<EngineResult
     }, RSS_SAMPLE_MS);
     await Promise.all(Array.from({ length: CONNECTIONS }, (_, w) => worker(w)));
     clearInterval(sampler);
+    const [heapWarm, heapEnd] = await Promise.all([heapWarmP, heapEndP]);
     const elapsedS = (performance.now() - measureFrom) / 1000;
     const endKb = rssKb(server.pid);
     rss.push({ t: Math.round(elapsedS), kb: endKb });
@@ -345,6 +360,13 @@ async function soak(engine: Engine, server: RunningServer): Promise<EngineResult
       rssLateMedianMb: lateKb / 1024,
       rssLateOverEarly: lateKb / earlyKb,
       rssTargetRatio: TARGET_RSS_RATIO,
+      heapIdleMb: heapIdle.heapUsedMb,
+      heapWarmMb: heapWarm.heapUsedMb,
+      heapEndMb: heapEnd.heapUsedMb,
+      heapEndOverWarm: heapEnd.heapUsedMb / heapWarm.heapUsedMb,
+      externalIdleMb: heapIdle.externalMb,
+      externalWarmMb: heapWarm.externalMb,
+      externalEndMb: heapEnd.externalMb,
       warmUpSeconds: WARM_S,
       warmUpRequests: warmUp.requests,
       warmUpMaxMs: Math.round(warmUp.maxMs),
@@ -375,6 +397,9 @@ function print(result: EngineResult) {
   console.log(
     `server RSS medians (samples every ${RSS_SAMPLE_MS / 1000} s): first fifth ${f(n('rssEarlyMedianMb'))} MB, last fifth ${f(n('rssLateMedianMb'))} MB; last / first ${f(n('rssLateOverEarly'), 2)}`,
   );
+  console.log(
+    `server live heap after a full collection: ${f(n('heapIdleMb'))} MB idle, ${f(n('heapWarmMb'))} MB as the measured time starts, ${f(n('heapEndMb'))} MB as it ends; end / start ${f(n('heapEndOverWarm'), 2)} (target ≤ ${TARGET_RSS_RATIO}); outside the heap (buffers, WebAssembly) ${f(n('externalIdleMb'))} → ${f(n('externalWarmMb'))} → ${f(n('externalEndMb'))} MB`,
+  );
 }
 
 async function runEngine(engine: Engine, template: string): Promise<EngineResult> {
@@ -399,7 +424,8 @@ async function runEngine(engine: Engine, template: string): Promise<EngineResult
       await seedBenchData({ url: database.url, poolSize: 2 }, EXTRA_DESIGNS, CONNECTIONS);
       env.DATABASE_URL = database.url;
     }
-    server = await startServer(seeded ?? template, env, { from: 'sources' });
+    // The inspector on loopback, for the live heap (live-heap.ts); the port is the system's choice.
+    server = await startServer(seeded ?? template, env, { from: 'sources', nodeArgs: ['--inspect=127.0.0.1:0'] });
     console.log(`${engine}: server ${server.pid} at ${server.url}; ${SECONDS} s of mixed traffic …`);
     const result = await soak(engine, server);
     print(result);

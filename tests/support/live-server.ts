@@ -47,6 +47,8 @@ export type StartOptions = {
    * those of the process users start).
    */
   from?: 'bundle' | 'sources';
+  /** Node options before the entry (the soak opens the inspector to read the live heap). */
+  nodeArgs?: readonly string[];
 };
 
 /**
@@ -68,7 +70,7 @@ export async function startServer(
   if (serverDatabase) env = { DATABASE_URL: serverDatabase.url, ...env };
   let log = '';
   const entry = options.from === 'sources' ? ['--import', 'tsx', 'server/index.ts'] : ['--enable-source-maps', await serverBundle()];
-  const child: ChildProcess = spawn(process.execPath, entry, {
+  const child: ChildProcess = spawn(process.execPath, [...(options.nodeArgs ?? []), ...entry], {
     cwd: rootDir,
     env: {
       ...process.env,
