@@ -41,13 +41,19 @@ function startTimeOf(pid: number): string | null {
   }
 }
 
-function isAlive(holder: Holder): boolean {
+/** Whether a process with this id exists (perhaps another user's), without signalling it. */
+export function processExists(pid: number): boolean {
   try {
-    process.kill(holder.pid, 0);
+    process.kill(pid, 0);
+    return true;
   } catch (error) {
     // EPERM: the process exists but belongs to someone else.
-    if ((error as NodeJS.ErrnoException).code !== 'EPERM') return false;
+    return (error as NodeJS.ErrnoException).code === 'EPERM';
   }
+}
+
+function isAlive(holder: Holder): boolean {
+  if (!processExists(holder.pid)) return false;
   const startedAt = startTimeOf(holder.pid);
   return holder.startedAt === null || startedAt === null || startedAt === holder.startedAt;
 }

@@ -2,6 +2,7 @@ import { build } from 'esbuild';
 import { mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { processExists } from '../../db/data-dir-lock';
 
 /**
  * `server/index.ts` and everything of ours it imports as one ES module, for the server processes
@@ -20,15 +21,6 @@ const bundleDir = path.join(rootDir, 'node_modules', '.cache', 'blazebook-server
 
 let bundled: Promise<string> | null = null;
 
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (error) {
-    return (error as NodeJS.ErrnoException).code === 'EPERM';
-  }
-}
-
 /**
  * Builds the bundle once per process (about 0.4 s) and returns its path. It is removed when the
  * process exits; a worker ended by a signal leaves its file, which the next build removes.
@@ -38,7 +30,7 @@ export function serverBundle(): Promise<string> {
     mkdirSync(bundleDir, { recursive: true });
     for (const name of readdirSync(bundleDir)) {
       const pid = Number(/^server-(\d+)\.mjs$/.exec(name)?.[1]);
-      if (pid && !alive(pid)) rmSync(path.join(bundleDir, name), { force: true });
+      if (pid && !processExists(pid)) rmSync(path.join(bundleDir, name), { force: true });
     }
     const outfile = path.join(bundleDir, `server-${process.pid}.mjs`);
     await build({
